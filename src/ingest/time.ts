@@ -1,0 +1,337 @@
+/**
+ * Observation time text → epoch ms UTC.
+ *
+ * Accepted forms (digits read by hand; luxon is used only for time-zone offsets):
+ * - ISO 8601 `YYYY-MM-DDTHH:MM[:SS[.fff]]` or with a blank instead of `T`, optional `Z` / `±HH:MM` /
+ *   `±HHMM` / `±HH` (ISO 8601-1:2019 §5.4); a date alone `YYYY-MM-DD` means 00:00; `/` may replace `-`.
+ * - Compact `YYYYMMDDHHMM[SS]`.
+ * - US `MM/DD/YYYY HH:MM[:SS]` with optional `AM`/`PM`.
+ * - Epoch seconds (or ms when |value| > 1e11) only when the caller says so (`epoch: true`, for a column
+ *   named e.g. `epoch` or `unix_time`).
+ *
+ * A time without an offset is local to `zone` (IANA name) or shifted by `offsetMinutes`, else it is an
+ * error `needs-zone`. With a zone, a local time repeated at a fall-back change is `ambiguous` and a local
+ * time skipped at a spring-forward change is `nonexistent`: both are reported, never guessed. Offsets come
+ * from the IANA tz database (through luxon's `IANAZone`, which uses the runtime's Intl data).
+ *
+ * `standardTime: true` reads naive times as the zone's STANDARD time all year (no DST), the convention of
+ * NCEI Local Climatological Data, whose `DATE` is local standard time (LCD documentation, from memory).
+ * The standard offset is the smaller of the zone's 1 January and 1 July offsets of that year, so it also
+ * holds in the southern hemisphere (Sydney: +10:00, not the January DST offset +11:00).
+ */
+import { IANAZone } from 'luxon';
+
+export type TimeError = 'ambiguous' | 'nonexistent' | 'unparsable' | 'needs-zone';
+export type TimeResult = { ms: number } | { error: TimeError; message: string };
+
+export interface TimeOptions {
+  /** IANA zone for times without an offset, e.g. `America/Chicago`. `UTC` is accepted. */
+  zone?: string;
+  /** Fixed offset from UTC, minutes east (e.g. −300 for UTC−5), for times without an offset; wins over `zone`. */
+  offsetMinutes?: number;
+  /** Read naive times as the zone's standard time all year (NCEI LCD convention). */
+  standardTime?: boolean;
+  /** The text is an epoch number (seconds, or ms when |value| > 1e11). */
+  epoch?: boolean;
+}
+
+const HOUR_MS = 3600000;
+const DAY_MS = 86400000;
+
+/** Fields read from the text; `offset` NaN when the text has none. */
+interface Parts {
+  y: number;
+  mo: number;
+  d: number;
+  h: number;
+  mi: number;
+  s: number;
+  ms: number;
+  offset: number;
+}
+
+const scratch: Parts = { y: 0, mo: 0, d: 0, h: 0, mi: 0, s: 0, ms: 0, offset: NaN };
+
+function digit(t: string, i: number): number {
+  const c = t.charCodeAt(i) - 48;
+  return c >= 0 && c <= 9 ? c : -1000;
+}
+function num2(t: string, i: number): number {
+  return digit(t, i) * 10 + digit(t, i + 1);
+}
+function num4(t: string, i: number): number {
+  return digit(t, i) * 1000 + digit(t, i + 1) * 100 + digit(t, i + 2) * 10 + digit(t, i + 3);
+}
+
+function daysInMonth(y: number, mo: number): number {
+  return mo === 2 ? ((y % 4 === 0 && y % 100 !== 0) || y % 400 === 0 ? 29 : 28) : mo === 4 || mo === 6 || mo === 9 || mo === 11 ? 30 : 31;
+}
+
+/** Read the clock and offset starting at `i` (after the date). Returns false when malformed. */
+function readClock(t: string, i: number, p: Parts): boolean {
+  const n = t.length;
+  p.h = 0;
+  p.mi = 0;
+  p.s = 0;
+  p.ms = 0;
+  p.offset = NaN;
+  if (i >= n) return true;
+  const sep = t.charCodeAt(i);
+  if (sep !== 84 /*T*/ && sep !== 32 /* */ && sep !== 116 /*t*/) return readOffset(t, i, p);
+  i++;
+  while (i < n && t.charCodeAt(i) === 32) i++;
+  p.h = num2(t, i);
+  if (t.charCodeAt(i + 2) !== 58 /*:*/) return false;
+  p.mi = num2(t, i + 3);
+  i += 5;
+  if (t.charCodeAt(i) === 58) {
+    p.s = num2(t, i + 1);
+    i += 3;
+    if (t.charCodeAt(i) === 46 /*.*/ || t.charCodeAt(i) === 44 /*,*/) {
+      i++;
+      let scale = 100;
+      let frac = 0;
+      while (i < n) {
+        const c = digit(t, i);
+        if (c < 0) break;
+        frac += c * scale;
+        scale /= 10;
+        i++;
+      }
+      p.ms = Math.round(frac);
+    }
+  }
+  return readOffset(t, i, p);
+}
+
+function readOffset(t: string, i: number, p: Parts): boolean {
+  const n = t.length;
+  while (i < n && t.charCodeAt(i) === 32) i++;
+  if (i >= n) return true;
+  const c = t.charCodeAt(i);
+  if ((c === 90 || c === 122) && i === n - 1) {
+    p.offset = 0;
+    return true;
+  }
+  if (c === 85 && t.slice(i) === 'UTC') {
+    p.offset = 0;
+    return true;
+  }
+  if (c === 43 || c === 45 /* + - */) {
+    const sign = c === 43 ? 1 : -1;
+    const hh = num2(t, i + 1);
+    let mm = 0;
+    const rest = n - i - 3;
+    if (rest === 3 && t.charCodeAt(i + 3) === 58) mm = num2(t, i + 4);
+    else if (rest === 2) mm = num2(t, i + 3);
+    else if (rest !== 0) return false;
+    if (hh < 0 || hh > 18 || mm < 0 || mm > 59) return false;
+    p.offset = sign * (hh * 60 + mm);
+    return true;
+  }
+  return false;
+}
+
+/** Split `text` into parts; false when no accepted form matches. */
+function readParts(t: string, p: Parts): boolean {
+  const n = t.length;
+  if (n >= 10 && (t.charCodeAt(4) === 45 || t.charCodeAt(4) === 47) && t.charCodeAt(7) === t.charCodeAt(4)) {
+    // YYYY-MM-DD..., YYYY/MM/DD...
+    p.y = num4(t, 0);
+    p.mo = num2(t, 5);
+    p.d = num2(t, 8);
+    return readClock(t, 10, p);
+  }
+  if (n >= 10 && t.charCodeAt(2) === 47 && t.charCodeAt(5) === 47) {
+    // MM/DD/YYYY[ HH:MM[:SS]][ AM|PM]
+    p.mo = num2(t, 0);
+    p.d = num2(t, 3);
+    p.y = num4(t, 6);
+    let body = t;
+    let ampm = 0;
+    const tail = t.slice(-2).toUpperCase();
+    if (tail === 'AM' || tail === 'PM') {
+      ampm = tail === 'AM' ? 1 : 2;
+      body = t.slice(0, -2).trimEnd();
+    }
+    // allow a single-digit hour: `1/5` forms are not accepted, but `01/05/2024 7:05` is
+    if (body.length > 11 && body.charCodeAt(12) === 58) body = body.slice(0, 11) + '0' + body.slice(11);
+    if (!readClock(body, 10, p)) return false;
+    if (ampm) {
+      if (p.h < 1 || p.h > 12) return false;
+      p.h = (p.h % 12) + (ampm === 2 ? 12 : 0);
+    }
+    return true;
+  }
+  if ((n === 12 || n === 14) && /^\d+$/.test(t)) {
+    p.y = num4(t, 0);
+    p.mo = num2(t, 4);
+    p.d = num2(t, 6);
+    p.h = num2(t, 8);
+    p.mi = num2(t, 10);
+    p.s = n === 14 ? num2(t, 12) : 0;
+    p.ms = 0;
+    p.offset = NaN;
+    return true;
+  }
+  return false;
+}
+
+function validParts(p: Parts): boolean {
+  if (!(p.y >= 0 && p.mo >= 1 && p.mo <= 12 && p.d >= 1 && p.d <= daysInMonth(p.y, p.mo))) return false;
+  if (!(p.h >= 0 && p.mi >= 0 && p.mi <= 59 && p.s >= 0 && p.s <= 60)) return false;
+  // ISO 8601 allows 24:00 as the end of a day.
+  return p.h < 24 || (p.h === 24 && p.mi === 0 && p.s === 0 && p.ms === 0);
+}
+
+/** Offset lookups for one zone, cached per UTC hour (an hour holding a transition is not cached). */
+class ZoneOffsets {
+  readonly zone: IANAZone;
+  private cache = new Map<number, number>();
+  private standardCache = new Map<number, number>();
+  constructor(name: string) {
+    this.zone = IANAZone.create(name);
+  }
+  /** Offset in minutes east of UTC at instant `ms`. */
+  at(ms: number): number {
+    const hour = Math.floor(ms / HOUR_MS);
+    const c = this.cache.get(hour);
+    if (c !== undefined) return Number.isNaN(c) ? this.zone.offset(ms) : c;
+    const a = this.zone.offset(hour * HOUR_MS);
+    const b = this.zone.offset(hour * HOUR_MS + HOUR_MS - 1);
+    if (this.cache.size > 200000) this.cache.clear();
+    this.cache.set(hour, a === b ? a : NaN);
+    return a === b ? a : this.zone.offset(ms);
+  }
+  /** Standard (non-DST) offset for the year: min of the 1 January and 1 July offsets. */
+  standard(year: number): number {
+    let s = this.standardCache.get(year);
+    if (s === undefined) {
+      s = Math.min(this.zone.offset(Date.UTC(year, 0, 1)), this.zone.offset(Date.UTC(year, 6, 1)));
+      this.standardCache.set(year, s);
+    }
+    return s;
+  }
+}
+
+function fmtOffset(min: number): string {
+  const s = min < 0 ? '-' : '+';
+  const a = Math.abs(min);
+  return `${s}${String(Math.floor(a / 60)).padStart(2, '0')}:${String(a % 60).padStart(2, '0')}`;
+}
+
+/**
+ * Convert a local wall time (given as if it were UTC, `wallMs`) in `zone` to UTC, detecting DST gaps and
+ * overlaps: the offsets one day before and after are the only candidates; a candidate instant is valid when
+ * the zone's offset at that instant equals the candidate offset.
+ */
+function localToUtc(wallMs: number, z: ZoneOffsets, text: string): TimeResult {
+  const o1 = z.at(wallMs - DAY_MS);
+  const o2 = z.at(wallMs + DAY_MS);
+  const u1 = wallMs - o1 * 60000;
+  const ok1 = z.at(u1) === o1;
+  if (o1 === o2) {
+    if (ok1) return { ms: u1 };
+    // Two changes within two days (rare); fall back to the offset at the wall time itself.
+    const o = z.at(wallMs);
+    const u = wallMs - o * 60000;
+    if (z.at(u) === o) return { ms: u };
+    return { error: 'nonexistent', message: `${text} does not exist in ${z.zone.name} (clock change); give times in UTC or with an offset` };
+  }
+  const u2 = wallMs - o2 * 60000;
+  const ok2 = z.at(u2) === o2;
+  if (ok1 && ok2) {
+    return {
+      error: 'ambiguous',
+      message: `${text} happens twice in ${z.zone.name} (clocks go back: ${fmtOffset(o1)} and ${fmtOffset(o2)}); give times in UTC or with an offset`,
+    };
+  }
+  if (ok1) return { ms: u1 };
+  if (ok2) return { ms: u2 };
+  return {
+    error: 'nonexistent',
+    message: `${text} does not exist in ${z.zone.name} (clocks go forward from ${fmtOffset(o1)} to ${fmtOffset(o2)}); check the time column or give times in UTC`,
+  };
+}
+
+const UTC_NAMES = new Set(['utc', 'z', 'etc/utc', 'gmt', 'etc/gmt', 'zulu', 'universal', 'etc/universal']);
+
+/** A reusable parser with its zone and offset cache bound (use one per file/column). */
+export type TimeParser = (text: string) => TimeResult;
+
+/**
+ * Build a time parser for fixed options; throws RangeError for an unknown zone or a bad offset.
+ * @example makeTimeParser({ zone: 'America/New_York' })('2019-11-03 01:30') // { error: 'ambiguous', ... }
+ */
+export function makeTimeParser(opts: TimeOptions = {}): TimeParser {
+  const { zone, offsetMinutes, standardTime, epoch } = opts;
+  if (offsetMinutes !== undefined && !(Number.isFinite(offsetMinutes) && Math.abs(offsetMinutes) <= 18 * 60)) {
+    throw new RangeError(`offsetMinutes must be within ±1080, got ${offsetMinutes}`);
+  }
+  let z: ZoneOffsets | null = null;
+  let fixed = offsetMinutes ?? NaN;
+  if (zone !== undefined && Number.isNaN(fixed)) {
+    if (UTC_NAMES.has(zone.trim().toLowerCase())) fixed = 0;
+    else {
+      if (!IANAZone.isValidZone(zone)) throw new RangeError(`unknown time zone "${zone}"; use an IANA name such as America/Chicago`);
+      z = new ZoneOffsets(zone);
+    }
+  }
+  const p: Parts = { ...scratch };
+  return (raw: string): TimeResult => {
+    const text = raw.trim();
+    if (epoch) {
+      const v = Number(text);
+      if (text === '' || !Number.isFinite(v)) return { error: 'unparsable', message: `"${text}" is not an epoch number` };
+      return { ms: Math.abs(v) > 1e11 ? v : v * 1000 };
+    }
+    if (!readParts(text, p)) {
+      return { error: 'unparsable', message: `"${text}" is not a time fropa reads (use ISO 8601, e.g. 2024-02-27T08:51Z)` };
+    }
+    if (!validParts(p)) return { error: 'unparsable', message: `"${text}" is not a valid calendar date and time` };
+    const wall = Date.UTC(p.y, p.mo - 1, p.d, p.h, p.mi, p.s, p.ms);
+    if (!Number.isNaN(p.offset)) return { ms: wall - p.offset * 60000 };
+    if (!Number.isNaN(fixed)) return { ms: wall - fixed * 60000 };
+    if (z) {
+      if (standardTime) return { ms: wall - z.standard(p.y) * 60000 };
+      return localToUtc(wall, z, text);
+    }
+    return { error: 'needs-zone', message: `"${text}" has no UTC offset; give the time zone (IANA name, e.g. --tz America/Chicago) or a UTC offset column` };
+  };
+}
+
+const parserCache = new Map<string, TimeParser>();
+
+/**
+ * Parse one time text to epoch ms UTC, or explain why not (see module comment for forms and rules).
+ * Parsers are cached per option set, so repeated calls share the zone-offset cache.
+ * @example parseTime('2024-02-27T08:51Z', {}) // { ms: 1709023860000 }
+ * @example parseTime('2019-03-10 02:30', { zone: 'America/New_York' }).error // 'nonexistent'
+ */
+export function parseTime(text: string, opts: TimeOptions = {}): TimeResult {
+  const key = `${opts.zone ?? ''}|${opts.offsetMinutes ?? ''}|${opts.standardTime ? 1 : 0}|${opts.epoch ? 1 : 0}`;
+  let f = parserCache.get(key);
+  if (!f) {
+    f = makeTimeParser(opts);
+    if (parserCache.size > 100) parserCache.clear();
+    parserCache.set(key, f);
+  }
+  return f(text);
+}
+
+/**
+ * Parse a UTC-offset cell into minutes east: `-05:00`, `-0500`, `+5:30` as hours:minutes; a bare number
+ * within ±18 as hours (`-5`, `5.5`), otherwise as minutes (`-300`). NaN when unreadable.
+ * @example parseOffsetMinutes('-0500') // -300
+ */
+export function parseOffsetMinutes(text: string): number {
+  const t = text.trim().replace(/^(UTC|GMT)/i, '');
+  let m = /^([+-])?(\d{1,2}):(\d{2})$/.exec(t);
+  if (m) return (m[1] === '-' ? -1 : 1) * (Number(m[2]) * 60 + Number(m[3]));
+  m = /^([+-])(\d{2})(\d{2})$/.exec(t);
+  if (m) return (m[1] === '-' ? -1 : 1) * (Number(m[2]) * 60 + Number(m[3]));
+  if (t === '') return NaN;
+  const v = Number(t);
+  if (!Number.isFinite(v)) return NaN;
+  return Math.abs(v) <= 18 ? Math.round(v * 60) : v;
+}
