@@ -1,0 +1,207 @@
+/**
+ * METAR/SPECI reader: text files with one report per line (optionally after an archive timestamp)
+ * → Observations in canonical units, with a FileReport accounting for every line.
+ * Code forms: WMO-No. 306 Manual on Codes FM 15 METAR / FM 16 SPECI; US remarks FMH-1 ch. 12.
+ */
+import type { FileReport, Observation, ParseIssue } from './types.js';
+import { addIssue, newFileReport } from './types.js';
+import { archiveStamp, parseMonthOption, yearMonthFromFileName, type MonthRef } from './metar/calendar.js';
+import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
+
+export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';
+export type { MetarReport, SkyLayer } from './metar/decodeMetar.js';
+export { yearMonthFromFileName, reportTimeMs, daysInMonth } from './metar/calendar.js';
+export type { MonthRef, NameDate } from './metar/calendar.js';
+export { weatherFlags } from './metar/weather.js';
+export { INHG_HPA, KNOT_MS, STATUTE_MILE_M, INCH_MM, FOOT_M } from './metar/units.js';
+
+/**
+ * Observation from a decoded report. Temperatures prefer the `T` remark tenths; altimeter is the `A`
+ * group, or QNH (`Q`) when no `A` group was given (both are altimeter settings in hPa, ICAO Annex 3);
+ * `precipMm` is the `Prrrr` hourly amount; station pressure stays NaN (it needs the elevation).
+ */
+export function metarToObservation(r: MetarReport, file: string, line: number): Observation {
+  const o: Observation = {
+    station: r.station,
+    timeMs: r.timeMs,
+    source: r.type,
+    corrected: r.corrected,
+    temperatureC: r.temperatureC,
+    dewpointC: r.dewpointC,
+    windDirDeg: r.windDirDeg,
+    windSpeedMs: r.windSpeedMs,
+    gustMs: r.gustMs,
+    stationPressureHpa: NaN,
+    seaLevelPressureHpa: r.seaLevelPressureHpa,
+    altimeterHpa: Number.isNaN(r.altimeterHpa) ? r.qnhHpa : r.altimeterHpa,
+    precipMm: r.precip1hMm,
+    weather: r.weather,
+    peakWindMs: r.peakWindMs,
+    pressureTrend: r.pressureTrend,
+    latDeg: NaN,
+    lonDeg: NaN,
+    elevationM: NaN,
+    file,
+    line,
+  };
+  if (r.remarks.length) o.remarks = r.remarks;
+  return o;
+}
+
+/** True when a line (after an optional archive stamp) begins like a METAR/SPECI report. */
+function lineLooksLikeReport(s: string, start: number, end: number): boolean {
+  const st = archiveStamp(s, start, end);
+  let p = st ? st.next : start;
+  while (p < end && s.charCodeAt(p) <= 32) p++;
+  const rest = s.slice(p, Math.min(end, p + 40));
+  return /^(?:(?:METAR|SPECI)\s+(?:COR\s+)?)?[A-Z][A-Z0-9]{3}\s+\d{6}Z?\s/.test(rest) || /^(?:METAR|SPECI)\s/.test(rest);
+}
+
+/**
+ * Sniff a sample (the first lines of a file): true when most non-blank, non-comment lines among the
+ * first 20 look like METAR/SPECI reports.
+ */
+export function looksLikeMetar(sample: string): boolean {
+  let seen = 0;
+  let hits = 0;
+  let p = 0;
+  while (p < sample.length && seen < 20) {
+    let e = sample.indexOf('\n', p);
+    if (e < 0) e = sample.length;
+    let a = p;
+    while (a < e && sample.charCodeAt(a) <= 32) a++;
+    if (a < e && sample.charCodeAt(a) !== 35 /* # */) {
+      seen++;
+      if (lineLooksLikeReport(sample, a, e)) hits++;
+    }
+    p = e + 1;
+  }
+  return seen > 0 && hits * 2 > seen;
+}
+
+/**
+ * Read a METAR/SPECI text file: one report per line, optionally after an archive timestamp
+ * (`YYYYMMDDHHMM`, `YYYY-MM-DDTHH:MM[:SS]Z`, `YYYY-MM-DD HH:MM`); `METAR`/`SPECI` optional; `=` end mark.
+ * Year and month: from the line's archive stamp; else `opts.month` (`YYYY-MM`); else a date in the file
+ * name (a dated name is the first day covered; later reports follow on from the previous one, so month
+ * and year ends roll over). Without any of them every report line is rejected (`no-year-month`).
+ * Every non-blank line is either an Observation or a counted issue (`#` lines count as `comment`;
+ * NIL reports as `nil-report`).
+ */
+export function readMetarText(
+  text: string,
+  file: string,
+  opts: { month?: string } = {},
+): { observations: Observation[]; report: FileReport; reports?: never } {
+  const report = newFileReport(file, 'metar');
+  const observations: Observation[] = [];
+  let unknownGroups = 0;
+  // Year/month sources other than archive stamps.
+  let fixed: MonthRef | null = null;
+  let running: MonthRef | null = null;
+  let sourceNote = '';
+  if (opts.month !== undefined) {
+    const m = parseMonthOption(opts.month);
+    if (!m) throw new RangeError(`month must be YYYY-MM, got "${opts.month}"`);
+    fixed = { year: m.year, month: m.month };
+    sourceNote = `year and month ${opts.month} taken from the month option`;
+  } else {
+    const d = yearMonthFromFileName(file);
+    if (d) {
+      const ym = `${d.year}-${String(d.month).padStart(2, '0')}`;
+      if (d.day !== undefined) {
+        running = { year: d.year, month: d.month, refDay: d.day, refMode: 'nearest' };
+        sourceNote = `year and month taken from the file name (${ym}-${String(d.day).padStart(2, '0')}, read as the first day covered; month ends roll over)`;
+      } else {
+        fixed = { year: d.year, month: d.month };
+        sourceNote = `year and month ${ym} taken from the file name`;
+      }
+    }
+  }
+  const r = newMetarReport();
+  const ref: DecodeRef = { year: 0, month: 0, file, line: 0 };
+  let stamped = 0;
+  let noYearMonth = 0;
+  let lineNo = 0;
+  let p = 0;
+  const len = text.length;
+  while (p <= len) {
+    let e = text.indexOf('\n', p);
+    if (e < 0) e = len;
+    lineNo++;
+    let a = p;
+    let b = e;
+    p = e + 1;
+    while (a < b && text.charCodeAt(a) <= 32) a++;
+    while (b > a && text.charCodeAt(b - 1) <= 32) b--;
+    if (a === b) {
+      if (e === len) break;
+      continue;
+    }
+    report.lines++;
+    if (text.charCodeAt(a) === 35 /* # */) {
+      addIssue(report, { file, line: lineNo, reason: 'comment', message: 'comment line (#) skipped' });
+      continue;
+    }
+    ref.line = lineNo;
+    ref.column0 = 0;
+    const st = text.charCodeAt(a) <= 57 ? archiveStamp(text, a, b) : null;
+    let start = a;
+    if (st) {
+      ref.year = st.year;
+      ref.month = st.month;
+      ref.refDay = st.day;
+      ref.refMode = 'archive';
+      ref.column0 = st.next - a;
+      start = st.next;
+      stamped++;
+    } else if (running) {
+      ref.year = running.year;
+      ref.month = running.month;
+      ref.refDay = running.refDay;
+      ref.refMode = 'nearest';
+    } else if (fixed) {
+      ref.year = fixed.year;
+      ref.month = fixed.month;
+      ref.refDay = undefined;
+      ref.refMode = undefined;
+    } else {
+      noYearMonth++;
+      addIssue(report, {
+        file,
+        line: lineNo,
+        reason: 'no-year-month',
+        message: 'no year and month for this report: pass --month YYYY-MM or use a dated file name (e.g. KORD_2024-02-27_metar.txt)',
+      });
+      continue;
+    }
+    const is: ParseIssue | null = decodeInto(r, text, start, b, ref, true);
+    if (is) {
+      addIssue(report, is);
+      continue;
+    }
+    unknownGroups += r.unknownGroups.length;
+    if (r.nil) {
+      addIssue(report, { file, line: lineNo, reason: 'nil-report', message: `NIL report for ${r.station}: no observation to use` });
+      continue;
+    }
+    if (running && !st) {
+      const d = new Date(r.timeMs);
+      running.year = d.getUTCFullYear();
+      running.month = d.getUTCMonth() + 1;
+      running.refDay = d.getUTCDate();
+    }
+    observations.push(metarToObservation(r, file, lineNo));
+    report.parsed++;
+    if (e === len) break;
+  }
+  report.unknownGroups = unknownGroups;
+  if (stamped > 0) report.notes.push(`year and month taken from archive timestamps on ${stamped} line(s)`);
+  if (sourceNote && stamped < report.parsed + report.rejected) report.notes.push(sourceNote);
+  if (noYearMonth > 0)
+    report.notes.push(
+      `${noYearMonth} report line(s) refused: no year/month source. Pass --month YYYY-MM or name the file with its date (YYYY-MM-DD, YYYYMMDD, YYYY-MM)`,
+    );
+  if (unknownGroups > 0) report.notes.push(`${unknownGroups} unrecognised group(s) kept as unknown`);
+  return { observations, report };
+}

@@ -1,0 +1,731 @@
+/**
+ * METAR/SPECI decoder (WMO-No. 306, Manual on Codes, FM 15 METAR / FM 16 SPECI; US practice and
+ * remarks per FMH-1 ch. 12). Hand-written char-code tokenizer: no regular expression runs per group.
+ * A report decodes into a MetarReport, or into a ParseIssue when it has no usable station and time.
+ * Unknown or cut-off groups are kept in `unknownGroups` and never abort a report.
+ */
+import type { ObserverRemark, ParseIssue } from '../types.js';
+import { WX } from '../types.js';
+import { reportTimeMs, type MonthRef } from './calendar.js';
+import { decodeRemarks } from './remarks.js';
+import { KMH_MS, KNOT_MS, INHG_HPA, STATUTE_MILE_M } from './units.js';
+import { weatherFlags } from './weather.js';
+
+/** One cloud layer (FM 15 group NsNsNshshshs / VVhshshs). `heightFt` NaN when not given or clear. */
+export interface SkyLayer {
+  /** FEW SCT BKN OVC VV, or CLR SKC NSC NCD, or `///` (cover not observable). */
+  cover: string;
+  heightFt: number;
+  /** CB or TCU (or `///` when the automatic station could not tell). */
+  cloudType?: string;
+}
+
+/** A decoded METAR/SPECI report. Canonical units; NaN = missing. */
+export interface MetarReport {
+  type: 'METAR' | 'SPECI';
+  station: string;
+  timeMs: number;
+  auto: boolean;
+  corrected: boolean;
+  nil: boolean;
+  /** Degrees true the wind blows from; 0 for calm; NaN for VRB or missing. */
+  windDirDeg: number;
+  windSpeedMs: number;
+  gustMs: number;
+  /** Direction reported as `VRB`. */
+  windVariable: boolean;
+  /** Extremes of a `dndndnVdxdxdx` group, clockwise from → to; NaN when absent. */
+  windVarFromDeg: number;
+  windVarToDeg: number;
+  /** Prevailing visibility, m (9999 and CAVOK → 10000; `M1/4SM` → 1/4 SM, `P6SM` → 6 SM: the bound). */
+  visibilityM: number;
+  /** Raw present-weather groups, e.g. `-RA`, `BR` (empty when decoded in lite mode). */
+  weatherCodes: string[];
+  /** WX bit flags from present weather, CB clouds and lightning remarks. */
+  weather: number;
+  sky: SkyLayer[];
+  /** Temperature, °C: the tenths from the `T` remark group when present, else the body group. */
+  temperatureC: number;
+  dewpointC: number;
+  /** True when temperature (and dew point if present) came from the `T` remark group. */
+  tempFromRemarks: boolean;
+  /** QNH from `Qhhhh`, hPa. */
+  qnhHpa: number;
+  /** Altimeter setting from `Ahhhh`, converted to hPa. */
+  altimeterHpa: number;
+  /** `SLPppp` remark, hPa. */
+  seaLevelPressureHpa: number;
+  /** `5appp` remark: signed 3-h change, hPa (sign from WMO code table 0200). */
+  pressureTendency3hHpa: number;
+  /** Characteristic `a` of `5appp` (WMO code table 0200), -1 when absent. */
+  pressureTendencyCode: number;
+  /** PRESRR +1, PRESFR −1, else 0. */
+  pressureTrend: number;
+  /** `Prrrr` hourly precipitation, mm (trace `P0000` → 0 with `precipTrace`). */
+  precip1hMm: number;
+  peakWindMs: number;
+  peakWindDirDeg: number;
+  peakWindTimeMs: number;
+  /** WSHFT / FROPA remarks. */
+  remarks: ObserverRemark[];
+  /** AO1, AO2 (…A) from remarks, '' when absent. */
+  stationType: string;
+  /** `$` maintenance indicator (FMH-1 §12.7). */
+  maintenance: boolean;
+  /** Groups not recognised (also cut-off groups), in order. */
+  unknownGroups: string[];
+  // ---- additions beyond the shared contract ----
+  /** `P0000`: a trace of precipitation in the last hour. */
+  precipTrace: boolean;
+  /** `6RRRR` 3- or 6-h precipitation, mm (trace → 0). */
+  precip3or6hMm: number;
+  /** `7RRRR` 24-h precipitation, mm. */
+  precip24hMm: number;
+  /** `1snTTT` / `2snTTT` 6-h maximum and minimum temperature, °C. */
+  tempMax6hC: number;
+  tempMin6hC: number;
+  /** RVR groups as written (kept, not decoded). */
+  rvr: string[];
+  cavok: boolean;
+}
+
+/** An empty report (all values missing). */
+export function newMetarReport(): MetarReport {
+  return {
+    type: 'METAR', station: '', timeMs: NaN, auto: false, corrected: false, nil: false,
+    windDirDeg: NaN, windSpeedMs: NaN, gustMs: NaN, windVariable: false, windVarFromDeg: NaN, windVarToDeg: NaN,
+    visibilityM: NaN, weatherCodes: [], weather: 0, sky: [], temperatureC: NaN, dewpointC: NaN, tempFromRemarks: false,
+    qnhHpa: NaN, altimeterHpa: NaN, seaLevelPressureHpa: NaN, pressureTendency3hHpa: NaN, pressureTendencyCode: -1,
+    pressureTrend: 0, precip1hMm: NaN, peakWindMs: NaN, peakWindDirDeg: NaN, peakWindTimeMs: NaN, remarks: [],
+    stationType: '', maintenance: false, unknownGroups: [], precipTrace: false, precip3or6hMm: NaN, precip24hMm: NaN,
+    tempMax6hC: NaN, tempMin6hC: NaN, rvr: [], cavok: false,
+  };
+}
+
+/** Reset a report for reuse (keeps arrays unless they were handed out). */
+function resetReport(r: MetarReport): void {
+  r.type = 'METAR'; r.station = ''; r.timeMs = NaN; r.auto = false; r.corrected = false; r.nil = false;
+  r.windDirDeg = NaN; r.windSpeedMs = NaN; r.gustMs = NaN; r.windVariable = false; r.windVarFromDeg = NaN; r.windVarToDeg = NaN;
+  r.visibilityM = NaN; r.weatherCodes.length = 0; r.weather = 0; r.sky.length = 0; r.temperatureC = NaN; r.dewpointC = NaN;
+  r.tempFromRemarks = false; r.qnhHpa = NaN; r.altimeterHpa = NaN; r.seaLevelPressureHpa = NaN; r.pressureTendency3hHpa = NaN;
+  r.pressureTendencyCode = -1; r.pressureTrend = 0; r.precip1hMm = NaN; r.peakWindMs = NaN; r.peakWindDirDeg = NaN;
+  r.peakWindTimeMs = NaN; if (r.remarks.length) r.remarks = []; r.stationType = ''; r.maintenance = false;
+  r.unknownGroups.length = 0; r.precipTrace = false; r.precip3or6hMm = NaN; r.precip24hMm = NaN; r.tempMax6hC = NaN;
+  r.tempMin6hC = NaN; r.rvr.length = 0; r.cavok = false;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Tokens: start/end indices of blank-separated groups, kept in module-level buffers (no substrings).
+
+/** Token start/end indices (shared buffers; valid until the next tokenize call). */
+export let tokStart = new Int32Array(256);
+export let tokEnd = new Int32Array(256);
+
+function tokenize(s: string, start: number, end: number): number {
+  let n = 0;
+  let p = start;
+  while (p < end) {
+    while (p < end && s.charCodeAt(p) <= 32) p++;
+    if (p >= end) break;
+    const a = p;
+    while (p < end && s.charCodeAt(p) > 32) p++;
+    let b = p;
+    let last = false;
+    if (s.charCodeAt(b - 1) === 61 /* = */) {
+      b--;
+      last = true;
+    }
+    if (b > a) {
+      if (n === tokStart.length) {
+        const ns = new Int32Array(n * 2);
+        ns.set(tokStart);
+        tokStart = ns;
+        const ne = new Int32Array(n * 2);
+        ne.set(tokEnd);
+        tokEnd = ne;
+      }
+      tokStart[n] = a;
+      tokEnd[n] = b;
+      n++;
+    }
+    if (last) break;
+  }
+  return n;
+}
+
+// ---------------------------------------------------------------------------------------------
+// Small char-code helpers.
+
+/** Digit value at i, or -1000 (so that sums of a non-digit go negative). */
+export function dg(s: string, i: number): number {
+  const c = s.charCodeAt(i) - 48;
+  return c >= 0 && c <= 9 ? c : -1000;
+}
+
+/** Unsigned integer of the digits s[a, b), or -1 when empty or any char is not a digit. */
+export function digits(s: string, a: number, b: number): number {
+  if (b <= a) return -1;
+  let v = 0;
+  for (let i = a; i < b; i++) {
+    const c = s.charCodeAt(i) - 48;
+    if (c < 0 || c > 9) return -1;
+    v = v * 10 + c;
+  }
+  return v;
+}
+
+/** s[a, b) consists only of '/'. */
+export function slashes(s: string, a: number, b: number): boolean {
+  if (b <= a) return false;
+  for (let i = a; i < b; i++) if (s.charCodeAt(i) !== 47) return false;
+  return true;
+}
+
+/** s[a, b) equals the ASCII word w. */
+export function isWord(s: string, a: number, b: number, w: string): boolean {
+  return b - a === w.length && s.startsWith(w, a);
+}
+
+// ---------------------------------------------------------------------------------------------
+// Body groups.
+
+/**
+ * Wind group `dddff(f)Gfmfm(fm)KT|MPS|KMH` (WMO-No. 306 FM 15 §15.5; FMH-1 §12.6.5): `VRB` direction,
+ * `00000KT` calm, `P99KT`/`P49MPS` (≥ 100 kt / 50 m/s → stored as 100 kt / 50 m/s, the bound),
+ * 3-digit US speeds (`210103G130KT`, AIM). Returns false when s[a, b) is not a wind group.
+ */
+function windGroup(s: string, a: number, b: number, r: MetarReport): boolean {
+  const len = b - a;
+  if (len < 7) return false;
+  let e: number;
+  let f: number;
+  const cl = s.charCodeAt(b - 1);
+  if (cl === 84 /* T */ && s.charCodeAt(b - 2) === 75 /* K */) {
+    e = b - 2;
+    f = KNOT_MS;
+  } else if (cl === 83 /* S */ && s.charCodeAt(b - 2) === 80 && s.charCodeAt(b - 3) === 77) {
+    e = b - 3;
+    f = 1;
+  } else if (cl === 72 /* H */ && s.charCodeAt(b - 2) === 77 && s.charCodeAt(b - 3) === 75) {
+    e = b - 3;
+    f = KMH_MS;
+  } else return false;
+  let dir: number;
+  let variable = false;
+  const d = dg(s, a) * 100 + dg(s, a + 1) * 10 + dg(s, a + 2);
+  if (d >= 0) {
+    if (d > 360) return false;
+    dir = d;
+  } else if (s.startsWith('VRB', a)) {
+    dir = NaN;
+    variable = true;
+  } else if (slashes(s, a, a + 3)) dir = NaN;
+  else return false;
+  let i = a + 3;
+  // speed
+  let plus = false;
+  if (s.charCodeAt(i) === 80 /* P */) {
+    plus = true;
+    i++;
+  }
+  let j = i;
+  while (j < e && s.charCodeAt(j) !== 71 /* G */) j++;
+  let speed: number;
+  if (j - i === 2 && slashes(s, i, j)) speed = NaN;
+  else {
+    if (j - i < 2 || j - i > 3) return false;
+    speed = digits(s, i, j);
+    if (speed < 0) return false;
+    if (plus) speed++;
+  }
+  let gust = NaN;
+  if (j < e) {
+    i = j + 1;
+    plus = false;
+    if (s.charCodeAt(i) === 80) {
+      plus = true;
+      i++;
+    }
+    if (e - i === 2 && slashes(s, i, e)) gust = NaN;
+    else {
+      if (e - i < 2 || e - i > 3) return false;
+      gust = digits(s, i, e);
+      if (gust < 0) return false;
+      if (plus) gust++;
+      gust *= f;
+    }
+  }
+  r.windDirDeg = speed === 0 && d === 0 ? 0 : dir;
+  r.windSpeedMs = speed * f;
+  r.gustMs = gust;
+  r.windVariable = variable;
+  return true;
+}
+
+/** Visibility in statute miles ending in `SM` (FMH-1 §12.6.6): `10SM`, `1/2SM`, `M1/4SM`, `P6SM`, `11/2SM` (= 1 1/2). NaN when malformed. */
+function statuteMiles(s: string, a: number, b: number): number {
+  let i = a;
+  const c0 = s.charCodeAt(i);
+  if (c0 === 77 /* M */ || c0 === 80 /* P */) i++;
+  const e = b - 2;
+  let k = i;
+  while (k < e && s.charCodeAt(k) !== 47) k++;
+  if (k === e) {
+    const v = digits(s, i, e);
+    return v < 0 ? NaN : v;
+  }
+  const num = digits(s, i, k);
+  const den = digits(s, k + 1, e);
+  if (num < 0 || den <= 0) return NaN;
+  if (num > den && num >= 10) return Math.floor(num / 10) + (num % 10) / den;
+  return num / den;
+}
+
+/** Compass suffix of directional visibility (N NE E SE S SW W NW, NDV). */
+function compassSuffix(s: string, a: number, b: number): boolean {
+  const n = b - a;
+  if (n === 3) return s.startsWith('NDV', a);
+  if (n === 1) {
+    const c = s.charCodeAt(a);
+    return c === 78 || c === 69 || c === 83 || c === 87;
+  }
+  if (n === 2) {
+    const c = s.charCodeAt(a);
+    const d = s.charCodeAt(a + 1);
+    return (c === 78 || c === 83) && (d === 69 || d === 87);
+  }
+  return false;
+}
+
+/** Temperature half `M?dd` or `//`: value, NaN for missing, undefined when malformed. */
+function tempHalf(s: string, a: number, b: number): number | undefined {
+  if (b - a === 2 && s.charCodeAt(a) === 47 && s.charCodeAt(a + 1) === 47) return NaN;
+  let neg = false;
+  if (s.charCodeAt(a) === 77 /* M */) {
+    neg = true;
+    a++;
+  }
+  if (b - a !== 2) return undefined;
+  const v = dg(s, a) * 10 + dg(s, a + 1);
+  if (v < 0) return undefined;
+  return neg ? (v === 0 ? 0 : -v) : v;
+}
+
+/** Temperature / dew point `T'T'/T'dT'd` (FM 15 §15.11; FMH-1 §12.6.10): `M` minus, missing dew point `10/`, `10///`. */
+function tempGroup(s: string, a: number, b: number, r: MetarReport): boolean {
+  let k = a;
+  while (k < b && s.charCodeAt(k) !== 47) k++;
+  if (k === a) {
+    // `//` temperature: `/////` or `///10`
+    if (b - a < 3 || s.charCodeAt(a + 1) !== 47 || s.charCodeAt(a + 2) !== 47) return false;
+    k = a + 2;
+  }
+  if (k >= b) return false;
+  const t = tempHalf(s, a, k);
+  if (t === undefined) return false;
+  let td: number | undefined = NaN;
+  if (k + 1 < b) {
+    td = tempHalf(s, k + 1, b);
+    if (td === undefined) return false;
+  }
+  r.temperatureC = t;
+  r.dewpointC = td;
+  return true;
+}
+
+/** Sky group: `FEW|SCT|BKN|OVC hhh [CB|TCU|///]`, `VVhhh`, `//////`, CLR SKC NSC NCD (FM 15 §15.9; FMH-1 §12.6.9). */
+function skyGroup(s: string, a: number, b: number, r: MetarReport, lite: boolean): boolean {
+  const len = b - a;
+  let cover: string;
+  let i: number;
+  const c0 = s.charCodeAt(a);
+  if (len === 3) {
+    if (s.startsWith('CLR', a)) cover = 'CLR';
+    else if (s.startsWith('SKC', a)) cover = 'SKC';
+    else if (s.startsWith('NSC', a)) cover = 'NSC';
+    else if (s.startsWith('NCD', a)) cover = 'NCD';
+    else return false;
+    if (!lite) r.sky.push({ cover, heightFt: NaN });
+    return true;
+  }
+  if (c0 === 86 /* V */ && s.charCodeAt(a + 1) === 86) {
+    cover = 'VV';
+    i = a + 2;
+  } else if (len >= 6) {
+    if (s.startsWith('FEW', a)) cover = 'FEW';
+    else if (s.startsWith('SCT', a)) cover = 'SCT';
+    else if (s.startsWith('BKN', a)) cover = 'BKN';
+    else if (s.startsWith('OVC', a)) cover = 'OVC';
+    else if (slashes(s, a, a + 3)) cover = '///';
+    else return false;
+    i = a + 3;
+  } else return false;
+  if (b - i < 3) return false;
+  let h = digits(s, i, i + 3);
+  if (h < 0) {
+    if (!slashes(s, i, i + 3)) return false;
+    h = NaN;
+  } else h *= 100;
+  i += 3;
+  let type: string | undefined;
+  if (i < b) {
+    if (isWord(s, i, b, 'CB')) {
+      type = 'CB';
+      r.weather |= WX.CONVECTIVE;
+    } else if (isWord(s, i, b, 'TCU')) type = 'TCU';
+    else if (slashes(s, i, b)) type = '///';
+    else return false;
+  }
+  if (!lite) r.sky.push(type === undefined ? { cover, heightFt: h } : { cover, heightFt: h, cloudType: type });
+  return true;
+}
+
+/** `Qhhhh` (hPa) or `Ahhhh` (hundredths of inHg) — FM 15 §15.12; FMH-1 §12.6.11. `////` = missing. */
+function pressureGroup(s: string, a: number, b: number, r: MetarReport): boolean {
+  if (b - a !== 5) return false;
+  const c0 = s.charCodeAt(a);
+  const v = digits(s, a + 1, b);
+  if (v < 0 && !slashes(s, a + 1, b)) return false;
+  if (c0 === 81 /* Q */) r.qnhHpa = v < 0 ? NaN : v;
+  else r.altimeterHpa = v < 0 ? NaN : (v / 100) * INHG_HPA;
+  return true;
+}
+
+/** Tokens that end the observed part: trend forecasts (FM 15 §15.14). Their groups are skipped up to RMK. */
+function isTrend(s: string, a: number, b: number): boolean {
+  return isWord(s, a, b, 'BECMG') || isWord(s, a, b, 'TEMPO');
+}
+
+// ---------------------------------------------------------------------------------------------
+
+/** Where a report sits and how to date it. */
+export interface DecodeRef extends MonthRef {
+  file: string;
+  line: number;
+  /** Index in the line where `text` starts, to report 1-based columns against the line. */
+  column0?: number;
+}
+
+function issue(ref: DecodeRef, reason: string, message: string, s: string, a: number, b: number, start: number): ParseIssue {
+  const is: ParseIssue = { file: ref.file, line: ref.line, reason, message };
+  if (b > a) {
+    is.group = s.slice(a, b);
+    is.column = a - start + 1 + (ref.column0 ?? 0);
+  }
+  return is;
+}
+
+/**
+ * Decode the report in s[start, end) into `r` (reset first). Returns null on success, else the issue.
+ * `lite` skips the string/object parts (weatherCodes, sky, rvr) that an Observation does not carry.
+ */
+export function decodeInto(
+  r: MetarReport,
+  s: string,
+  start: number,
+  end: number,
+  ref: DecodeRef,
+  lite: boolean,
+): ParseIssue | null {
+  resetReport(r);
+  const n = tokenize(s, start, end);
+  if (n === 0) return issue(ref, 'empty', 'empty report', s, 0, 0, start);
+  const TS = tokStart;
+  const TE = tokEnd;
+  let i = 0;
+  let a = TS[0]!;
+  let b = TE[0]!;
+  let keyword = false;
+  if (isWord(s, a, b, 'METAR')) keyword = true;
+  else if (isWord(s, a, b, 'SPECI')) {
+    keyword = true;
+    r.type = 'SPECI';
+  }
+  if (keyword) i++;
+  if (i < n && isWord(s, TS[i]!, TE[i]!, 'COR')) {
+    r.corrected = true;
+    i++;
+  }
+  // Station: ICAO location indicator, 4 letters/digits starting with a letter (3–5 accepted).
+  if (i >= n) return issue(ref, 'no-station', 'report has no station identifier after METAR/SPECI', s, a, b, start);
+  a = TS[i]!;
+  b = TE[i]!;
+  {
+    const len = b - a;
+    let ok = len >= 3 && len <= 5;
+    const c = s.charCodeAt(a);
+    if (!(c >= 65 && c <= 90)) ok = false;
+    for (let k = a + 1; ok && k < b; k++) {
+      const q = s.charCodeAt(k);
+      if (!((q >= 65 && q <= 90) || (q >= 48 && q <= 57))) ok = false;
+    }
+    if (!ok) {
+      if (!keyword && i === 0)
+        return issue(ref, 'not-a-report', 'line does not start with METAR, SPECI or a station identifier; is this a METAR file?', s, a, b, start);
+      return issue(ref, 'no-station', `"${s.slice(a, b)}" is not a station identifier (4-letter ICAO id expected)`, s, a, b, start);
+    }
+  }
+  r.station = s.slice(a, b);
+  i++;
+  // Time DDHHMMZ (FM 15 YYGGggZ).
+  if (i >= n) return issue(ref, 'no-time', `report for ${r.station} has no DDHHMMZ time group`, s, a, b, start);
+  a = TS[i]!;
+  b = TE[i]!;
+  {
+    const len = b - a;
+    const zOk = (len === 7 && s.charCodeAt(a + 6) === 90) || len === 6;
+    const day = dg(s, a) * 10 + dg(s, a + 1);
+    const hh = dg(s, a + 2) * 10 + dg(s, a + 3);
+    const mm = dg(s, a + 4) * 10 + dg(s, a + 5);
+    if (!zOk || day < 0 || hh < 0 || mm < 0)
+      return issue(ref, 'no-time', `expected the DDHHMMZ time group after ${r.station}`, s, a, b, start);
+    if (day < 1 || day > 31 || hh > 24 || mm > 59 || (hh === 24 && mm !== 0))
+      return issue(ref, 'bad-time', `time group ${s.slice(a, b)} is not a valid day/hour/minute`, s, a, b, start);
+    r.timeMs = reportTimeMs(day, hh, mm, ref);
+    if (Number.isNaN(r.timeMs))
+      return issue(ref, 'bad-time', `day ${day} does not exist in ${ref.year}-${String(ref.month).padStart(2, '0')} or next to it; check --month`, s, a, b, start);
+  }
+  i++;
+  // Body groups.
+  let visSet = false;
+  let trend = false;
+  for (; i < n; i++) {
+    a = TS[i]!;
+    b = TE[i]!;
+    const len = b - a;
+    const c0 = s.charCodeAt(a);
+    if (c0 === 82 /* R */ && len === 3 && s.charCodeAt(a + 1) === 77 && s.charCodeAt(a + 2) === 75) {
+      decodeRemarks(s, TS, TE, i + 1, n, r, ref.file, ref.line, lite);
+      i = n;
+      break;
+    }
+    if (trend) continue;
+    if (c0 >= 48 && c0 <= 57) {
+      // digit first: wind, variable wind, visibility, temperature
+      if (windGroup(s, a, b, r)) continue;
+      if (len === 7 && s.charCodeAt(a + 3) === 86 /* V */) {
+        const x = digits(s, a, a + 3);
+        const y = digits(s, a + 4, b);
+        if (x >= 0 && y >= 0 && x <= 360 && y <= 360) {
+          r.windVarFromDeg = x;
+          r.windVarToDeg = y;
+          continue;
+        }
+      }
+      if (len >= 4 && len <= 7) {
+        const v = digits(s, a, a + 4);
+        if (v >= 0 && (len === 4 || compassSuffix(s, a + 4, b))) {
+          if (!visSet) {
+            r.visibilityM = v === 9999 ? 10000 : v;
+            visSet = true;
+          }
+          continue;
+        }
+      }
+      const cl = s.charCodeAt(b - 1);
+      if (cl === 77 /* M */ && s.charCodeAt(b - 2) === 83 /* S */) {
+        const miles = statuteMiles(s, a, b);
+        if (!Number.isNaN(miles)) {
+          r.visibilityM = miles * STATUTE_MILE_M;
+          visSet = true;
+          continue;
+        }
+      }
+      if (len <= 2 && i + 1 < n) {
+        // whole miles followed by a fraction: `1 1/2SM`
+        const na = TS[i + 1]!;
+        const nb = TE[i + 1]!;
+        if (s.charCodeAt(nb - 1) === 77 && s.charCodeAt(nb - 2) === 83) {
+          const whole = digits(s, a, b);
+          const frac = statuteMiles(s, na, nb);
+          if (whole >= 0 && frac < 1) {
+            r.visibilityM = (whole + frac) * STATUTE_MILE_M;
+            visSet = true;
+            i++;
+            continue;
+          }
+        }
+      }
+      if ((len === 5 || len === 6) && i + 1 < n) {
+        // wind group split from its unit, `04015 KT` (seen in real archives)
+        const na = TS[i + 1]!;
+        const nb = TE[i + 1]!;
+        if (isWord(s, na, nb, 'KT') || isWord(s, na, nb, 'MPS') || isWord(s, na, nb, 'KMH')) {
+          const joined = s.slice(a, b) + s.slice(na, nb);
+          if (windGroup(joined, 0, joined.length, r)) {
+            i++;
+            continue;
+          }
+        }
+      }
+      if (tempGroup(s, a, b, r)) continue;
+      unknown(r, s, a, b);
+      continue;
+    }
+    switch (c0) {
+      case 77: // M: M1/4SM, M05/M07
+        if (s.charCodeAt(b - 1) === 77 && s.charCodeAt(b - 2) === 83) {
+          const miles = statuteMiles(s, a, b);
+          if (!Number.isNaN(miles)) {
+            r.visibilityM = miles * STATUTE_MILE_M;
+            visSet = true;
+            continue;
+          }
+        }
+        if (tempGroup(s, a, b, r)) continue;
+        break;
+      case 80: // P: P6SM
+        if (s.charCodeAt(b - 1) === 77 && s.charCodeAt(b - 2) === 83) {
+          const miles = statuteMiles(s, a, b);
+          if (!Number.isNaN(miles)) {
+            r.visibilityM = miles * STATUTE_MILE_M;
+            visSet = true;
+            continue;
+          }
+        }
+        break;
+      case 47: // '/': missing groups
+        if (windGroup(s, a, b, r)) continue;
+        if (len === 4 && slashes(s, a, b)) {
+          visSet = true;
+          continue;
+        }
+        if (skyGroup(s, a, b, r, lite)) continue;
+        if (weatherFlags(s, a, b) >= 0) continue;
+        if (tempGroup(s, a, b, r)) continue;
+        break;
+      case 86: // V: VRB wind, VV sky, VC weather
+        if (windGroup(s, a, b, r)) continue;
+        if (skyGroup(s, a, b, r, lite)) continue;
+        break;
+      case 67: // C: CAVOK, COR, CCA.., CLR
+        if (isWord(s, a, b, 'CAVOK')) {
+          r.cavok = true;
+          r.visibilityM = 10000;
+          visSet = true;
+          continue;
+        }
+        if (isWord(s, a, b, 'COR') || (len === 3 && s.charCodeAt(a + 1) === 67)) {
+          r.corrected = true;
+          continue;
+        }
+        break;
+      case 65: // A: AUTO, Ahhhh, AO2 (remarks without RMK)
+        if (isWord(s, a, b, 'AUTO')) {
+          r.auto = true;
+          continue;
+        }
+        if (pressureGroup(s, a, b, r)) continue;
+        if (len >= 3 && s.charCodeAt(a + 1) === 79 /* O */) {
+          decodeRemarks(s, TS, TE, i, n, r, ref.file, ref.line, lite);
+          i = n;
+          continue;
+        }
+        break;
+      case 81: // Q
+        if (pressureGroup(s, a, b, r)) continue;
+        break;
+      case 78: // N: NIL, NOSIG, NSC, NCD, NSW
+        if (isWord(s, a, b, 'NIL')) {
+          r.nil = true;
+          continue;
+        }
+        if (isWord(s, a, b, 'NOSIG')) continue;
+        break;
+      case 82: // R: RVR, recent weather RE..
+        if (len >= 5 && dg(s, a + 1) >= 0 && s.indexOf('/', a) < b && s.indexOf('/', a) > 0) {
+          if (!lite) r.rvr.push(s.slice(a, b));
+          continue;
+        }
+        if (len >= 4 && s.charCodeAt(a + 1) === 69 /* E */ && weatherFlags(s, a + 2, b) >= 0) continue;
+        break;
+      case 84: // T: TEMPO
+        if (isTrend(s, a, b)) {
+          trend = true;
+          continue;
+        }
+        break;
+      case 66: // B: BECMG
+        if (isTrend(s, a, b)) {
+          trend = true;
+          continue;
+        }
+        break;
+      case 87: // W: WS (wind shear, FM 15 §15.13.3), sea state Wxx/Sx
+        if (isWord(s, a, b, 'WS')) {
+          while (i + 1 < n && (isWord(s, TS[i + 1]!, TE[i + 1]!, 'ALL') || isWord(s, TS[i + 1]!, TE[i + 1]!, 'RWY') || s.charCodeAt(TS[i + 1]!) === 82)) i++;
+          continue;
+        }
+        if (len >= 5 && dg(s, a + 1) >= 0 && s.indexOf('/', a) < b && s.indexOf('/', a) > 0) continue;
+        break;
+      case 83: // S: SLP (remarks without RMK)
+        if (len >= 5 && s.charCodeAt(a + 1) === 76 && s.charCodeAt(a + 2) === 80) {
+          decodeRemarks(s, TS, TE, i, n, r, ref.file, ref.line, lite);
+          i = n;
+          continue;
+        }
+        break;
+      case 36: // $ maintenance
+        if (len === 1) {
+          r.maintenance = true;
+          continue;
+        }
+        break;
+    }
+    // Letters: sky or present weather.
+    if (skyGroup(s, a, b, r, lite)) continue;
+    const wf = weatherFlags(s, a, b);
+    if (wf >= 0) {
+      r.weather |= wf;
+      if (!lite) r.weatherCodes.push(s.slice(a, b));
+      continue;
+    }
+    unknown(r, s, a, b);
+  }
+  return null;
+}
+
+/** Keep an unrecognised (or cut-off) group. */
+export function unknown(r: MetarReport, s: string, a: number, b: number): void {
+  r.unknownGroups.push(s.slice(a, b));
+}
+
+/**
+ * Decode one METAR/SPECI report (text starts at METAR/SPECI or the station; no archive prefix).
+ * Year and month come from `ref`; with `refDay` the report day is placed relative to it
+ * (see MonthRef). Returns a ParseIssue (`empty`, `not-a-report`, `no-station`, `no-time`, `bad-time`)
+ * when the report has no usable station and time.
+ * @example decodeMetar('KSFO 240156Z 26016G22KT 9SM BKN012 13/08 A3006', { year: 2024, month: 1, file: 'x', line: 1 })
+ */
+export function decodeMetar(
+  text: string,
+  ref: { year: number; month: number; file: string; line: number; refDay?: number; refMode?: 'archive' | 'nearest' },
+): MetarReport | ParseIssue {
+  const r = newMetarReport();
+  const is = decodeInto(r, text, 0, text.length, ref, false);
+  return is ?? r;
+}
+
+/**
+ * Decode a raw report whose observation time is already known (e.g. the `metar` column of an
+ * archive CSV next to its `valid` time): year and month come from `timeMs`, the report's own
+ * DDHHMM gives the time (placed within ±15 days of `timeMs`).
+ */
+export function decodeMetarAt(text: string, timeMs: number, file: string, line: number): MetarReport | ParseIssue {
+  if (!Number.isFinite(timeMs))
+    return { file, line, reason: 'no-time', message: 'observation time is missing; cannot date the METAR text' };
+  const d = new Date(timeMs);
+  return decodeMetar(text, {
+    year: d.getUTCFullYear(),
+    month: d.getUTCMonth() + 1,
+    refDay: d.getUTCDate(),
+    refMode: 'nearest',
+    file,
+    line,
+  });
+}
+
+/** True for a ParseIssue returned in place of a report. */
+export function isParseIssue(x: MetarReport | ParseIssue): x is ParseIssue {
+  return (x as ParseIssue).reason !== undefined;
+}
