@@ -1,0 +1,721 @@
+/**
+ * CSV / TSV station time series → Observations in canonical units, with a FileReport accounting for every
+ * line. Parsing is papaparse in step mode (one row at a time), over a string or a Node readable stream;
+ * both entry points share one row handler (`CsvCore`).
+ *
+ * Rules (decided here; tests pin them):
+ * - The first non-blank row is the header (see columns.ts for names). Blank lines are skipped, not counted.
+ * - Line numbers are 1-based row numbers; a quoted field holding a line break shifts later numbers.
+ * - A data line is either parsed (one Observation) or rejected with a reason (`addIssue`):
+ *   `truncated` (fewer fields than the header), `no-time`, `bad-time`, `ambiguous-time`, `nonexistent-time`,
+ *   `needs-zone`, `no-station`, `summary-row` (LCD daily/monthly summary), `no-time-column`,
+ *   `no-data-columns`, `wrong-delimiter`, `bad-quotes`; whole-file reasons `empty`, `binary`.
+ * - A bad VALUE never rejects its row: the value becomes NaN and is counted per field and reason
+ *   (`bad-value`, `sentinel`, `missing`, flags `suspect`/`trace`/`estimated`...) in `valueCounts` and in a
+ *   report note. Times going backwards within a station are accepted and counted (`time-backwards`); the
+ *   series builder sorts.
+ * - Missing markers: empty, `M`, `MM`, `NA`, `N/A`, `NaN`, `null`, `None`, `-`, `--`, `missing` (any case),
+ *   plus the caller's list (compared as text and, when numeric, as a number). Numeric sentinels (common
+ *   practice, no source): −999, −999.9, −9999, −9999.9, −99999 for every field; 999, 999.9, 9999, 9999.9,
+ *   99999, 99999.9 for temperature, dew point, humidity, wind, gust, precipitation, lat/lon (impossible
+ *   values there); for pressure only 9999, 9999.9, 99999.9, and 99999 unless the unit is Pa (999.9 hPa is
+ *   a real pressure); for elevation only 99999 and 99999.9 (9999 ft is a real elevation).
+ * - NCEI LCD cell flags (LCD documentation, from memory): a trailing `s` (suspect) or `*`/`A`/`E` is
+ *   stripped and the value kept and counted; `T` (trace) reads as 0 for precipitation; `VRB` wind
+ *   direction is NaN (variable).
+ * - Dew point missing but temperature and relative humidity present → dew point from the Magnus form with
+ *   Alduchov & Eskridge (1996) coefficients (see `dewpointFromRh`), counted in a note.
+ * - Raw report column (IEM `metar`, LCD `REM`) with a `decodeRawReport` callback: the decoded report fills
+ *   every field the columns leave missing; temperature and dew point from the decoder REPLACE the column
+ *   values when the decoder sets `tempFromRemarks` (tenths of °C from the US `T` remark group, FMH-1
+ *   Ch. 12, are more precise than whole °F/°C columns); weather flags are OR-ed; remarks, pressure
+ *   tendency (PRESRR/PRESFR), peak wind and the COR flag come from the decoder.
+ * - `source` is `METAR`/`SPECI` for LCD `FM-15`/`FM-16` rows (or what the decoder says when there is no
+ *   report-type column), otherwise `CSV`.
+ * - Station: the station column, else `defaultStation`, else the file name without directory and extension
+ *   (noted). Ids are trimmed, case kept.
+ */
+import Papa from 'papaparse';
+import { addIssue, newFileReport, WX, type FileReport, type Observation } from './types.js';
+import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
+import { converter, inferUnit, unitQuantity, type UnitName } from './units.js';
+import { makeTimeParser, parseOffsetMinutes, type TimeParser } from './time.js';
+import { looksLikeStationsFile } from './stations.js';
+
+/** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
+export type RawReportDecoded = Partial<Observation> & { tempFromRemarks?: boolean };
+export type RawReportDecoder = (text: string, timeMs: number, file: string, line: number) => RawReportDecoded | null;
+
+export interface CsvOptions {
+  overrides?: ColumnOverride[];
+  /** Extra missing markers, e.g. ['-99']. */
+  missing?: string[];
+  /** IANA zone for times without offset. */
+  zone?: string;
+  /** Naive times are the zone's standard time all year (NCEI LCD; defaults to true for LCD files). */
+  standardTime?: boolean;
+  /** Fixed UTC offset (minutes east) for naive times; wins over zone. */
+  offsetMinutes?: number;
+  defaultStation?: string;
+  /** Force a delimiter (default: detect among comma, tab, semicolon, pipe). */
+  delimiter?: string;
+  decodeRawReport?: RawReportDecoder;
+  /** Rows buffered to infer units of columns that do not name one (default 1000). */
+  inferRows?: number;
+}
+
+export interface StationPosition {
+  latDeg: number;
+  lonDeg: number;
+  elevationM: number;
+}
+
+export interface UnitChoice {
+  unit: UnitName;
+  source: UnitSource;
+  why: string;
+}
+
+export interface CsvResult {
+  report: FileReport;
+  stationsSeen: Map<string, StationPosition>;
+  /** Value-level counts keyed `reason:field` (e.g. `bad-value:temperature`). */
+  valueCounts: Record<string, number>;
+  /** Unit decided per numeric field, with its source and reason. */
+  units: Partial<Record<NumericField, UnitChoice>>;
+}
+
+/**
+ * Dew point from temperature and relative humidity, Magnus form inverted:
+ * γ = ln(RH/100) + b·T/(c + T), Td = c·γ/(b − γ), with b = 17.625, c = 243.04 °C
+ * ([AlduchovEskridge1996] eq. 21 coefficients; es = 6.1094 exp(17.625 T/(T + 243.04)) hPa).
+ * T in °C, RH in % (0 < RH ≤ 100, else NaN). NaN in → NaN out.
+ * @example dewpointFromRh(20, 50) // ≈ 9.2611
+ */
+function dewpointFromRh(tC: number, rhPct: number): number {
+  if (!(rhPct > 0 && rhPct <= 100)) return NaN;
+  const g = Math.log(rhPct / 100) + (17.625 * tC) / (243.04 + tC);
+  return (243.04 * g) / (17.625 - g);
+}
+
+const MISSING = new Set(['', 'm', 'mm', 'na', 'n/a', 'nan', 'null', 'none', '-', '--', 'missing', '#n/a']);
+
+/** WMO-No. 306 code table 4678 letters → WX flags (only those fronts care about). */
+const WX_CODES: Record<string, number> = {
+  RA: WX.RAIN | WX.PRECIP,
+  SN: WX.SNOW | WX.PRECIP,
+  SG: WX.SNOW | WX.PRECIP,
+  DZ: WX.DRIZZLE | WX.PRECIP,
+  GR: WX.HAIL | WX.PRECIP,
+  GS: WX.HAIL | WX.PRECIP,
+  PL: WX.ICE_PELLETS | WX.PRECIP,
+  IC: WX.PRECIP,
+  UP: WX.PRECIP,
+  TS: WX.THUNDER | WX.CONVECTIVE,
+  SH: WX.SHOWER,
+  FZ: WX.FREEZING,
+  FG: WX.FOG,
+  SQ: WX.SQUALL,
+  DU: WX.DUST,
+  SA: WX.DUST,
+  DS: WX.DUST,
+  SS: WX.DUST,
+  PO: WX.DUST,
+  BR: 0,
+  HZ: 0,
+  FU: 0,
+  VA: 0,
+  PY: 0,
+  FC: 0,
+  MI: 0,
+  PR: 0,
+  BC: 0,
+  DR: 0,
+  BL: 0,
+};
+
+/**
+ * WX flags of a present-weather text such as `-RA BR`, `+TSRA`, or LCD `-RA:02 BR:1 |RA BR |`
+ * (WMO-No. 306 FM 15 w'w' groups). Tokens that are not made only of known letter pairs are ignored.
+ */
+export function weatherFlagsFromCodes(text: string): number {
+  let flags = 0;
+  for (const raw of text.toUpperCase().split(/[\s|,;]+/)) {
+    let tok = raw.split(':')[0]!;
+    if (tok === '') continue;
+    let heavy = false;
+    if (tok[0] === '+') {
+      heavy = true;
+      tok = tok.slice(1);
+    } else if (tok[0] === '-') tok = tok.slice(1);
+    if (tok.startsWith('VC')) tok = tok.slice(2);
+    if (tok.length === 0 || tok.length % 2 !== 0) continue;
+    let f = 0;
+    let ok = true;
+    for (let i = 0; i < tok.length; i += 2) {
+      const v = WX_CODES[tok.slice(i, i + 2)];
+      if (v === undefined) {
+        ok = false;
+        break;
+      }
+      f |= v;
+    }
+    if (!ok) continue;
+    if (heavy) f |= WX.HEAVY;
+    flags |= f;
+  }
+  return flags;
+}
+
+interface Col {
+  field: NumericField;
+  index: number;
+  unit: UnitName;
+  conv: (v: number) => number;
+  /** Which sentinel set applies: 0 negatives only, 1 full, 2 pressure, 3 pressure in Pa, 4 elevation. */
+  sentinels: number;
+}
+
+function sentinelKind(field: NumericField, unit: UnitName): number {
+  const q = FIELD_QUANTITY[field];
+  if (q === 'pressure') return unit === 'Pa' ? 3 : 2;
+  if (q === 'height') return 4;
+  return 1;
+}
+
+function isSentinel(v: number, kind: number): boolean {
+  if (v < 0) return v === -999 || v === -999.9 || v === -9999 || v === -9999.9 || v === -99999;
+  switch (kind) {
+    case 1:
+      return v === 999 || v === 999.9 || v === 9999 || v === 9999.9 || v === 99999 || v === 99999.9;
+    case 2:
+      return v === 9999 || v === 9999.9 || v === 99999 || v === 99999.9;
+    case 3:
+      return v === 9999 || v === 9999.9 || v === 99999.9;
+    case 4:
+      return v === 99999 || v === 99999.9;
+    default:
+      return false;
+  }
+}
+
+interface Counter {
+  count: number;
+  line: number;
+  example: string;
+}
+
+const NO_COL = -1;
+
+/** The shared row handler behind readCsvText and readCsvStream. */
+export class CsvCore {
+  readonly report: FileReport;
+  readonly stationsSeen = new Map<string, StationPosition>();
+  readonly valueCounts: Record<string, number> = {};
+  readonly units: Partial<Record<NumericField, UnitChoice>> = {};
+  private readonly counters = new Map<string, Counter>();
+  private readonly opts: CsvOptions;
+  private readonly emit: (o: Observation) => void;
+  private header: string[] | null = null;
+  private headerLen = 0;
+  private line = 0;
+  private fatal: { reason: string; message: string } | null = null;
+  private mapping: ColumnMapping = {};
+  private pending: { fields: string[]; line: number }[] | null = null;
+  private cols: Partial<Record<NumericField, Col>> = {};
+  private timeParser: TimeParser | null = null;
+  private offsetParsers = new Map<number, TimeParser>();
+  private timeCol = NO_COL;
+  private stationCol = NO_COL;
+  private wxCol = NO_COL;
+  private rawCol = NO_COL;
+  private offsetCol = NO_COL;
+  private typeCol = NO_COL;
+  private defaultStation = '';
+  private userMissingText = new Set<string>();
+  private userMissingNum: number[] = [];
+  private wxCache = new Map<string, number>();
+  private lastTime = new Map<string, number>();
+  private decimalComma = false;
+  private aborted = false;
+
+  constructor(file: string, opts: CsvOptions, emit: (o: Observation) => void) {
+    this.report = newFileReport(file, 'csv');
+    this.opts = opts;
+    this.emit = emit;
+    for (const m of opts.missing ?? []) {
+      const t = m.trim();
+      this.userMissingText.add(t.toLowerCase());
+      const v = Number(t);
+      if (t !== '' && Number.isFinite(v)) this.userMissingNum.push(v);
+    }
+  }
+
+  /** Handle one parsed row. Returns false when the rest of the input should not be read. */
+  row(fields: string[], errors?: readonly { code?: string; message?: string }[]): boolean {
+    const line = ++this.line;
+    if (fields.length === 1 && fields[0]!.trim() === '') return true;
+    this.report.lines++;
+    if (this.header === null) return this.setHeader(fields);
+    if (this.fatal) {
+      this.reject(line, this.fatal.reason, this.fatal.message);
+      return true;
+    }
+    if (errors && errors.length) {
+      const e = errors[0]!;
+      if (e.code === 'MissingQuotes' || e.code === 'InvalidQuotes') {
+        this.reject(line, 'bad-quotes', `unbalanced quotes (${e.message ?? e.code}); fix the quoting in the file`);
+        return true;
+      }
+    }
+    if (this.pending) {
+      this.pending.push({ fields, line });
+      if (this.pending.length >= (this.opts.inferRows ?? 1000)) this.decideUnits();
+      return true;
+    }
+    this.process(fields, line);
+    return true;
+  }
+
+  /** Finish: decide units if still pending, write notes. */
+  finish(): CsvResult {
+    if (this.header === null && !this.aborted) {
+      addIssue(this.report, { file: this.report.file, line: 1, reason: 'empty', message: 'the file has no header and no data; check the file' });
+    }
+    if (this.pending) this.decideUnits();
+    for (const [key, c] of this.counters) {
+      const [reason, field] = key.split(':');
+      this.valueCounts[key] = c.count;
+      this.report.notes.push(`${reason} in ${field}: ${c.count} value${c.count === 1 ? '' : 's'} (first at line ${c.line}: "${c.example}")${VALUE_NOTE[reason!] ?? ''}`);
+    }
+    return { report: this.report, stationsSeen: this.stationsSeen, valueCounts: this.valueCounts, units: this.units };
+  }
+
+  private reject(line: number, reason: string, message: string, group?: string, column?: number): void {
+    const issue = { file: this.report.file, line, reason, message } as Parameters<typeof addIssue>[1];
+    if (group !== undefined) issue.group = group;
+    if (column !== undefined) issue.column = column;
+    addIssue(this.report, issue);
+  }
+
+  private count(reason: string, field: string, line: number, example: string): void {
+    const key = `${reason}:${field}`;
+    const c = this.counters.get(key);
+    if (c) c.count++;
+    else this.counters.set(key, { count: 1, line, example: example.length > 40 ? example.slice(0, 40) + '…' : example });
+  }
+
+  private setHeader(fields: string[]): boolean {
+    const report = this.report;
+    const file = report.file;
+    if (fields.some((f) => f.includes('\u0000'))) {
+      this.aborted = true;
+      this.header = [];
+      addIssue(report, { file, line: this.line, reason: 'binary', message: 'the file holds NUL bytes: not a text CSV (decompress or export it as text)' });
+      return false;
+    }
+    if (fields[0]!.charCodeAt(0) === 0xfeff) fields[0] = fields[0]!.slice(1);
+    this.header = fields;
+    this.headerLen = fields.length;
+    const { mapping, unmatched, notes } = mapColumns(fields, this.opts.overrides ?? []);
+    this.mapping = mapping;
+    report.notes.push(...notes);
+    report.columns = {};
+    for (const [field, col] of Object.entries(mapping)) if (col) report.columns[col.header.trim()] = field;
+    if (unmatched.length) report.notes.push(`columns not used: ${unmatched.join(', ')}`);
+
+    if (fields.length === 1) {
+      const h = fields[0]!;
+      const d = h.includes(';') ? 'semicolons' : h.includes('\t') ? 'tabs' : h.includes(',') ? 'commas' : h.includes('|') ? 'pipes' : '';
+      if (d) {
+        this.fatal = { reason: 'wrong-delimiter', message: `the header is one column but holds ${d}; the file is delimited by ${d} (set the delimiter)` };
+        return true;
+      }
+    }
+    if (!mapping.time) {
+      this.fatal = looksLikeStationsFile(fields)
+        ? { reason: 'no-time-column', message: 'this looks like a stations file (id, lat, lon); pass it as the stations list, not as data' }
+        : { reason: 'no-time-column', message: `no time column among: ${fields.map((f) => f.trim()).join(', ')}; map one with --column NAME=time` };
+      return true;
+    }
+    const measured = ['temperature', 'dewpoint', 'relativeHumidity', 'windDir', 'windSpeed', 'gust', 'stationPressure', 'seaLevelPressure', 'altimeter', 'precip'] as const;
+    const hasRaw = mapping.rawReport && this.opts.decodeRawReport;
+    if (!measured.some((f) => mapping[f]) && !hasRaw) {
+      this.fatal = { reason: 'no-data-columns', message: 'no weather columns recognised (temperature, wind, pressure...); map them with --column NAME=field[:unit]' };
+      return true;
+    }
+
+    this.timeCol = mapping.time.index;
+    this.stationCol = mapping.station?.index ?? NO_COL;
+    this.wxCol = mapping.weatherCodes?.index ?? NO_COL;
+    this.rawCol = hasRaw ? mapping.rawReport!.index : NO_COL;
+    this.offsetCol = mapping.utcOffset?.index ?? NO_COL;
+    this.typeCol = mapping.reportType?.index ?? NO_COL;
+    if (this.stationCol === NO_COL) {
+      const base = file.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '');
+      this.defaultStation = this.opts.defaultStation ?? base;
+      report.notes.push(`no station column; station id "${this.defaultStation}" taken from ${this.opts.defaultStation ? 'the option' : 'the file name'}`);
+    }
+    const th = mapping.time.header.trim().toLowerCase();
+    const epoch = /epoch|unix/.test(th);
+    let zone = this.opts.zone;
+    if (zone === undefined && this.opts.offsetMinutes === undefined && this.offsetCol === NO_COL && (th === 'valid' || /(^|[^a-z])(utc|gmt|z)([^a-z]|$)/.test(th))) {
+      zone = 'UTC';
+      report.notes.push(
+        th === 'valid'
+          ? 'times without offset read as UTC (the Iowa Environmental Mesonet download default for `valid`); give a zone if the file was exported in local time'
+          : `times without offset read as UTC (the time column "${mapping.time.header.trim()}" says so)`,
+      );
+    }
+    let standardTime = this.opts.standardTime;
+    if (standardTime === undefined && isLcdHeaders(fields)) {
+      standardTime = true;
+      report.notes.push('times read as local standard time all year (NCEI LCD convention)');
+    }
+    this.timeParser = makeTimeParser({
+      ...(zone !== undefined ? { zone } : {}),
+      ...(this.opts.offsetMinutes !== undefined ? { offsetMinutes: this.opts.offsetMinutes } : {}),
+      standardTime: !!standardTime,
+      epoch,
+    });
+    if (epoch) report.notes.push(`time column "${mapping.time.header.trim()}" read as epoch seconds (ms when above 1e11)`);
+
+    // Units known now; the rest wait for values.
+    let needInference = false;
+    for (const f of NUMERIC_FIELDS) {
+      const c = mapping[f];
+      if (!c) continue;
+      if (c.unit) this.units[f] = { unit: c.unit, source: c.unitSource ?? 'header', why: `${c.unitSource ?? 'header'} "${c.header.trim()}"` };
+      else needInference = true;
+    }
+    if (needInference) this.pending = [];
+    else this.buildCols();
+    return true;
+  }
+
+  /** Decide units still unknown from buffered values, then process the buffer. */
+  private decideUnits(): void {
+    const pending = this.pending ?? [];
+    this.pending = null;
+    const pairs: [NumericField, NumericField][] = [
+      ['dewpoint', 'temperature'],
+      ['temperature', 'dewpoint'],
+      ['gust', 'windSpeed'],
+      ['windSpeed', 'gust'],
+    ];
+    const notes: string[] = [];
+    for (const f of NUMERIC_FIELDS) {
+      const c = this.mapping[f];
+      if (!c || this.units[f]) continue;
+      const partner = pairs.find((p) => p[0] === f)?.[1];
+      const pc = partner ? this.units[partner] : undefined;
+      if (pc) {
+        this.units[f] = { unit: pc.unit, source: 'inferred', why: `same unit as the ${partner} column` };
+        notes.push(`${f} (${c.header.trim()}): ${pc.unit}, same as ${partner}`);
+        continue;
+      }
+      if (f === 'lat' || f === 'lon') {
+        this.units[f] = { unit: 'deg', source: 'default', why: 'degrees' };
+        continue;
+      }
+      const values = new Float64Array(pending.length);
+      for (let i = 0; i < pending.length; i++) {
+        const raw = pending[i]!.fields[c.index];
+        values[i] = raw === undefined || raw.trim() === '' ? NaN : Number(raw);
+      }
+      const inf = inferUnit(f, values);
+      this.units[f] = { unit: inf.unit, source: inf.ambiguous ? 'default' : 'inferred', why: inf.why };
+      notes.push(`${f} (${c.header.trim()}): ${inf.unit}, ${inf.ambiguous ? 'assumed' : 'inferred'} — ${inf.why}`);
+    }
+    if (notes.length) this.report.notes.push(`units not named by the file: ${notes.join('; ')}`);
+    this.buildCols();
+    for (const p of pending) this.process(p.fields, p.line);
+  }
+
+  private buildCols(): void {
+    const parts: string[] = [];
+    for (const f of NUMERIC_FIELDS) {
+      const c = this.mapping[f];
+      const u = this.units[f];
+      if (!c || !u) continue;
+      if (unitQuantity(u.unit) !== FIELD_QUANTITY[f]) throw new RangeError(`unit ${u.unit} does not fit field ${f}`);
+      this.cols[f] = { field: f, index: c.index, unit: u.unit, conv: converter(u.unit), sentinels: sentinelKind(f, u.unit) };
+      this.report.units[f] = u.unit;
+      parts.push(`${f}=${u.unit} (${u.source})`);
+    }
+    if (parts.length) this.report.notes.push(`units: ${parts.join(', ')}`);
+  }
+
+  /** One numeric cell → canonical value or NaN (counted). */
+  private val(fields: string[], c: Col | undefined, line: number): number {
+    if (c === undefined) return NaN;
+    const raw = fields[c.index];
+    if (raw === undefined || raw.length === 0) return NaN;
+    let v = +raw;
+    if (v !== v) {
+      v = this.slowValue(raw, c, line);
+      if (v !== v) return NaN;
+    } else if (v === 0 && raw.trim() === '') return NaN;
+    if ((v >= 999 || v <= -999) && (isSentinel(v, c.sentinels) || !Number.isFinite(v))) {
+      this.count(Number.isFinite(v) ? 'sentinel' : 'bad-value', c.field, line, raw);
+      return NaN;
+    }
+    if (this.userMissingNum.length !== 0 && this.userMissingNum.includes(v)) return NaN;
+    return c.conv(v);
+  }
+
+  /** Cells `+raw` could not read: missing markers, LCD flags, decimal commas, garbage. */
+  private slowValue(raw: string, c: Col, line: number): number {
+    const t = raw.trim();
+    const lower = t.toLowerCase();
+    if (MISSING.has(lower) || this.userMissingText.has(lower)) return NaN;
+    if (t === '') return NaN;
+    if (lower === 'vrb' || lower === 'v') {
+      if (c.field === 'windDir') this.count('variable', c.field, line, raw);
+      else this.count('bad-value', c.field, line, raw);
+      return NaN;
+    }
+    if (t === 'T' && c.field === 'precip') {
+      this.count('trace', c.field, line, raw);
+      return 0;
+    }
+    const m = /^([-+]?(?:\d+\.?\d*|\.\d+))([sTAE*]+)$/.exec(t);
+    if (m) {
+      const flag = m[2]!.includes('s') ? 'suspect' : m[2]!.includes('T') ? 'trace' : m[2]!.includes('E') ? 'estimated' : 'flagged';
+      this.count(flag, c.field, line, raw);
+      return Number(m[1]);
+    }
+    if (/^[-+]?\d+,\d+$/.test(t) && this.opts.delimiter !== ',') {
+      if (!this.decimalComma) {
+        this.decimalComma = true;
+        this.report.notes.push(`decimal commas read as decimal points (first at line ${line}: "${t}")`);
+      }
+      return Number(t.replace(',', '.'));
+    }
+    if (this.userMissingNum.length && this.userMissingNum.includes(Number(t))) return NaN;
+    this.count('bad-value', c.field, line, raw);
+    return NaN;
+  }
+
+  private timeOf(fields: string[], line: number): number {
+    const raw = fields[this.timeCol]!;
+    const t = raw.trim();
+    if (t === '' || MISSING.has(t.toLowerCase())) {
+      this.reject(line, 'no-time', 'the time cell is empty or missing; the line is skipped', raw, this.timeCol + 1);
+      return NaN;
+    }
+    let parser = this.timeParser!;
+    if (this.offsetCol !== NO_COL) {
+      const off = parseOffsetMinutes(fields[this.offsetCol] ?? '');
+      if (Number.isFinite(off) && Math.abs(off) <= 18 * 60) {
+        let p = this.offsetParsers.get(off);
+        if (!p) this.offsetParsers.set(off, (p = makeTimeParser({ offsetMinutes: off })));
+        parser = p;
+      }
+    }
+    const r = parser(t);
+    if ('ms' in r) return r.ms;
+    const reason = r.error === 'unparsable' ? 'bad-time' : r.error === 'needs-zone' ? 'needs-zone' : `${r.error}-time`;
+    this.reject(line, reason, r.message, raw, this.timeCol + 1);
+    return NaN;
+  }
+
+  private process(fields: string[], line: number): void {
+    if (fields.length < this.headerLen) {
+      this.reject(line, 'truncated', `line has ${fields.length} of ${this.headerLen} fields; the file may be cut short or the row damaged`);
+      return;
+    }
+    const timeMs = this.timeOf(fields, line);
+    if (timeMs !== timeMs) return;
+    let station = this.defaultStation;
+    if (this.stationCol !== NO_COL) {
+      station = fields[this.stationCol]!.trim();
+      if (station === '') {
+        if (this.opts.defaultStation) station = this.opts.defaultStation;
+        else {
+          this.reject(line, 'no-station', 'the station cell is empty; fill it or give a default station', '', this.stationCol + 1);
+          return;
+        }
+      }
+    }
+    let source: Observation['source'] = 'CSV';
+    if (this.typeCol !== NO_COL) {
+      const rt = fields[this.typeCol]!.trim().toUpperCase();
+      if (rt === 'FM-15') source = 'METAR';
+      else if (rt === 'FM-16') source = 'SPECI';
+      else if (rt === 'SOD' || rt === 'SOM') {
+        this.reject(line, 'summary-row', `report type ${rt} is a daily/monthly summary, not an observation`, rt, this.typeCol + 1);
+        return;
+      }
+    }
+    const cols = this.cols;
+    const file = this.report.file;
+    const o: Observation = {
+      station,
+      timeMs,
+      source,
+      corrected: false,
+      temperatureC: this.val(fields, cols.temperature, line),
+      dewpointC: this.val(fields, cols.dewpoint, line),
+      windDirDeg: this.val(fields, cols.windDir, line),
+      windSpeedMs: this.val(fields, cols.windSpeed, line),
+      gustMs: this.val(fields, cols.gust, line),
+      stationPressureHpa: this.val(fields, cols.stationPressure, line),
+      seaLevelPressureHpa: this.val(fields, cols.seaLevelPressure, line),
+      altimeterHpa: this.val(fields, cols.altimeter, line),
+      precipMm: this.val(fields, cols.precip, line),
+      weather: 0,
+      peakWindMs: NaN,
+      pressureTrend: 0,
+      latDeg: this.val(fields, cols.lat, line),
+      lonDeg: this.val(fields, cols.lon, line),
+      elevationM: this.val(fields, cols.elevation, line),
+      file,
+      line,
+    };
+    if (o.dewpointC !== o.dewpointC && cols.relativeHumidity !== undefined) {
+      const rh = this.val(fields, cols.relativeHumidity, line);
+      if (rh === rh && o.temperatureC === o.temperatureC) {
+        o.dewpointC = dewpointFromRh(o.temperatureC, rh);
+        if (o.dewpointC === o.dewpointC) this.count('derived-from-rh', 'dewpoint', line, `${rh}%`);
+      }
+    }
+    if (this.wxCol !== NO_COL) {
+      const w = fields[this.wxCol]!;
+      if (w.length !== 0 && w !== 'M') {
+        let f = this.wxCache.get(w);
+        if (f === undefined) {
+          f = weatherFlagsFromCodes(w);
+          if (this.wxCache.size < 10000) this.wxCache.set(w, f);
+        }
+        o.weather = f;
+      }
+    }
+    if (this.rawCol !== NO_COL) this.mergeRaw(o, fields[this.rawCol]!, line);
+    if (o.latDeg === o.latDeg && o.lonDeg === o.lonDeg && !this.stationsSeen.has(station)) {
+      this.stationsSeen.set(station, { latDeg: o.latDeg, lonDeg: o.lonDeg, elevationM: o.elevationM });
+    }
+    const last = this.lastTime.get(station);
+    if (last !== undefined && timeMs < last) this.count('time-backwards', 'time', line, fields[this.timeCol]!.trim());
+    if (last === undefined || timeMs > last) this.lastTime.set(station, timeMs);
+    this.report.parsed++;
+    this.emit(o);
+  }
+
+  private mergeRaw(o: Observation, cell: string, line: number): void {
+    let text = cell.trim();
+    if (text === '' || text === 'M') return;
+    // NCEI LCD REM cells start with a header (e.g. `MET101...`) before `METAR KORD ...`.
+    const k = text.search(/\b(METAR|SPECI) /);
+    if (k > 0) text = text.slice(k);
+    let d: RawReportDecoded | null = null;
+    try {
+      d = this.opts.decodeRawReport!(text, o.timeMs, this.report.file, line);
+    } catch (e) {
+      this.count('raw-report-error', 'rawReport', line, (e as Error).message ?? String(e));
+      return;
+    }
+    if (!d) {
+      this.count('raw-report-undecoded', 'rawReport', line, text);
+      return;
+    }
+    const fill = (k: keyof Observation & ('temperatureC' | 'dewpointC' | 'windDirDeg' | 'windSpeedMs' | 'gustMs' | 'stationPressureHpa' | 'seaLevelPressureHpa' | 'altimeterHpa' | 'precipMm' | 'peakWindMs')) => {
+      const v = d![k];
+      if (typeof v === 'number' && v === v && o[k] !== o[k]) o[k] = v;
+    };
+    if (d.tempFromRemarks) {
+      if (typeof d.temperatureC === 'number' && d.temperatureC === d.temperatureC) o.temperatureC = d.temperatureC;
+      if (typeof d.dewpointC === 'number' && d.dewpointC === d.dewpointC) o.dewpointC = d.dewpointC;
+    }
+    fill('temperatureC');
+    fill('dewpointC');
+    fill('windDirDeg');
+    fill('windSpeedMs');
+    fill('gustMs');
+    fill('stationPressureHpa');
+    fill('seaLevelPressureHpa');
+    fill('altimeterHpa');
+    fill('precipMm');
+    fill('peakWindMs');
+    if (d.weather) o.weather |= d.weather;
+    if (o.pressureTrend === 0 && d.pressureTrend) o.pressureTrend = d.pressureTrend;
+    if (d.corrected) o.corrected = true;
+    if (d.remarks && d.remarks.length) o.remarks = d.remarks;
+    if (this.typeCol === NO_COL && (d.source === 'METAR' || d.source === 'SPECI')) o.source = d.source;
+  }
+}
+
+const VALUE_NOTE: Record<string, string> = {
+  'bad-value': '; not a number, read as missing (row kept)',
+  sentinel: '; missing-value code, read as missing',
+  suspect: '; flagged suspect (s), value kept',
+  trace: '; trace, read as 0',
+  estimated: '; flagged estimated, value kept',
+  flagged: '; flag stripped, value kept',
+  variable: '; variable direction, read as missing',
+  'derived-from-rh': '; dew point computed from relative humidity (Magnus, Alduchov & Eskridge 1996)',
+  'time-backwards': '; times go backwards within the station (accepted; the series is sorted)',
+  'raw-report-undecoded': '; raw report could not be decoded',
+  'raw-report-error': '; raw report decoder failed',
+};
+
+function papaConfig(opts: CsvOptions, core: CsvCore): Papa.ParseConfig<string[]> {
+  return {
+    delimiter: opts.delimiter ?? '',
+    delimitersToGuess: [',', '\t', ';', '|'],
+    skipEmptyLines: false,
+    header: false,
+    dynamicTyping: false,
+    step: (results: Papa.ParseStepResult<string[]>, parser: Papa.Parser) => {
+      if (!core.row(results.data, results.errors)) parser.abort();
+    },
+  };
+}
+
+/**
+ * Read a whole CSV text. See the module comment for the rules.
+ * @example readCsvText('station,valid,tmpf\nKJFK,2019-11-01 00:51Z,67\n', 'x.csv', {}).observations[0].temperatureC // 19.44…
+ */
+export function readCsvText(text: string, file: string, opts: CsvOptions = {}): CsvResult & { observations: Observation[] } {
+  const observations: Observation[] = [];
+  const core = new CsvCore(file, opts, (o) => observations.push(o));
+  const nul = text.slice(0, 8192).indexOf('\u0000');
+  if (nul >= 0) {
+    core.row(['\u0000']);
+    return { ...core.finish(), observations };
+  }
+  if (text.trim() !== '') Papa.parse<string[]>(text, papaConfig(opts, core));
+  return { ...core.finish(), observations };
+}
+
+/**
+ * Read a CSV from a Node readable stream, calling `onObservation` for each parsed row (memory stays flat).
+ * Resolves with the report when the stream ends; rejects only on stream errors.
+ */
+export function readCsvStream(
+  stream: NodeJS.ReadableStream,
+  file: string,
+  opts: CsvOptions,
+  onObservation: (o: Observation) => void,
+): Promise<CsvResult> {
+  const core = new CsvCore(file, opts, onObservation);
+  const s = stream as NodeJS.ReadableStream & { setEncoding?: (e: BufferEncoding) => unknown };
+  if (typeof s.setEncoding === 'function') s.setEncoding('utf8');
+  return new Promise((resolve, reject) => {
+    let done = false;
+    stream.on('error', (e) => {
+      if (!done) {
+        done = true;
+        reject(e);
+      }
+    });
+    Papa.parse(stream as unknown as string, {
+      ...papaConfig(opts, core),
+      complete: () => {
+        if (done) return;
+        done = true;
+        resolve(core.finish());
+      },
+    } as Papa.ParseConfig<string[]>);
+  });
+}
