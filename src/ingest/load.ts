@@ -1,0 +1,276 @@
+/**
+ * The I/O edge of ingest: expand paths, sniff each file's format, read it with the right reader, resolve
+ * station ids and metadata, derive station pressure, build and QC one series per station.
+ * Every file is accounted for in a FileReport; files that are not observations are skipped with a note.
+ */
+import { closeSync, openSync, readSync, readdirSync, readFileSync, statSync } from 'node:fs';
+import { basename, extname, join } from 'node:path';
+import type { FileReport, Observation, StationMeta } from './types.js';
+import { newFileReport } from './types.js';
+import { decodeMetarAt, isParseIssue, looksLikeMetar, readMetarText } from './metar.js';
+import { readCsvText, type CsvOptions, type RawReportDecoded } from './csv.js';
+import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation } from './stations.js';
+import type { ColumnOverride } from './columns.js';
+import { buildSeries, groupByStation, type StationSeries } from '../series/series.js';
+import { applyQc, type QcSummary } from '../qc/qc.js';
+import { stationPressureFromAltimeterHpa } from '../physics/pressure.js';
+
+/** A problem with how fropa was called (exit code 2), as opposed to bad data (exit code 1). */
+export class UsageError extends Error {
+  override name = 'UsageError';
+}
+
+export interface LoadOptions {
+  stationsFile?: string;
+  /** YYYY-MM for METAR files whose lines carry no archive stamp and whose name has no date. */
+  month?: string;
+  zone?: string;
+  standardTime?: boolean;
+  offsetMinutes?: number;
+  overrides?: ColumnOverride[];
+  missing?: string[];
+  /** Text read from standard input when a path is `-`. */
+  stdinText?: string;
+  /** One-line notes for the user (stderr in the CLI). */
+  onNote?: (message: string) => void;
+}
+
+export interface LoadResult {
+  series: StationSeries[];
+  reports: FileReport[];
+  stations: StationMeta[];
+  qc: Map<string, QcSummary>;
+}
+
+/** Extensions that are never observation files; skipped with a note inside directories. */
+const NOT_OBSERVATIONS = new Set(['.json', '.geojson', '.md', '.markdown', '.ts', '.js', '.mjs', '.html', '.svg', '.png', '.jpg', '.pdf', '.gz', '.zip', '.xz', '.ndjson']);
+
+interface Candidate {
+  path: string;
+  /** Came from a directory listing (skip unknown files quietly) rather than named by the user. */
+  fromDir: boolean;
+}
+
+/** Expand files and directories (recursively, sorted for deterministic output). */
+export function expandPaths(paths: readonly string[]): Candidate[] {
+  const out: Candidate[] = [];
+  const walk = (dir: string) => {
+    for (const name of readdirSync(dir).sort()) {
+      if (name.startsWith('.') || name === 'node_modules') continue;
+      const p = join(dir, name);
+      const st = statSync(p);
+      if (st.isDirectory()) walk(p);
+      else if (st.isFile()) out.push({ path: p, fromDir: true });
+    }
+  };
+  for (const p of paths) {
+    if (p === '-') {
+      out.push({ path: '-', fromDir: false });
+      continue;
+    }
+    let st;
+    try {
+      st = statSync(p);
+    } catch {
+      throw new UsageError(`${p}: no such file or directory`);
+    }
+    if (st.isDirectory()) walk(p);
+    else out.push({ path: p, fromDir: false });
+  }
+  return out;
+}
+
+/** The first bytes of a file as text (for sniffing) and whether it holds a NUL byte. */
+function head(path: string, bytes = 8192): { text: string; binary: boolean } {
+  const fd = openSync(path, 'r');
+  try {
+    const buf = Buffer.alloc(bytes);
+    const n = readSync(fd, buf, 0, bytes, 0);
+    const b = buf.subarray(0, n);
+    return { text: b.toString('utf8'), binary: b.includes(0) };
+  } finally {
+    closeSync(fd);
+  }
+}
+
+export type SniffedFormat = 'metar' | 'csv' | 'stations' | 'empty' | 'binary' | 'unknown';
+
+/** Decide a file's format from its name and first bytes. */
+export function sniffFormat(name: string, sample: string, binary: boolean): SniffedFormat {
+  if (binary) return 'binary';
+  if (sample.trim() === '') return 'empty';
+  if (looksLikeMetar(sample)) return 'metar';
+  const first = sample.split(/\r?\n/, 1)[0] ?? '';
+  const delim = [',', '\t', ';', '|'].reduce((best, d) => (first.split(d).length > first.split(best).length ? d : best), ',');
+  const headers = first.split(delim).map((h) => h.trim().replace(/^"|"$/g, ''));
+  if (headers.length >= 3 && looksLikeStationsFile(headers)) return 'stations';
+  if (headers.length >= 2) return 'csv';
+  if (/\.(csv|tsv|txt)$/i.test(name) && /[;,\t]/.test(first)) return 'csv';
+  return 'unknown';
+}
+
+/** Raw METAR text found in a CSV row (archive exports) → the fields it adds. */
+function decodeRawReport(text: string, timeMs: number, file: string, line: number): RawReportDecoded | null {
+  const r = decodeMetarAt(text, timeMs, file, line);
+  if (isParseIssue(r)) return null;
+  return {
+    temperatureC: r.temperatureC,
+    dewpointC: r.dewpointC,
+    tempFromRemarks: r.tempFromRemarks,
+    windDirDeg: r.windDirDeg,
+    windSpeedMs: r.windSpeedMs,
+    gustMs: r.gustMs,
+    seaLevelPressureHpa: r.seaLevelPressureHpa,
+    altimeterHpa: Number.isNaN(r.altimeterHpa) ? r.qnhHpa : r.altimeterHpa,
+    precipMm: r.precip1hMm,
+    weather: r.weather,
+    peakWindMs: r.peakWindMs,
+    pressureTrend: r.pressureTrend,
+    corrected: r.corrected,
+    source: r.type,
+    remarks: r.remarks,
+  };
+}
+
+/**
+ * Read every path and build QC'd series per station. Throws UsageError for a missing path or an
+ * unreadable stations file; data problems are counted in the reports, never thrown.
+ */
+export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): LoadResult {
+  const note = opts.onNote ?? (() => {});
+  const reports: FileReport[] = [];
+  const stations: StationMeta[] = [];
+  const files = expandPaths(paths);
+  // Stations files first: the explicit one, then any found among the inputs.
+  if (opts.stationsFile) {
+    let text: string;
+    try {
+      text = readFileSync(opts.stationsFile, 'utf8');
+    } catch {
+      throw new UsageError(`${opts.stationsFile}: cannot read the stations file`);
+    }
+    const r = readStationsText(text, opts.stationsFile);
+    stations.push(...r.stations);
+    reports.push(r.report);
+  }
+  const observations: Observation[] = [];
+  const positions = new Map<string, { latDeg: number; lonDeg: number; elevationM: number }>();
+  const csvOpts: CsvOptions = {
+    overrides: opts.overrides,
+    missing: opts.missing,
+    zone: opts.zone,
+    standardTime: opts.standardTime,
+    offsetMinutes: opts.offsetMinutes,
+    decodeRawReport,
+  };
+  const dataFiles: { path: string; text: string; format: SniffedFormat; fromDir: boolean }[] = [];
+  for (const c of files) {
+    let text: string;
+    let binary = false;
+    const name = c.path === '-' ? '(stdin)' : c.path;
+    if (c.path === '-') {
+      text = opts.stdinText ?? '';
+      binary = text.slice(0, 8192).includes('\u0000');
+    } else {
+      if (c.fromDir && NOT_OBSERVATIONS.has(extname(c.path).toLowerCase())) {
+        note(`${c.path}: skipped (not an observation file)`);
+        reports.push({ ...newFileReport(c.path, 'skipped'), notes: ['not an observation file'] });
+        continue;
+      }
+      try {
+        const h = head(c.path);
+        binary = h.binary;
+        text = binary ? h.text : readFileSync(c.path, 'utf8');
+      } catch {
+        const r = newFileReport(c.path, 'unreadable');
+        r.notes.push('cannot read the file (permissions?)');
+        reports.push(r);
+        note(`${c.path}: cannot read the file`);
+        continue;
+      }
+    }
+    const format = sniffFormat(basename(name), text.slice(0, 8192), binary);
+    if (format === 'stations') {
+      if (opts.stationsFile) {
+        note(`${name}: stations file ignored (--stations given)`);
+        reports.push({ ...newFileReport(name, 'stations'), notes: ['ignored: --stations given'] });
+        continue;
+      }
+      const r = readStationsText(text, name);
+      stations.push(...r.stations);
+      reports.push(r.report);
+      continue;
+    }
+    dataFiles.push({ path: name, text, format, fromDir: c.fromDir });
+  }
+  for (const f of dataFiles) {
+    if (f.format === 'metar') {
+      const r = readMetarText(f.text, f.path, { month: opts.month });
+      for (const o of r.observations) observations.push(o);
+      reports.push(r.report);
+      if (r.observations.length === 0 && r.report.rejectedByReason['no-year-month']) {
+        note(`${f.path}: no year and month for the reports; pass --month YYYY-MM or use a dated file name`);
+      }
+    } else if (f.format === 'csv') {
+      const r = readCsvText(f.text, f.path, csvOpts);
+      // A CSV without a single observation inside a directory is most likely something else (a forecast list).
+      if (r.observations.length === 0 && f.fromDir) {
+        note(`${f.path}: skipped (no observation columns recognised)`);
+        reports.push({ ...r.report, format: 'skipped', notes: [...r.report.notes, 'no observation columns recognised'] });
+        continue;
+      }
+      for (const o of r.observations) observations.push(o);
+      for (const [id, pos] of r.stationsSeen) positions.set(id, pos);
+      reports.push(r.report);
+    } else {
+      const r = newFileReport(f.path, f.format === 'unknown' ? 'skipped' : f.format);
+      const why =
+        f.format === 'binary' ? 'binary file (NUL bytes), not text observations' : f.format === 'empty' ? 'empty file' : 'neither METAR reports nor a CSV table';
+      r.notes.push(why);
+      if (f.format !== 'unknown') {
+        r.rejectedByReason[f.format === 'binary' ? 'binary-file' : 'empty-file'] = 1;
+        r.rejected = 1;
+      }
+      reports.push(r);
+      note(`${f.path}: skipped (${why})`);
+    }
+  }
+  return { ...buildAllSeries(observations, stations, positions), reports, stations };
+}
+
+/** Resolve ids, attach metadata, derive station pressure, build and QC one series per station. */
+export function buildAllSeries(
+  observations: Observation[],
+  stations: StationMeta[],
+  positions: Map<string, { latDeg: number; lonDeg: number; elevationM: number }>,
+): { series: StationSeries[]; qc: Map<string, QcSummary> } {
+  const index = buildStationIndex(stations);
+  for (const o of observations) o.station = resolveStation(index, o.station).id;
+  const groups = groupByStation(observations);
+  const series: StationSeries[] = [];
+  const qc = new Map<string, QcSummary>();
+  for (const id of [...groups.keys()].sort()) {
+    const obs = groups.get(id)!;
+    let meta = resolveStation(index, id).meta;
+    if (!meta) {
+      const pos = positions.get(id);
+      if (pos && !Number.isNaN(pos.latDeg)) meta = { id, aliases: [], ...pos };
+    }
+    const s = buildSeries(id, obs, meta);
+    deriveStationPressure(s);
+    qc.set(id, applyQc(s));
+    series.push(s);
+  }
+  return { series, qc };
+}
+
+/** Fill station pressure from the altimeter setting where missing and the elevation is known (NWS formula in physics/pressure). */
+export function deriveStationPressure(s: StationSeries): void {
+  const elev = s.meta?.elevationM;
+  if (elev === undefined || Number.isNaN(elev)) return;
+  for (let i = 0; i < s.length; i++) {
+    if (Number.isNaN(s.stationPressureHpa[i]!) && !Number.isNaN(s.altimeterHpa[i]!)) {
+      s.stationPressureHpa[i] = stationPressureFromAltimeterHpa(s.altimeterHpa[i]!, elev);
+    }
+  }
+}
