@@ -39,7 +39,7 @@ import Papa from 'papaparse';
 import { addIssue, newFileReport, WX, type FileReport, type Observation } from './types.js';
 import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { converter, inferUnit, unitQuantity, type UnitName } from './units.js';
-import { makeTimeParser, parseOffsetMinutes, type TimeParser } from './time.js';
+import { makeTimeReader, parseOffsetMinutes, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
@@ -223,8 +223,10 @@ export class CsvCore {
   private mapping: ColumnMapping = {};
   private pending: { fields: string[]; line: number }[] | null = null;
   private cols: Partial<Record<NumericField, Col>> = {};
-  private timeParser: TimeParser | null = null;
-  private offsetParsers = new Map<number, TimeParser>();
+  private timeParser: TimeReader | null = null;
+  private offsetParsers = new Map<number, TimeReader>();
+  private lastStation = '';
+  private lastStationTime = NaN;
   private timeCol = NO_COL;
   private stationCol = NO_COL;
   private wxCol = NO_COL;
@@ -372,7 +374,7 @@ export class CsvCore {
       standardTime = true;
       report.notes.push('times read as local standard time all year (NCEI LCD convention)');
     }
-    this.timeParser = makeTimeParser({
+    this.timeParser = makeTimeReader({
       ...(zone !== undefined ? { zone } : {}),
       ...(this.opts.offsetMinutes !== undefined ? { offsetMinutes: this.opts.offsetMinutes } : {}),
       standardTime: !!standardTime,
@@ -499,24 +501,27 @@ export class CsvCore {
 
   private timeOf(fields: string[], line: number): number {
     const raw = fields[this.timeCol]!;
-    const t = raw.trim();
-    if (t === '' || MISSING.has(t.toLowerCase())) {
-      this.reject(line, 'no-time', 'the time cell is empty or missing; the line is skipped', raw, this.timeCol + 1);
-      return NaN;
+    if (raw.length < 8) {
+      const t = raw.trim();
+      if (t === '' || MISSING.has(t.toLowerCase())) {
+        this.reject(line, 'no-time', 'the time cell is empty or missing; the line is skipped', raw, this.timeCol + 1);
+        return NaN;
+      }
     }
     let parser = this.timeParser!;
     if (this.offsetCol !== NO_COL) {
       const off = parseOffsetMinutes(fields[this.offsetCol] ?? '');
       if (Number.isFinite(off) && Math.abs(off) <= 18 * 60) {
         let p = this.offsetParsers.get(off);
-        if (!p) this.offsetParsers.set(off, (p = makeTimeParser({ offsetMinutes: off })));
+        if (!p) this.offsetParsers.set(off, (p = makeTimeReader({ offsetMinutes: off })));
         parser = p;
       }
     }
-    const r = parser(t);
-    if ('ms' in r) return r.ms;
-    const reason = r.error === 'unparsable' ? 'bad-time' : r.error === 'needs-zone' ? 'needs-zone' : `${r.error}-time`;
-    this.reject(line, reason, r.message, raw, this.timeCol + 1);
+    const ms = parser.read(raw);
+    if (ms === ms) return ms;
+    const e = parser.error!;
+    const reason = e.error === 'unparsable' ? 'bad-time' : e.error === 'needs-zone' ? 'needs-zone' : `${e.error}-time`;
+    this.reject(line, reason, e.message, raw, this.timeCol + 1);
     return NaN;
   }
 
@@ -595,9 +600,13 @@ export class CsvCore {
     if (o.latDeg === o.latDeg && o.lonDeg === o.lonDeg && !this.stationsSeen.has(station)) {
       this.stationsSeen.set(station, { latDeg: o.latDeg, lonDeg: o.lonDeg, elevationM: o.elevationM });
     }
-    const last = this.lastTime.get(station);
-    if (last !== undefined && timeMs < last) this.count('time-backwards', 'time', line, fields[this.timeCol]!.trim());
-    if (last === undefined || timeMs > last) this.lastTime.set(station, timeMs);
+    if (station !== this.lastStation) {
+      if (this.lastStation !== '') this.lastTime.set(this.lastStation, this.lastStationTime);
+      this.lastStation = station;
+      this.lastStationTime = this.lastTime.get(station) ?? -Infinity;
+    }
+    if (timeMs < this.lastStationTime) this.count('time-backwards', 'time', line, fields[this.timeCol]!.trim());
+    else this.lastStationTime = timeMs;
     this.report.parsed++;
     this.emit(o);
   }

@@ -260,10 +260,18 @@ const UTC_NAMES = new Set(['utc', 'z', 'etc/utc', 'gmt', 'etc/gmt', 'zulu', 'uni
 export type TimeParser = (text: string) => TimeResult;
 
 /**
- * Build a time parser for fixed options; throws RangeError for an unknown zone or a bad offset.
- * @example makeTimeParser({ zone: 'America/New_York' })('2019-11-03 01:30') // { error: 'ambiguous', ... }
+ * Allocation-free time reading for hot loops: `read(text)` returns epoch ms or NaN, and on NaN `error`
+ * holds the reason. Build with `makeTimeReader`; `makeTimeParser` wraps it.
  */
-export function makeTimeParser(opts: TimeOptions = {}): TimeParser {
+export interface TimeReader {
+  read(text: string): number;
+  error: { error: TimeError; message: string } | null;
+}
+
+/**
+ * Build an allocation-free time reader for fixed options; throws RangeError for an unknown zone or a bad offset.
+ */
+export function makeTimeReader(opts: TimeOptions = {}): TimeReader {
   const { zone, offsetMinutes, standardTime, epoch } = opts;
   if (offsetMinutes !== undefined && !(Number.isFinite(offsetMinutes) && Math.abs(offsetMinutes) <= 18 * 60)) {
     throw new RangeError(`offsetMinutes must be within ±1080, got ${offsetMinutes}`);
@@ -278,25 +286,46 @@ export function makeTimeParser(opts: TimeOptions = {}): TimeParser {
     }
   }
   const p: Parts = { ...scratch };
-  return (raw: string): TimeResult => {
-    const text = raw.trim();
-    if (epoch) {
-      const v = Number(text);
-      if (text === '' || !Number.isFinite(v)) return { error: 'unparsable', message: `"${text}" is not an epoch number` };
-      return { ms: Math.abs(v) > 1e11 ? v : v * 1000 };
-    }
-    if (!readParts(text, p)) {
-      return { error: 'unparsable', message: `"${text}" is not a time fropa reads (use ISO 8601, e.g. 2024-02-27T08:51Z)` };
-    }
-    if (!validParts(p)) return { error: 'unparsable', message: `"${text}" is not a valid calendar date and time` };
-    const wall = Date.UTC(p.y, p.mo - 1, p.d, p.h, p.mi, p.s, p.ms);
-    if (!Number.isNaN(p.offset)) return { ms: wall - p.offset * 60000 };
-    if (!Number.isNaN(fixed)) return { ms: wall - fixed * 60000 };
-    if (z) {
-      if (standardTime) return { ms: wall - z.standard(p.y) * 60000 };
-      return localToUtc(wall, z, text);
-    }
-    return { error: 'needs-zone', message: `"${text}" has no UTC offset; give the time zone (IANA name, e.g. --tz America/Chicago) or a UTC offset column` };
+  const reader: TimeReader = {
+    error: null,
+    read(raw: string): number {
+      const text = raw.length !== 0 && (raw.charCodeAt(0) <= 32 || raw.charCodeAt(raw.length - 1) <= 32) ? raw.trim() : raw;
+      if (epoch) {
+        const v = Number(text);
+        if (text === '' || !Number.isFinite(v)) return fail('unparsable', `"${text}" is not an epoch number`);
+        return Math.abs(v) > 1e11 ? v : v * 1000;
+      }
+      if (!readParts(text, p)) return fail('unparsable', `"${text}" is not a time fropa reads (use ISO 8601, e.g. 2024-02-27T08:51Z)`);
+      if (!validParts(p)) return fail('unparsable', `"${text}" is not a valid calendar date and time`);
+      const wall = Date.UTC(p.y, p.mo - 1, p.d, p.h, p.mi, p.s, p.ms);
+      if (!Number.isNaN(p.offset)) return wall - p.offset * 60000;
+      if (!Number.isNaN(fixed)) return wall - fixed * 60000;
+      if (z) {
+        if (standardTime) return wall - z.standard(p.y) * 60000;
+        const r = localToUtc(wall, z, text);
+        if ('ms' in r) return r.ms;
+        reader.error = r;
+        return NaN;
+      }
+      return fail('needs-zone', `"${text}" has no UTC offset; give the time zone (IANA name, e.g. --tz America/Chicago) or a UTC offset column`);
+    },
+  };
+  function fail(error: TimeError, message: string): number {
+    reader.error = { error, message };
+    return NaN;
+  }
+  return reader;
+}
+
+/**
+ * Build a time parser for fixed options; throws RangeError for an unknown zone or a bad offset.
+ * @example makeTimeParser({ zone: 'America/New_York' })('2019-11-03 01:30') // { error: 'ambiguous', ... }
+ */
+export function makeTimeParser(opts: TimeOptions = {}): TimeParser {
+  const r = makeTimeReader(opts);
+  return (text: string): TimeResult => {
+    const ms = r.read(text);
+    return ms === ms ? { ms } : r.error!;
   };
 }
 

@@ -1,0 +1,123 @@
+/**
+ * CSV ingest throughput: papaparse streaming step-mode parse only vs fropa readCsvStream (to Observation)
+ * plus buildSeries, on one synthetic seeded file (invented data, ≥ 1,000,000 rows, 12 columns) written to
+ * the OS temp folder. Prints rows/s for both and their ratio (target ≥ 0.7).
+ * Run: node --import tsx bench/ingest-csv.ts [rows]
+ */
+import { createReadStream, createWriteStream, existsSync, statSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { pathToFileURL } from 'node:url';
+import Papa from 'papaparse';
+import { readCsvStream } from '../src/ingest/csv.js';
+import type { Observation } from '../src/ingest/types.js';
+import { buildSeries, groupByStation } from '../src/series/series.js';
+
+/** Small seeded PRNG (mulberry32), so every run writes the same file. */
+function mulberry32(seed: number): () => number {
+  let a = seed >>> 0;
+  return () => {
+    a = (a + 0x6d2b79f5) >>> 0;
+    let t = a;
+    t = Math.imul(t ^ (t >>> 15), t | 1);
+    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
+    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
+  };
+}
+
+const HEADER = 'station,valid,tmpf,dwpf,relh,drct,sknt,gust,alti,mslp,p01i,vsby';
+
+/** Write `rows` synthetic IEM-style rows (10 stations, 5-minute steps) and return the path. */
+export async function writeSyntheticCsv(rows: number, seed = 20240227): Promise<string> {
+  const path = join(tmpdir(), `fropa-bench-${rows}-${seed}.csv`);
+  if (existsSync(path) && statSync(path).size > rows * 40) return path;
+  const rnd = mulberry32(seed);
+  const out = createWriteStream(path);
+  const stations = ['KAAA', 'KBBB', 'KCCC', 'KDDD', 'KEEE', 'KFFF', 'KGGG', 'KHHH', 'KIII', 'KJJJ'];
+  const perStation = Math.ceil(rows / stations.length);
+  const t0 = Date.UTC(2020, 0, 1);
+  let buf = HEADER + '\n';
+  let written = 0;
+  for (const st of stations) {
+    let t = 50;
+    let p = 30;
+    for (let i = 0; i < perStation && written < rows; i++, written++) {
+      const time = new Date(t0 + i * 300000).toISOString().slice(0, 16).replace('T', ' ');
+      t += (rnd() - 0.5) * 1.5;
+      p += (rnd() - 0.5) * 0.01;
+      const td = t - 5 - rnd() * 10;
+      const sknt = Math.round(rnd() * 25);
+      const gust = rnd() < 0.2 ? String(sknt + 8 + Math.round(rnd() * 10)) : 'M';
+      const prec = rnd() < 0.9 ? '0.00' : (rnd() * 0.2).toFixed(2);
+      buf += `${st},${time},${t.toFixed(2)},${td.toFixed(2)},${(50 + rnd() * 50).toFixed(2)},${Math.round(rnd() * 36) * 10},${sknt},${gust},${p.toFixed(2)},${rnd() < 0.3 ? 'M' : (p * 33.8639).toFixed(1)},${prec},10.00\n`;
+      if (buf.length > 1 << 20) {
+        if (!out.write(buf)) await new Promise<void>((r) => out.once('drain', () => r()));
+        buf = '';
+      }
+    }
+  }
+  out.end(buf);
+  await new Promise<void>((r) => out.once('finish', () => r()));
+  return path;
+}
+
+function papaOnly(path: string): Promise<number> {
+  return new Promise((resolve, reject) => {
+    let n = 0;
+    const s = createReadStream(path, { encoding: 'utf8' });
+    s.on('error', reject);
+    Papa.parse(s as unknown as string, {
+      delimiter: '',
+      delimitersToGuess: [',', '\t', ';', '|'],
+      skipEmptyLines: false,
+      step: () => {
+        n++;
+      },
+      complete: () => resolve(n),
+    } as Papa.ParseConfig<string[]>);
+  });
+}
+
+async function fropaRead(path: string): Promise<{ rows: number; series: number }> {
+  const obs: Observation[] = [];
+  const { report } = await readCsvStream(createReadStream(path), path, {}, (o) => obs.push(o));
+  let series = 0;
+  for (const [station, list] of groupByStation(obs)) series += buildSeries(station, list).length;
+  return { rows: report.parsed, series };
+}
+
+export interface BenchResult {
+  rows: number;
+  papaRowsPerSec: number;
+  fropaRowsPerSec: number;
+  ratio: number;
+}
+
+/** Run the benchmark (best of `repeats` for each side) and print figures. */
+export async function benchCsv(rows = 1_000_000, repeats = 2): Promise<BenchResult> {
+  const path = await writeSyntheticCsv(rows);
+  console.log(`file ${path}: ${(statSync(path).size / 1e6).toFixed(1)} MB, ${rows} rows, 12 columns`);
+  let papaBest = Infinity;
+  let fropaBest = Infinity;
+  for (let r = 0; r < repeats; r++) {
+    let t = performance.now();
+    const n = await papaOnly(path);
+    papaBest = Math.min(papaBest, performance.now() - t);
+    t = performance.now();
+    const f = await fropaRead(path);
+    fropaBest = Math.min(fropaBest, performance.now() - t);
+    if (f.rows !== rows || n !== rows + 1) throw new Error(`row counts differ: papa ${n - 1}, fropa ${f.rows}, expected ${rows}`);
+  }
+  const papaRowsPerSec = rows / (papaBest / 1000);
+  const fropaRowsPerSec = rows / (fropaBest / 1000);
+  const ratio = fropaRowsPerSec / papaRowsPerSec;
+  console.log(`papaparse step parse only:         ${(papaRowsPerSec / 1e3).toFixed(0)} k rows/s (${papaBest.toFixed(0)} ms)`);
+  console.log(`readCsvStream + buildSeries:       ${(fropaRowsPerSec / 1e3).toFixed(0)} k rows/s (${fropaBest.toFixed(0)} ms)`);
+  console.log(`ratio fropa / papaparse:           ${ratio.toFixed(2)} (target >= 0.70)`);
+  return { rows, papaRowsPerSec, fropaRowsPerSec, ratio };
+}
+
+if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
+  const rows = Number(process.argv[2] ?? 1_000_000);
+  await benchCsv(rows);
+}
