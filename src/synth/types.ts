@@ -1,0 +1,115 @@
+/** Types of the synthetic weather generator: configuration, columnar output, planted truth. */
+import type { BoundaryKind } from '../detect/types.js';
+import type { StationMeta } from '../ingest/types.js';
+
+/** Decoy kinds: things that look a little like fronts but are not synoptic fronts. */
+export const DECOY_KINDS = ['night-cooling', 'outflow-boundary', 'sea-breeze-front', 'prefrontal-trough', 'dryline-retreat'] as const;
+export type DecoyKind = (typeof DECOY_KINDS)[number];
+
+/** One planted passage (or decoy) at one station. */
+export interface TruthEvent {
+  station: string;
+  kind: BoundaryKind | DecoyKind;
+  /** Leading edge (start of the wind shift / of the sharp change), epoch ms UTC. */
+  timeMs: number;
+  /** End of the transition zone (90 % of the planted change complete), or end of a decoy episode. */
+  zoneEndMs?: number;
+  /** Planted temperature change across the passage, °C (negative = cooling). */
+  tempChangeC?: number;
+  /** Planted dew-point change, °C. */
+  dewpointChangeC?: number;
+  /** Planted wind direction before and after, degrees true. */
+  windBeforeDeg?: number;
+  windAfterDeg?: number;
+  /** Network-wide id of the front (same for every station it crosses). */
+  frontId?: string;
+  /** Free note, e.g. `arctic`, `frontolysis`, `frontogenesis`, `prefrontal-trough ahead`. */
+  note?: string;
+  /** True for decoys (not a boundary the detector should report as a front). */
+  isDecoy: boolean;
+}
+
+/** A planted data fault, for the record (already applied to `obs`). */
+export interface FaultRecord {
+  station: string;
+  kind: 'gap' | 'stuck' | 'spike';
+  startMs: number;
+  endMs: number;
+  field?: string;
+}
+
+/** Columnar 5-minute series (canonical units; NaN = missing). */
+export interface SynthSeries {
+  station: string;
+  length: number;
+  timeMs: Float64Array;
+  temperatureC: Float64Array;
+  dewpointC: Float64Array;
+  /** Direction the wind blows from, degrees true; 0 when calm. */
+  windDirDeg: Float64Array;
+  windSpeedMs: Float64Array;
+  /** Highest 3-s gust within the 5-min interval, m/s. */
+  gustMs: Float64Array;
+  stationPressureHpa: Float64Array;
+  seaLevelPressureHpa: Float64Array;
+  /** Precipitation in the 5-min interval ending at timeMs, mm. */
+  precipMm: Float64Array;
+  /** WX bit flags (src/ingest/types.ts). */
+  weather: Uint16Array;
+  /** Cloud cover fraction 0–1 (for encoders' sky groups). */
+  cloudFraction: Float32Array;
+}
+
+/** Which special events to plant. Counts are over the whole period and network. */
+export interface SynthEventPlan {
+  /** Mean spacing of cyclone passages, days (range). Default [3.5, 6]. */
+  cycleDays?: [number, number];
+  /** Probability that a cyclone brings a warm front ahead of its cold front. Default 0.6. */
+  warmFrontProbability?: number;
+  /** Plant one strong arctic front. Default true. */
+  arctic?: boolean;
+  /** Plant one weakening front (frontolysis across the network). Default true. */
+  frontolysis?: boolean;
+  /** Plant one strengthening front (frontogenesis). Default true. */
+  frontogenesis?: boolean;
+  /** Occluded fronts/troughs. Default 1. */
+  occluded?: number;
+  /** Cold fronts preceded by a prefrontal trough. Default 2. */
+  prefrontalTroughs?: number;
+  /** Dryline days. Default 1. */
+  drylines?: number;
+  /** Outflow boundaries (each at one or two stations). Default 1. */
+  outflows?: number;
+  /** Maximum sea-breeze days at coastal stations. Default 6. */
+  seaBreezeDays?: number;
+  /** Network-wide clear calm nights. Default 4. */
+  calmNights?: number;
+}
+
+/** Faults to plant. */
+export interface SynthFaultPlan {
+  /** Gaps of 1–6 h (number over the network). Default 3. */
+  gaps?: number;
+  /** Stuck temperature sensors (6–12 h). Default 1. */
+  stuck?: number;
+  /** Single-sample spikes. Default 4. */
+  spikes?: number;
+}
+
+export interface SynthConfig {
+  stations: StationMeta[];
+  startMs: number;
+  endMs: number;
+  /** Sample spacing, minutes. Default 5. */
+  stepMinutes?: number;
+  events?: SynthEventPlan;
+  /** `false` for clean data. */
+  faults?: SynthFaultPlan | false;
+}
+
+export interface SynthNetwork {
+  stations: StationMeta[];
+  obs: Map<string, SynthSeries>;
+  truth: TruthEvent[];
+  faults: FaultRecord[];
+}
