@@ -1,12 +1,11 @@
 #!/usr/bin/env node
-/** fropa command line: parses arguments and dispatches to commands; all work happens in src/. */
-import yargs from 'yargs';
-import { hideBin } from 'yargs/helpers';
+/** fropa executable: run the command line on this process's arguments and streams, set the exit code. */
+import { processIo, runCli } from './run.js';
 
-await yargs(hideBin(process.argv))
-  .scriptName('fropa')
-  .usage('$0 <command> [options]\n\nFind frontal passages in surface weather-station observations.')
-  .demandCommand(1, 'Name a command: inspect or detect.')
-  .strict()
-  .help()
-  .parseAsync();
+// A closed pipe (`fropa detect … | head`) ends output quietly instead of failing with EPIPE.
+process.stdout.on('error', (e: NodeJS.ErrnoException) => {
+  if (e.code === 'EPIPE') process.exit(process.exitCode ?? 0);
+  throw e;
+});
+
+process.exitCode = await runCli(process.argv.slice(2), processIo());

@@ -1,0 +1,105 @@
+/** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
+import { mkdirSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { loadPaths } from '../../src/ingest/load.js';
+import { detectStation } from '../../src/detect/detect.js';
+import { BOUNDARY_KINDS, type BoundaryKind, type DetectOptions, type PassageEvent } from '../../src/detect/types.js';
+import { eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, summaryLines } from '../../src/report/format.js';
+import { CAUTION } from '../../src/report/caution.js';
+import { ArgumentError, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { noDataMessage } from './inspect.js';
+
+/** Parse `--kinds a,b` against the known kinds (ArgumentError on an unknown one). */
+export function parseKinds(spec: unknown): Set<BoundaryKind> | null {
+  if (spec === undefined) return null;
+  const parts = (Array.isArray(spec) ? spec : [spec]).flatMap((s) => String(s).split(',')).map((s) => s.trim()).filter(Boolean);
+  const out = new Set<BoundaryKind>();
+  for (const p of parts) {
+    if (!(BOUNDARY_KINDS as readonly string[]).includes(p)) throw new ArgumentError(`--kinds: unknown kind "${p}"; known kinds: ${BOUNDARY_KINDS.join(', ')}`);
+    out.add(p as BoundaryKind);
+  }
+  if (out.size === 0) throw new ArgumentError(`--kinds needs at least one kind: ${BOUNDARY_KINDS.join(', ')}`);
+  return out;
+}
+
+/** Detection options from the arguments, range-checked (ArgumentError). */
+export function detectOptions(raw: Record<string, unknown>): DetectOptions {
+  const opts: DetectOptions = {};
+  const mc = lastNumber(raw.minConfidence);
+  if (mc !== undefined) {
+    if (!(mc >= 0 && mc <= 1)) throw new ArgumentError('--min-confidence must be a number from 0 to 1');
+    opts.minConfidence = mc;
+  }
+  const fs = lastNumber(raw.frontSpeed);
+  if (fs !== undefined) {
+    if (!(fs > 0 && fs < 500)) throw new ArgumentError('--front-speed must be a speed in km/h above 0 (typical fronts move 10 to 60 km/h)');
+    opts.frontSpeedKmh = fs;
+  }
+  return opts;
+}
+
+function lastNumber(v: unknown): number | undefined {
+  if (v === undefined) return undefined;
+  const x = Array.isArray(v) ? v[v.length - 1] : v;
+  return typeof x === 'number' ? x : Number(x);
+}
+
+/** Stable order: station, then time, then kind. */
+export function sortEvents(events: PassageEvent[]): PassageEvent[] {
+  return events.sort((a, b) => (a.station < b.station ? -1 : a.station > b.station ? 1 : a.timeMs - b.timeMs || (a.kind < b.kind ? -1 : a.kind > b.kind ? 1 : 0)));
+}
+
+/** Run detect; returns the exit code (1 when no station has data). */
+export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
+  const args = inputArgs(raw);
+  const kinds = parseKinds(raw.kinds);
+  const dopts = detectOptions(raw);
+  const local = Boolean(raw.local);
+  if (local && args.tz === undefined) throw new ArgumentError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
+  const opts = await resolveLoadOptions(args, io);
+  const result = loadPaths(args.paths, opts);
+  if (result.series.length === 0) {
+    io.stderr(noDataMessage(args.paths, result.reports));
+    return 1;
+  }
+  const events: PassageEvent[] = [];
+  for (const s of result.series) {
+    let found: PassageEvent[];
+    try {
+      found = detectStation(s, dopts);
+    } catch (e) {
+      throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
+    }
+    for (const e of found) if (!kinds || kinds.has(e.kind)) events.push(e);
+  }
+  sortEvents(events);
+  const stations = result.series.map((s) => s.station);
+  const outDir = raw.outDir as string | undefined;
+  if (outDir !== undefined) {
+    const summary = [...summaryLines(events, stations), CAUTION].join('\n') + '\n';
+    const files: [string, string][] = [
+      ['events.csv', eventsToCsv(events)],
+      ['events.json', eventsToJson(events)],
+      ['summary.txt', summary],
+    ];
+    try {
+      mkdirSync(outDir, { recursive: true });
+      for (const [name, text] of files) writeFileSync(join(outDir, name), text);
+    } catch (e) {
+      throw new Error(`${outDir}: cannot write the output folder (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+    }
+    io.stdout(summary + files.map(([name]) => `wrote ${join(outDir, name)}`).join('\n') + '\n');
+    return 0;
+  }
+  const format = String(raw.format ?? 'table');
+  const text =
+    format === 'csv'
+      ? eventsToCsv(events)
+      : format === 'json'
+        ? eventsToJson(events)
+        : format === 'ndjson'
+          ? eventsToNdjson(events)
+          : eventsToTable(events, { zone: local ? opts.zone : undefined, stations });
+  await writeOutput(text, args.out, io);
+  return 0;
+}

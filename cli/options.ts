@@ -1,0 +1,144 @@
+/**
+ * Options every input-reading command shares, and their translation into the loader's LoadOptions.
+ * Bad values become UsageError (exit code 2) with a message naming the option.
+ */
+import { readFileSync } from 'node:fs';
+import type { Argv } from 'yargs';
+import type { LoadOptions } from '../src/ingest/load.js';
+
+/** Standard streams of one CLI run, injectable for in-process tests. */
+export interface CliIo {
+  stdout(text: string): void;
+  stderr(text: string): void;
+  /** All of standard input as text (called only when a path is `-`). */
+  readStdin(): Promise<string>;
+}
+
+/** A problem with how fropa was called (exit code 2). Same name as the loader's UsageError, which run.ts also maps to 2. */
+export class ArgumentError extends Error {
+  override name = 'UsageError';
+}
+
+/** Last value when an option was given more than once (yargs collects repeats into an array). */
+const last = <T>(v: T | T[]): T => (Array.isArray(v) ? v[v.length - 1]! : v);
+/** All values of a repeatable option. */
+const all = (v: unknown): string[] => (v === undefined ? [] : (Array.isArray(v) ? v : [v]).map(String));
+
+/** Arguments shared by inspect and detect, after yargs. */
+export interface InputArgs {
+  paths: string[];
+  stations?: string;
+  month?: string;
+  tz?: string;
+  standardTime?: boolean;
+  utcOffset?: number;
+  column: string[];
+  mapping?: string;
+  missing: string[];
+  out?: string;
+  quiet?: boolean;
+  verbose?: boolean;
+}
+
+/** Add the shared input options to a command builder. */
+export function withInputOptions<T>(y: Argv<T>) {
+  return y
+    .positional('paths', { type: 'string', array: true, describe: 'Files or folders to read (folders recursively); - reads standard input', demandOption: true })
+    .option('stations', { type: 'string', coerce: last, describe: 'Stations file (CSV: id, aliases, name, lat, lon, elevation_m, coastal)', group: 'Input:' })
+    .option('month', { type: 'string', coerce: last, describe: 'YYYY-MM for METAR lines that carry no date stamp and files with no date in their name', group: 'Input:' })
+    .option('tz', { type: 'string', coerce: last, describe: 'IANA time zone of CSV times written without an offset (e.g. America/Chicago)', group: 'Input:' })
+    .option('standard-time', { type: 'boolean', describe: 'With --tz: times are local standard time all year (no DST)', group: 'Input:' })
+    .option('utc-offset', { type: 'number', coerce: last, describe: 'Fixed offset of CSV times from UTC, minutes (e.g. -360)', group: 'Input:' })
+    .option('column', { type: 'string', describe: 'Map a CSV column: name=field[:unit]; repeatable; field "ignore" drops a column', group: 'Input:' })
+    .option('mapping', { type: 'string', coerce: last, describe: 'JSON mapping file: {"columns": {...}, "missing": [...], "tz": "..."}', group: 'Input:' })
+    .option('missing', { type: 'string', describe: 'Extra missing-value marker for CSV cells; repeatable', group: 'Input:' })
+    .option('out', { type: 'string', coerce: last, describe: 'Write the output to FILE instead of standard output', group: 'Output:' })
+    .conflicts('tz', 'utc-offset');
+}
+
+/** Normalise the repeatable options yargs may give as a string, an array or undefined. */
+export function inputArgs(a: Record<string, unknown>): InputArgs {
+  return {
+    paths: all(a.paths),
+    stations: a.stations as string | undefined,
+    month: a.month as string | undefined,
+    tz: a.tz as string | undefined,
+    standardTime: a.standardTime as boolean | undefined,
+    utcOffset: a.utcOffset as number | undefined,
+    column: all(a.column),
+    mapping: a.mapping as string | undefined,
+    missing: all(a.missing),
+    out: a.out as string | undefined,
+    quiet: Boolean(a.quiet),
+    verbose: Boolean(a.verbose),
+  };
+}
+
+/**
+ * Check the shared options and build the loader's options: `--month` YYYY-MM, `--tz` a valid IANA zone,
+ * `--utc-offset` within ±14 h, every `--column` parsed, the mapping file read (CLI values win over
+ * it), standard input read when a path is `-`. Throws ArgumentError (exit code 2).
+ */
+export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<LoadOptions> {
+  const { IANAZone } = await import('luxon');
+  const { parseColumnOverride, loadMappingFile } = await import('../src/ingest/columns.js');
+  const opts: LoadOptions = {};
+  if (args.month !== undefined) {
+    if (!/^\d{4}-(0[1-9]|1[0-2])$/.test(args.month)) throw new ArgumentError(`--month "${args.month}" must be YYYY-MM, e.g. 2024-02`);
+    opts.month = args.month;
+  }
+  if (args.utcOffset !== undefined) {
+    if (!Number.isFinite(args.utcOffset) || Math.abs(args.utcOffset) > 14 * 60) {
+      throw new ArgumentError(`--utc-offset must be minutes between -840 and 840, e.g. -360 for UTC−6`);
+    }
+    opts.offsetMinutes = args.utcOffset;
+  }
+  if (args.mapping !== undefined) {
+    let text: string;
+    try {
+      text = readFileSync(args.mapping, 'utf8');
+    } catch {
+      throw new ArgumentError(`${args.mapping}: cannot read the mapping file`);
+    }
+    try {
+      const m = loadMappingFile(text);
+      opts.overrides = [...m.overrides];
+      opts.missing = [...m.missing];
+      if (m.zone !== undefined && args.utcOffset === undefined) opts.zone = m.zone;
+      if (m.standardTime !== undefined) opts.standardTime = m.standardTime;
+    } catch (e) {
+      throw new ArgumentError(`${args.mapping}: ${(e as Error).message}`);
+    }
+  }
+  if (args.tz !== undefined) opts.zone = args.tz;
+  if (opts.zone !== undefined && !IANAZone.isValidZone(opts.zone)) {
+    throw new ArgumentError(`${args.tz !== undefined ? '--tz' : `${args.mapping}: tz`} "${opts.zone}" is not an IANA time zone name (e.g. America/Chicago, Europe/Berlin, UTC)`);
+  }
+  if (args.standardTime !== undefined) opts.standardTime = args.standardTime;
+  for (const spec of args.column) {
+    try {
+      (opts.overrides ??= []).push(parseColumnOverride(spec));
+    } catch (e) {
+      throw new ArgumentError(`--column: ${(e as Error).message}`);
+    }
+  }
+  if (args.missing.length) opts.missing = [...(opts.missing ?? []), ...args.missing];
+  if (args.stations !== undefined) opts.stationsFile = args.stations;
+  if (args.paths.includes('-')) opts.stdinText = await io.readStdin();
+  if (!args.quiet) opts.onNote = (m) => io.stderr(`fropa: note: ${m}\n`);
+  return opts;
+}
+
+/** Deliver command output: to `--out FILE` or standard output. A write failure is a runtime error (exit 1). */
+export async function writeOutput(text: string, out: string | undefined, io: CliIo): Promise<void> {
+  if (out === undefined || out === '-') {
+    io.stdout(text);
+    return;
+  }
+  const { writeFileSync } = await import('node:fs');
+  try {
+    writeFileSync(out, text);
+  } catch (e) {
+    throw new Error(`${out}: cannot write the output file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+  }
+}

@@ -1,0 +1,148 @@
+/**
+ * fropa command line: parse arguments with yargs, dispatch to a lazily imported command, map the
+ * outcome to an exit code. Exit codes: 0 success; 1 no usable data or a runtime failure; 2 usage
+ * error (unknown option, missing path, bad option value, unreadable stations or mapping file).
+ * Errors never show a stack trace unless `--verbose`.
+ */
+import { readFileSync } from 'node:fs';
+import yargs from 'yargs';
+import { BOUNDARY_KINDS } from '../src/detect/types.js';
+import { CAUTION } from '../src/report/caution.js';
+import { withInputOptions, type CliIo } from './options.js';
+
+export type { CliIo } from './options.js';
+
+/** Version from package.json (one level up from cli/ under tsx, two from dist/cli/ when built). */
+function version(): string {
+  for (const rel of ['../package.json', '../../package.json']) {
+    try {
+      const p = JSON.parse(readFileSync(new URL(rel, import.meta.url), 'utf8')) as { name?: string; version?: string };
+      if (p.name === 'fropa' && p.version) return p.version;
+    } catch {
+      // try the next candidate
+    }
+  }
+  return 'unknown';
+}
+
+/** Word-wrap a paragraph (yargs' ESM build wraps help text mid-word, so fropa wraps its own and turns yargs' wrapping off). */
+function wrapWords(text: string, width = 96): string {
+  const lines: string[] = [];
+  let line = '';
+  for (const w of text.split(/\s+/)) {
+    if (line && line.length + 1 + w.length > width) {
+      lines.push(line);
+      line = w;
+    } else line = line ? `${line} ${w}` : w;
+  }
+  if (line) lines.push(line);
+  return lines.join('\n');
+}
+
+const EPILOGUE = 'Exit status: 0 success, 1 no usable data or a failure while running, 2 usage error.\n\n' + wrapWords(CAUTION);
+
+interface Selected {
+  command: 'inspect' | 'detect';
+  args: Record<string, unknown>;
+}
+
+/** Build the parser; the command handlers only record which command was chosen. */
+function parser(onSelect: (s: Selected) => void) {
+  return yargs()
+    .scriptName('fropa')
+    .usage('$0 <command> <paths...> [options]\n\nFind frontal passages in surface weather-station observations (METAR/SPECI, CSV).')
+    .command(
+      'inspect <paths...>',
+      'Show how each file was read: format, counts, rejections, units, columns, stations, QC',
+      (y) =>
+        withInputOptions(y)
+          .option('format', { choices: ['table', 'json'] as const, default: 'table', describe: 'Output format', group: 'Output:' })
+          .example('$0 inspect stations-demo', 'Every file in the demo folder, as a table')
+          .example('$0 inspect obs/KXYZ_2026-03.txt --format json', 'One JSON object per file')
+          .example('$0 inspect mesonet_march.csv --column "Air Temp=temperature:degF" --tz America/Chicago', 'Name a column and its unit; local times')
+          .example('cat reports.txt | $0 inspect - --month 2026-03', 'METAR lines from standard input')
+          .epilogue(EPILOGUE),
+      (a) => onSelect({ command: 'inspect', args: a as Record<string, unknown> }),
+    )
+    .command(
+      'detect <paths...>',
+      'Find frontal and other boundary passages at each station',
+      (y) =>
+        withInputOptions(y)
+          .option('format', { choices: ['table', 'csv', 'json', 'ndjson'] as const, default: 'table', describe: 'Output format', group: 'Output:' })
+          .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json and summary.txt into DIR', group: 'Output:' })
+          .option('local', { type: 'boolean', describe: 'Table times in the --tz zone instead of UTC (needs --tz; CSV/JSON stay UTC)', group: 'Output:' })
+          .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
+          .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.3)', group: 'Detection:' })
+          .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h, for zone depth and gradient', group: 'Detection:' })
+          .conflicts('out', 'out-dir')
+          .example('$0 detect stations-demo', 'Passages in the demo folder, as a table')
+          .example('$0 detect stations-demo --out-dir fropa-out', 'Write events.csv, events.json, summary.txt')
+          .example('$0 detect obs/ --stations stations.csv --format csv --out events.csv', 'CSV for a spreadsheet')
+          .example('$0 detect obs/ --kinds cold-front,dryline --min-confidence 0.6', 'Only confident cold fronts and drylines')
+          .example('$0 detect mesonet_march.csv --tz America/Denver --local', 'Local times in the table')
+          .epilogue(EPILOGUE),
+      (a) => onSelect({ command: 'detect', args: a as Record<string, unknown> }),
+    )
+    .option('verbose', { type: 'boolean', describe: 'Show stack traces of failures', global: true })
+    .option('quiet', { type: 'boolean', describe: 'No notes on standard error', global: true })
+    .example('$0 inspect stations-demo', 'How each demo file was read')
+    .example('$0 detect stations-demo', 'Passages found in the demo files')
+    .example('$0 detect obs/KXYZ_2026-03.txt --format json', 'Passages as JSON')
+    .demandCommand(1, 'Name a command: inspect or detect.')
+    .recommendCommands()
+    .strict()
+    .exitProcess(false)
+    .fail((msg, err) => {
+      throw Object.assign(new Error(msg || err?.message || 'invalid arguments'), { name: 'UsageError', fromParser: true });
+    })
+    .help()
+    .alias('h', 'help')
+    .version(version())
+    .epilogue(EPILOGUE)
+    .wrap(null);
+}
+
+/**
+ * Run fropa with the given arguments (without `node` and the script); returns the exit code.
+ * All output goes through `io`.
+ */
+export async function runCli(argv: readonly string[], io: CliIo): Promise<number> {
+  const verbose = argv.includes('--verbose');
+  try {
+    let selected: Selected | null = null;
+    const { output } = await new Promise<{ output: string }>((resolve, reject) => {
+      try {
+        parser((s) => (selected = s)).parse([...argv], {}, (err, _a, out) => (err ? reject(err) : resolve({ output: out })));
+      } catch (e) {
+        reject(e);
+      }
+    });
+    if (output) io.stdout(output.endsWith('\n') ? output : output + '\n');
+    if (!selected) return 0; // --help or --version
+    const sel = selected as Selected;
+    const mod = sel.command === 'inspect' ? await import('./commands/inspect.js') : await import('./commands/detect.js');
+    return await mod.run(sel.args, io);
+  } catch (e) {
+    const err = e instanceof Error ? e : new Error(String(e));
+    const usage = err.name === 'UsageError';
+    io.stderr(`fropa: ${err.message}\n`);
+    if ((err as { fromParser?: boolean }).fromParser) io.stderr('Run fropa --help (or fropa <command> --help) for usage.\n');
+    if (verbose && err.stack) io.stderr(err.stack + '\n');
+    if (verbose && err.cause instanceof Error && err.cause.stack) io.stderr('caused by: ' + err.cause.stack + '\n');
+    return usage ? 2 : 1;
+  }
+}
+
+/** Streams of this process. */
+export function processIo(): CliIo {
+  return {
+    stdout: (t) => void process.stdout.write(t),
+    stderr: (t) => void process.stderr.write(t),
+    readStdin: async () => {
+      const chunks: Buffer[] = [];
+      for await (const c of process.stdin) chunks.push(c as Buffer);
+      return Buffer.concat(chunks).toString('utf8');
+    },
+  };
+}

@@ -1,0 +1,251 @@
+/**
+ * Output writers for detected passages: one flat record per event (the output contract), and CSV,
+ * NDJSON, JSON and a table for people built from it. Pure functions: text in, text out.
+ *
+ * Contract: snake_case keys in the order of EVENT_COLUMNS; times ISO 8601 UTC `YYYY-MM-DDTHH:MM:SSZ`;
+ * missing numbers (NaN) are `null` in JSON and empty cells in CSV; evidence is an array in JSON and
+ * one cell joined with `; ` in CSV.
+ */
+import { DateTime } from 'luxon';
+import type { PassageEvent } from '../detect/types.js';
+import { CAUTION } from './caution.js';
+
+export { inspectToTable } from './inspect.js';
+
+/** Output columns, in contract order (CSV header, JSON key order). */
+export const EVENT_COLUMNS = [
+  'station',
+  'kind',
+  'time',
+  'time_earliest',
+  'time_latest',
+  'confidence',
+  'temp_change_c',
+  'dewpoint_change_c',
+  'theta_e_change_k',
+  'pressure_min_hpa',
+  'pressure_min_time',
+  'pressure_rise_3h_hpa',
+  'wind_before_deg',
+  'wind_after_deg',
+  'wind_turn_deg',
+  'wind_speed_after_ms',
+  'gust_max_ms',
+  'precip_near',
+  'zone_start',
+  'zone_end',
+  'zone_hours',
+  'zone_depth_km',
+  'gradient_k_per_100km',
+  'observer_fropa_time',
+  'evidence',
+] as const;
+export type EventColumn = (typeof EVENT_COLUMNS)[number];
+export type RecordValue = string | number | boolean | null | string[];
+export type EventRecord = Record<EventColumn, RecordValue>;
+
+/**
+ * Epoch ms → `YYYY-MM-DDTHH:MM:SSZ` (ISO 8601 UTC, no fraction); null when not finite.
+ * @example isoUtc(Date.UTC(2026, 2, 4, 12, 35)) // '2026-03-04T12:35:00Z'
+ */
+export function isoUtc(ms: number): string | null {
+  if (!Number.isFinite(ms)) return null;
+  const d = new Date(ms);
+  if (Number.isNaN(d.getTime())) return null;
+  return d.toISOString().slice(0, 19) + 'Z';
+}
+
+/**
+ * Round half away from zero to `digits` decimals; null when not finite; never −0.
+ * @example roundOrNull(-0.25, 1) // -0.3
+ */
+export function roundOrNull(x: number, digits: number): number | null {
+  if (!Number.isFinite(x)) return null;
+  const f = 10 ** digits;
+  const r = (Math.sign(x) * Math.round(Math.abs(x) * f)) / f;
+  return r === 0 ? 0 : r;
+}
+
+/**
+ * One event as a flat record with the contract's snake_case keys, in contract order. Rounding:
+ * 0.1 for °C, K, hPa, m/s, hours, km and K/100 km; whole degrees for wind; 0.01 for confidence.
+ */
+export function eventToRecord(e: PassageEvent): EventRecord {
+  return {
+    station: e.station,
+    kind: e.kind,
+    time: isoUtc(e.timeMs),
+    time_earliest: isoUtc(e.timeEarliestMs),
+    time_latest: isoUtc(e.timeLatestMs),
+    confidence: roundOrNull(e.confidence, 2),
+    temp_change_c: roundOrNull(e.tempChangeC, 1),
+    dewpoint_change_c: roundOrNull(e.dewpointChangeC, 1),
+    theta_e_change_k: roundOrNull(e.thetaEChangeK, 1),
+    pressure_min_hpa: roundOrNull(e.pressureMinHpa, 1),
+    pressure_min_time: isoUtc(e.pressureMinTimeMs),
+    pressure_rise_3h_hpa: roundOrNull(e.pressureRise3hHpa, 1),
+    wind_before_deg: roundOrNull(e.windBeforeDeg, 0),
+    wind_after_deg: roundOrNull(e.windAfterDeg, 0),
+    wind_turn_deg: roundOrNull(e.windTurnDeg, 0),
+    wind_speed_after_ms: roundOrNull(e.windSpeedAfterMs, 1),
+    gust_max_ms: roundOrNull(e.gustMaxMs, 1),
+    precip_near: e.precipNear,
+    zone_start: isoUtc(e.zoneStartMs),
+    zone_end: isoUtc(e.zoneEndMs),
+    zone_hours: roundOrNull(e.zoneHours, 1),
+    zone_depth_km: roundOrNull(e.zoneDepthKm, 1),
+    gradient_k_per_100km: roundOrNull(e.gradientKPer100km, 1),
+    observer_fropa_time: isoUtc(e.observerFropaTimeMs),
+    evidence: [...e.evidence],
+  };
+}
+
+/**
+ * One CSV cell: quoted when it holds a comma, double quote, CR or LF, with inner quotes doubled
+ * (RFC 4180 §2 rules 6 and 7). null → empty cell; arrays joined with `; `.
+ * @example csvCell('a "b", c') // '"a ""b"", c"'
+ */
+export function csvCell(v: RecordValue): string {
+  if (v === null) return '';
+  const s = Array.isArray(v) ? v.join('; ') : String(v);
+  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+}
+
+/**
+ * Events as CSV: a header row of EVENT_COLUMNS, then one row per event; no comment lines.
+ * Quoting follows RFC 4180 §2; lines end in LF (not the CRLF of RFC 4180 §2 rule 1) so that
+ * line-based Unix tools see clean last cells; every common CSV reader accepts both.
+ */
+export function eventsToCsv(events: readonly PassageEvent[]): string {
+  const lines = [EVENT_COLUMNS.join(',')];
+  for (const e of events) {
+    const r = eventToRecord(e);
+    lines.push(EVENT_COLUMNS.map((c) => csvCell(r[c])).join(','));
+  }
+  return lines.join('\n') + '\n';
+}
+
+/** Events as newline-delimited JSON: one record object per line. */
+export function eventsToNdjson(events: readonly PassageEvent[]): string {
+  return events.map((e) => JSON.stringify(eventToRecord(e)) + '\n').join('');
+}
+
+/** Events as one JSON array of records (one record per line, for readable diffs). */
+export function eventsToJson(events: readonly PassageEvent[]): string {
+  if (events.length === 0) return '[]\n';
+  return '[\n' + events.map((e) => '  ' + JSON.stringify(eventToRecord(e))).join(',\n') + '\n]\n';
+}
+
+export interface TableOptions {
+  /** IANA zone for the time columns; UTC when absent. */
+  zone?: string;
+  /** Every station read, so stations without events get a summary line too. */
+  stations?: readonly string[];
+}
+
+/** Pad cells to aligned columns; numeric columns right-aligned. */
+export function alignColumns(header: readonly string[], rows: readonly string[][], rightAligned: readonly boolean[]): string[] {
+  const width = header.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
+  const fmt = (cells: readonly string[]) =>
+    cells
+      .map((c, i) => (rightAligned[i] ? c.padStart(width[i]!) : c.padEnd(width[i]!)))
+      .join('  ')
+      .trimEnd();
+  return [fmt(header), fmt(width.map((w) => '-'.repeat(w))), ...rows.map(fmt)];
+}
+
+function num(x: number, digits: number, signed = false): string {
+  const r = roundOrNull(x, digits);
+  if (r === null) return '-';
+  const s = r.toFixed(digits);
+  return signed && r > 0 ? '+' + s : s;
+}
+
+function clock(ms: number, zone: string | undefined, withDate: boolean): string {
+  if (!Number.isFinite(ms)) return '-';
+  const d = DateTime.fromMillis(ms, { zone: zone ?? 'utc' });
+  return d.toFormat(withDate ? 'yyyy-MM-dd HH:mm' : 'HH:mm');
+}
+
+/** Per-station lines (`ID  n events: 2 cold-front, 1 wind-shift`) and a closing count line. */
+export function summaryLines(events: readonly PassageEvent[], stations: readonly string[] = []): string[] {
+  const byStation = new Map<string, Map<string, number>>();
+  for (const s of stations) byStation.set(s, new Map());
+  for (const e of events) {
+    let m = byStation.get(e.station);
+    if (!m) byStation.set(e.station, (m = new Map()));
+    m.set(e.kind, (m.get(e.kind) ?? 0) + 1);
+  }
+  const ids = [...byStation.keys()].sort();
+  const w = Math.max(0, ...ids.map((s) => s.length));
+  const lines: string[] = [];
+  let withEvents = 0;
+  for (const id of ids) {
+    const m = byStation.get(id)!;
+    const n = [...m.values()].reduce((a, b) => a + b, 0);
+    if (n > 0) withEvents++;
+    const kinds = [...m.entries()].sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1)).map(([k, c]) => `${c} ${k}`);
+    lines.push(`${id.padEnd(w)}  ${n === 0 ? 'no passages' : `${n} passage${n === 1 ? '' : 's'}: ${kinds.join(', ')}`}`);
+  }
+  const total = events.length;
+  lines.push(`${total} passage${total === 1 ? '' : 's'} at ${withEvents} of ${ids.length} station${ids.length === 1 ? '' : 's'}`);
+  return lines;
+}
+
+/**
+ * Events as an aligned table for people, units in the headers, then per-station summary lines,
+ * a count line and the safety caution as the last line.
+ */
+export function eventsToTable(events: readonly PassageEvent[], opts: TableOptions = {}): string {
+  const zoneName = opts.zone ?? 'UTC';
+  const header = [
+    'station',
+    'kind',
+    `time (${zoneName})`,
+    '± min',
+    'conf',
+    'ΔT °C',
+    'ΔTd °C',
+    'Δθe K',
+    'p min hPa',
+    'Δp 3h hPa',
+    'wind °',
+    'turn °',
+    'gust m/s',
+    'precip',
+    'zone h',
+    'zone km',
+    'observer',
+  ];
+  const right = [false, false, false, true, true, true, true, true, true, true, false, true, true, false, true, true, false];
+  const rows = events.map((e) => {
+    const halfWindowMin = (e.timeLatestMs - e.timeEarliestMs) / 2 / 60000;
+    const wind =
+      Number.isFinite(e.windBeforeDeg) || Number.isFinite(e.windAfterDeg) ? `${num(e.windBeforeDeg, 0)}→${num(e.windAfterDeg, 0)}` : '-';
+    return [
+      e.station,
+      e.kind,
+      clock(e.timeMs, opts.zone, true),
+      num(halfWindowMin, 0),
+      num(e.confidence, 2),
+      num(e.tempChangeC, 1, true),
+      num(e.dewpointChangeC, 1, true),
+      num(e.thetaEChangeK, 1, true),
+      num(e.pressureMinHpa, 1),
+      num(e.pressureRise3hHpa, 1, true),
+      wind,
+      num(e.windTurnDeg, 0, true),
+      num(e.gustMaxMs, 1),
+      e.precipNear ? 'yes' : 'no',
+      num(e.zoneHours, 1),
+      num(e.zoneDepthKm, 1),
+      Number.isFinite(e.observerFropaTimeMs) ? clock(e.observerFropaTimeMs, opts.zone, false) : '',
+    ];
+  });
+  const out: string[] = [];
+  if (rows.length) out.push(...alignColumns(header, rows, right), '');
+  else out.push('no passages found', '');
+  out.push(...summaryLines(events, opts.stations ?? []));
+  out.push(CAUTION);
+  return out.join('\n') + '\n';
+}

@@ -1,0 +1,146 @@
+/**
+ * What `fropa inspect` reports: per input file how it was read (format, counts, rejections by reason,
+ * units, column mapping, notes) and, for the stations found in it, period, cadence, duplicates,
+ * observer remarks, QC flags and metadata. Pure: built from the loader's reports and series.
+ */
+import type { FileReport, ParseIssue } from '../ingest/types.js';
+import { medianCadenceMinutes, type StationSeries } from '../series/series.js';
+import type { QcSummary } from '../qc/qc.js';
+import { isoUtc, roundOrNull } from './format.js';
+
+/** One station's details as inspect shows them (snake_case: this is also the JSON shape). */
+export interface InspectStation {
+  station: string;
+  name: string | null;
+  first: string | null;
+  last: string | null;
+  reports: number;
+  median_cadence_min: number | null;
+  duplicates: number;
+  observer_remarks: number;
+  /** Flag counts keyed `field:test`. */
+  qc_flags: Record<string, number>;
+  qc_total: number;
+  lat: number | null;
+  lon: number | null;
+  elevation_m: number | null;
+  /** Files the station's observations came from. */
+  files: string[];
+}
+
+/** One input file as inspect shows it (also the JSON shape; one object per file). */
+export interface InspectFile {
+  file: string;
+  format: string;
+  lines: number;
+  parsed: number;
+  rejected: number;
+  rejected_by_reason: Record<string, number>;
+  units: Record<string, string>;
+  columns: Record<string, string>;
+  notes: string[];
+  /** The first issues kept by the reader (all are counted in `rejected_by_reason`). */
+  issues: ParseIssue[];
+  /** Stations with at least one observation from this file. */
+  stations: string[];
+  station_details: InspectStation[];
+}
+
+/** Details for one series. */
+export function inspectStation(s: StationSeries, qc?: QcSummary): InspectStation {
+  const m = s.meta;
+  return {
+    station: s.station,
+    name: m?.name ?? null,
+    first: s.length ? isoUtc(s.timeMs[0]!) : null,
+    last: s.length ? isoUtc(s.timeMs[s.length - 1]!) : null,
+    reports: s.length,
+    median_cadence_min: roundOrNull(medianCadenceMinutes(s.timeMs), 1),
+    duplicates: s.duplicates.length,
+    observer_remarks: s.remarks.length,
+    qc_flags: { ...(qc?.flagged ?? {}) },
+    qc_total: qc?.total ?? 0,
+    lat: roundOrNull(m?.latDeg ?? NaN, 4),
+    lon: roundOrNull(m?.lonDeg ?? NaN, 4),
+    elevation_m: roundOrNull(m?.elevationM ?? NaN, 1),
+    files: [...s.files],
+  };
+}
+
+/** Combine file reports and series into one record per file, stations attached to the files they came from. */
+export function buildInspect(reports: readonly FileReport[], series: readonly StationSeries[], qc: ReadonlyMap<string, QcSummary>): InspectFile[] {
+  const details = series.map((s) => inspectStation(s, qc.get(s.station)));
+  return reports.map((r) => {
+    const here = details.filter((d) => d.files.includes(r.file));
+    return {
+      file: r.file,
+      format: r.format,
+      lines: r.lines,
+      parsed: r.parsed,
+      rejected: r.rejected,
+      rejected_by_reason: { ...r.rejectedByReason },
+      units: { ...r.units },
+      columns: { ...(r.columns ?? {}) },
+      notes: [...r.notes],
+      issues: r.issues.map((i) => ({ ...i })),
+      stations: here.map((d) => d.station),
+      station_details: here,
+    };
+  });
+}
+
+/** `file:line: reason: message` */
+export function issueLine(i: ParseIssue): string {
+  return `${i.file}:${i.line}: ${i.reason}: ${i.message}`;
+}
+
+function coordinates(d: InspectStation): string {
+  if (d.lat === null || d.lon === null) return 'no coordinates';
+  const lat = `${Math.abs(d.lat).toFixed(3)}°${d.lat < 0 ? 'S' : 'N'}`;
+  const lon = `${Math.abs(d.lon).toFixed(3)}°${d.lon < 0 ? 'W' : 'E'}`;
+  return `${lat} ${lon}${d.elevation_m === null ? '' : `, ${d.elevation_m} m`}`;
+}
+
+const counts = (rec: Record<string, number>) =>
+  Object.entries(rec)
+    .sort((a, b) => b[1] - a[1] || (a[0] < b[0] ? -1 : 1))
+    .map(([k, n]) => `${k} ${n}`)
+    .join(', ');
+
+/** Inspect records as text for people: one block per file, then one block per station, then a count line. */
+export function inspectToTable(files: readonly InspectFile[], maxIssues = 5): string {
+  const out: string[] = [];
+  const row = (label: string, value: string) => out.push(`  ${label.padEnd(10)} ${value}`);
+  const more = (value: string) => out.push(`  ${''.padEnd(10)} ${value}`);
+  for (const f of files) {
+    out.push(f.file);
+    row('format', f.format);
+    row('lines', `${f.lines} (parsed ${f.parsed}, rejected ${f.rejected})`);
+    if (f.rejected > 0) {
+      row('rejected', counts(f.rejected_by_reason));
+      for (const i of f.issues.slice(0, maxIssues)) more(issueLine(i));
+      if (f.rejected > Math.min(maxIssues, f.issues.length)) more(`… ${f.rejected - Math.min(maxIssues, f.issues.length)} more`);
+    }
+    const units = Object.entries(f.units).map(([k, u]) => `${k} ${u}`);
+    if (units.length) row('units', units.join(', '));
+    const cols = Object.entries(f.columns).map(([h, field]) => `${h}→${field}`);
+    if (cols.length) row('columns', cols.join(', '));
+    f.notes.forEach((n, i) => (i === 0 ? row('notes', n) : more(n)));
+    if (f.stations.length) row('stations', f.stations.join(', '));
+    out.push('');
+  }
+  const seen = new Map<string, InspectStation>();
+  for (const f of files) for (const d of f.station_details) if (!seen.has(d.station)) seen.set(d.station, d);
+  for (const d of [...seen.values()].sort((a, b) => (a.station < b.station ? -1 : a.station > b.station ? 1 : 0))) {
+    out.push(`station ${d.station}${d.name ? ` (${d.name})` : ''}`);
+    row('where', coordinates(d));
+    row('period', `${d.first ?? '-'} to ${d.last ?? '-'}`);
+    row('reports', `${d.reports}, median cadence ${d.median_cadence_min ?? '-'} min, ${d.duplicates} duplicate time(s), ${d.observer_remarks} observer remark(s)`);
+    row('qc flags', d.qc_total === 0 ? 'none' : counts(d.qc_flags));
+    out.push('');
+  }
+  const parsed = files.reduce((a, f) => a + f.parsed, 0);
+  const rejected = files.reduce((a, f) => a + f.rejected, 0);
+  out.push(`${files.length} file(s), ${parsed} line(s) parsed, ${rejected} rejected, ${seen.size} station(s)`);
+  return out.join('\n') + '\n';
+}
