@@ -1,0 +1,248 @@
+/**
+ * Seeded synthetic skill benchmark: fropa against the naive rule of thumb, on the same invented
+ * network encoded two ways (5-minute CSV and hourly METAR with SPECIs), read back through the real
+ * readers. Scores (Wilks 2011 ch. 8): POD, FAR, CSI per kind, kind accuracy, timing and zone errors,
+ * and how often decoys are called fronts.
+ *
+ * Usage: npm run bench:skill [-- --seed 20260301 --days 90 --json out.json]
+ */
+import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import type { StationMeta } from '../src/ingest/types.js';
+import type { StationSeries } from '../src/series/series.js';
+import { generateNetwork } from '../src/synth/generateNetwork.js';
+import { toCsvText, type CsvConvention } from '../src/synth/toCsvText.js';
+import { toMetarLines } from '../src/synth/toMetarLines.js';
+import type { TruthEvent } from '../src/synth/types.js';
+import { naiveDetect } from './naive.js';
+import { contingencyForKind, csi, far, matchOneToOne, pod, quantile, type Contingency } from './score.js';
+
+const HOUR = 3_600_000;
+const args = process.argv.slice(2);
+const arg = (name: string, def: string) => {
+  const i = args.indexOf(`--${name}`);
+  return i >= 0 && args[i + 1] !== undefined ? args[i + 1]! : def;
+};
+const seed = Number(arg('seed', '20260301'));
+const days = Number(arg('days', '90'));
+const jsonOut = args.includes('--json') ? arg('json', '') : '';
+
+interface Detected {
+  station: string;
+  kind: string;
+  timeMs: number;
+  zoneHours: number;
+}
+type LoadFn = (paths: string[], opts?: { stationsFile?: string }) => Promise<{ series: StationSeries[] }> | { series: StationSeries[] };
+type DetectFn = (s: StationSeries) => Detected[];
+
+async function importOrExplain(): Promise<{ loadPaths: LoadFn; detectStation: DetectFn }> {
+  let loadPaths: LoadFn;
+  let detectStation: DetectFn;
+  try {
+    ({ loadPaths } = (await import('../src/ingest/load.js')) as unknown as { loadPaths: LoadFn });
+  } catch (e) {
+    throw new Error(`bench:skill needs src/ingest/load.ts (loadPaths), which could not be loaded: ${(e as Error).message}`);
+  }
+  try {
+    ({ detectStation } = (await import('../src/detect/detect.js')) as unknown as { detectStation: DetectFn });
+  } catch (e) {
+    throw new Error(`bench:skill needs src/detect/detect.ts (detectStation), which could not be loaded: ${(e as Error).message}`);
+  }
+  if (typeof loadPaths !== 'function') throw new Error('src/ingest/load.ts does not export loadPaths');
+  if (typeof detectStation !== 'function') throw new Error('src/detect/detect.ts does not export detectStation');
+  return { loadPaths, detectStation };
+}
+
+/** Invented benchmark network: 11 inland/coastal stations near 41–46° N plus one southern station. */
+function benchStations(): StationMeta[] {
+  const rows: [string, number, number, number, boolean?][] = [
+    ['QBAA', 45.6, -99.2, 520],
+    ['QBAB', 44.1, -98.6, 430],
+    ['QBAC', 42.7, -99.0, 610],
+    ['QBAD', 41.3, -98.1, 560],
+    ['QBAE', 45.2, -96.9, 350],
+    ['QBAF', 43.6, -96.5, 400],
+    ['QBAG', 42.1, -96.2, 340],
+    ['QBAH', 44.8, -94.6, 300],
+    ['QBAI', 43.1, -94.1, 330],
+    ['QBAJ', 41.6, -93.7, 280],
+    ['QBAK', 44.0, -92.3, 190, true],
+    ['QBSA', -36.4, 146.2, 160],
+  ];
+  return rows.map(([id, lat, lon, el, coastal]) => ({
+    id,
+    aliases: [id.slice(1)],
+    name: `Bench ${id}`,
+    latDeg: lat,
+    lonDeg: lon,
+    elevationM: el,
+    coastal: coastal ?? false,
+    seaBearingDeg: coastal ? 80 : undefined,
+  }));
+}
+
+const FRONT_KINDS = new Set(['cold-front', 'warm-front', 'occluded-front']);
+const REAL_KINDS = new Set(['cold-front', 'warm-front', 'occluded-front', 'dryline']);
+
+interface Scores {
+  detections: number;
+  cold: Contingency & { pod: number; far: number; csi: number };
+  warm: Contingency & { pod: number; far: number; csi: number };
+  matched: number;
+  kindAccuracy: number;
+  timingMedianMin: number;
+  timingP90Min: number;
+  zoneHoursMedianAbsErr: number;
+  decoysCalledFront: Record<string, { n: number; called: number; pct: number }>;
+}
+
+function score(truth: readonly TruthEvent[], det: readonly Detected[]): Scores {
+  const real = truth.filter((e) => !e.isDecoy && REAL_KINDS.has(e.kind));
+  const decoys = truth.filter((e) => e.isDecoy);
+  const m = matchOneToOne(real, det, 3 * HOUR);
+  const tk = real.map((e) => e.kind as string);
+  const dk = det.map((d) => d.kind);
+  const withScores = (c: Contingency) => ({ ...c, pod: pod(c), far: far(c), csi: csi(c) });
+  const cold = withScores(contingencyForKind(tk, dk, m, 'cold-front'));
+  const warm = withScores(contingencyForKind(tk, dk, m, 'warm-front'));
+  let right = 0;
+  const timing: number[] = [];
+  const zoneErr: number[] = [];
+  for (const [i, j] of m.pairs) {
+    const t = real[i]!;
+    const d = det[j]!;
+    if (t.kind === d.kind) right++;
+    if (t.kind === 'cold-front' || t.kind === 'warm-front') {
+      timing.push(Math.abs(d.timeMs - t.timeMs) / 60000);
+      if (t.zoneEndMs !== undefined && Number.isFinite(d.zoneHours)) zoneErr.push(Math.abs(d.zoneHours - (t.zoneEndMs - t.timeMs) / HOUR));
+    }
+  }
+  const free = m.unmatchedDetections.map((j) => det[j]!).filter((d) => FRONT_KINDS.has(d.kind));
+  const decoysCalledFront: Scores['decoysCalledFront'] = {};
+  for (const e of decoys) {
+    const r = (decoysCalledFront[e.kind] ??= { n: 0, called: 0, pct: NaN });
+    r.n++;
+    const a = e.zoneEndMs !== undefined ? e.timeMs - HOUR : e.timeMs - 3 * HOUR;
+    const b = e.zoneEndMs !== undefined ? e.zoneEndMs + HOUR : e.timeMs + 3 * HOUR;
+    if (free.some((d) => d.station === e.station && d.timeMs >= a && d.timeMs <= b)) r.called++;
+  }
+  for (const r of Object.values(decoysCalledFront)) r.pct = (100 * r.called) / r.n;
+  return {
+    detections: det.length,
+    cold,
+    warm,
+    matched: m.pairs.length,
+    kindAccuracy: m.pairs.length ? right / m.pairs.length : NaN,
+    timingMedianMin: quantile(timing, 0.5),
+    timingP90Min: quantile(timing, 0.9),
+    zoneHoursMedianAbsErr: quantile(zoneErr, 0.5),
+    decoysCalledFront,
+  };
+}
+
+async function main(): Promise<void> {
+  const { loadPaths, detectStation } = await importOrExplain();
+  const stations = benchStations();
+  const startMs = Date.UTC(2026, 2, 1);
+  const endMs = startMs + days * 24 * HOUR;
+  const t0 = Date.now();
+  const net = generateNetwork(
+    {
+      stations,
+      startMs,
+      endMs,
+      events: { occluded: 2, prefrontalTroughs: 4, drylines: 2, outflows: 3, seaBreezeDays: 8, calmNights: 8 },
+      faults: { gaps: 6, stuck: 2, spikes: 8 },
+    },
+    seed,
+  );
+  const genMs = Date.now() - t0;
+  const dir = mkdtempSync(join(tmpdir(), 'fropa-skill-'));
+  const csvDir = join(dir, 'csv5');
+  const metarDir = join(dir, 'metar');
+  mkdirSync(csvDir);
+  mkdirSync(metarDir);
+  const stationsCsv =
+    'id,alias,name,lat,lon,elevation_m,coastal,sea_bearing_deg\n' +
+    stations.map((s) => [s.id, s.aliases[0], s.name, s.latDeg, s.lonDeg, s.elevationM, s.coastal ? 'yes' : 'no', s.seaBearingDeg ?? ''].join(',')).join('\n') +
+    '\n';
+  const stationsFile = join(dir, 'stations.csv');
+  writeFileSync(stationsFile, stationsCsv);
+  const conventions: CsvConvention[] = ['iem', 'metric', 'local-offset'];
+  stations.forEach((s, k) => {
+    const series = net.obs.get(s.id)!;
+    const conv = conventions[k % conventions.length]!;
+    const zone = s.latDeg < 0 ? 'Australia/Melbourne' : 'America/Chicago';
+    writeFileSync(join(csvDir, `${s.id}.csv`), toCsvText(series, s, conv, { zone, duplicates: 2, badLines: 2, seed: seed + k }));
+    writeFileSync(join(metarDir, `${s.id}.metar.txt`), toMetarLines(series, s, { truth: net.truth, duplicates: 2, badLines: 2, seed: seed + k }).join('\n') + '\n');
+  });
+
+  const truth = net.truth;
+  const count = (pred: (e: TruthEvent) => boolean) => truth.filter(pred).length;
+  console.log(`fropa skill benchmark — seed ${seed}, ${days} days, ${stations.length} stations (generated in ${genMs} ms)`);
+  console.log(
+    `planted: cold ${count((e) => e.kind === 'cold-front')}, warm ${count((e) => e.kind === 'warm-front')}, occluded ${count((e) => e.kind === 'occluded-front')}, dryline ${count((e) => e.kind === 'dryline')}; decoys: ` +
+      ['night-cooling', 'outflow-boundary', 'sea-breeze-front', 'prefrontal-trough', 'dryline-retreat'].map((k) => `${k} ${count((e) => e.kind === k)}`).join(', ') +
+      `; faults ${net.faults.length}`,
+  );
+
+  const results: Record<string, Record<string, Scores>> = {};
+  for (const [label, path] of [
+    ['5-min CSV', csvDir],
+    ['hourly METAR', metarDir],
+  ] as const) {
+    const t1 = Date.now();
+    const loaded = await loadPaths([path], { stationsFile });
+    const tLoad = Date.now() - t1;
+    const fropaDet: Detected[] = [];
+    const naiveDet: Detected[] = [];
+    const t2 = Date.now();
+    for (const s of loaded.series) fropaDet.push(...detectStation(s));
+    const tDet = Date.now() - t2;
+    for (const s of loaded.series) naiveDet.push(...naiveDetect(s));
+    const known = new Set(stations.map((s) => s.id));
+    const unknown = loaded.series.filter((s) => !known.has(s.station)).map((s) => s.station);
+    if (unknown.length) console.log(`  note: series with unexpected station ids in ${label}: ${unknown.join(', ')}`);
+    console.log(`  ${label}: ${loaded.series.length} series, load ${tLoad} ms, detect ${tDet} ms`);
+    results[label] = { fropa: score(truth, fropaDet), naive: score(truth, naiveDet) };
+  }
+  rmSync(dir, { recursive: true, force: true });
+
+  const f2 = (x: number) => (Number.isNaN(x) ? '  —  ' : x.toFixed(2));
+  const f0 = (x: number) => (Number.isNaN(x) ? '  —' : x.toFixed(0));
+  const rows: [string, (s: Scores) => string, (label: string) => string][] = [
+    ['cold-front POD', (s) => f2(s.cold.pod), () => '≥ 0.95'],
+    ['cold-front FAR', (s) => f2(s.cold.far), () => '≤ 0.05'],
+    ['cold-front CSI', (s) => f2(s.cold.csi), () => ''],
+    ['cold hits/miss/FA', (s) => `${s.cold.hits}/${s.cold.misses}/${s.cold.falseAlarms}`, () => ''],
+    ['warm-front POD', (s) => f2(s.warm.pod), () => '≥ 0.80'],
+    ['warm-front FAR', (s) => f2(s.warm.far), () => ''],
+    ['warm-front CSI', (s) => f2(s.warm.csi), () => ''],
+    ['warm hits/miss/FA', (s) => `${s.warm.hits}/${s.warm.misses}/${s.warm.falseAlarms}`, () => ''],
+    ['kind accuracy', (s) => f2(s.kindAccuracy), () => ''],
+    ['timing median (min)', (s) => f0(s.timingMedianMin), (l) => (l.startsWith('5') ? '≤ 15' : '≤ 30')],
+    ['timing p90 (min)', (s) => f0(s.timingP90Min), () => ''],
+    ['zone hours |err| med', (s) => f2(s.zoneHoursMedianAbsErr), () => ''],
+    ['detections', (s) => String(s.detections), () => ''],
+  ];
+  const decoyKinds = ['night-cooling', 'outflow-boundary', 'sea-breeze-front', 'prefrontal-trough', 'dryline-retreat'];
+  for (const k of decoyKinds) rows.push([`decoy ${k} → front %`, (s) => (s.decoysCalledFront[k] ? `${s.decoysCalledFront[k]!.pct.toFixed(0)} (${s.decoysCalledFront[k]!.called}/${s.decoysCalledFront[k]!.n})` : '—'), () => '≤ 3']);
+  for (const label of Object.keys(results)) {
+    const r = results[label]!;
+    console.log(`\n${label}`);
+    console.log(`${'metric'.padEnd(28)}${'fropa'.padStart(14)}${'naive'.padStart(14)}${'target'.padStart(10)}`);
+    for (const [name, get, target] of rows) console.log(`${name.padEnd(28)}${get(r.fropa!).padStart(14)}${get(r.naive!).padStart(14)}${target(label).padStart(10)}`);
+  }
+  const json = JSON.stringify({ seed, days, stations: stations.length, results }, (_k, v) => (typeof v === 'number' && Number.isNaN(v) ? null : v), 2);
+  if (jsonOut) {
+    writeFileSync(jsonOut, json + '\n');
+    console.log(`\nfigures written to ${jsonOut}`);
+  } else console.log('\n' + json);
+}
+
+main().catch((e: unknown) => {
+  console.error(`bench:skill failed: ${(e as Error).message}`);
+  process.exitCode = 1;
+});
