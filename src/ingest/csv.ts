@@ -199,6 +199,39 @@ function isSentinel(v: number, kind: number): boolean {
   }
 }
 
+const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
+
+/**
+ * Decimal text → number without allocation for the common `[-]digits[.digits]` form, falling back to
+ * `Number()` otherwise (NaN for non-numbers, as `+text`). With at most 15 significant digits the mantissa
+ * and the power of ten are exact doubles, so mantissa / 10^k is correctly rounded: the same value `Number()` gives.
+ */
+export function decimalValue(raw: string): number {
+  const n = raw.length;
+  let i = 0;
+  let neg = false;
+  let c = raw.charCodeAt(0);
+  if (c === 45) {
+    neg = true;
+    i = 1;
+  }
+  let mant = 0;
+  let digits = 0;
+  let frac = -1;
+  for (; i < n; i++) {
+    c = raw.charCodeAt(i);
+    if (c >= 48 && c <= 57) {
+      mant = mant * 10 + (c - 48);
+      digits++;
+      if (frac >= 0) frac++;
+    } else if (c === 46 && frac < 0) frac = 0;
+    else return +raw;
+  }
+  if (digits === 0 || digits > 15) return +raw;
+  const v = frac > 0 ? mant / POW10[frac]! : mant;
+  return neg ? -v : v;
+}
+
 interface Counter {
   count: number;
   line: number;
@@ -453,7 +486,7 @@ export class CsvCore {
     if (c === undefined) return NaN;
     const raw = fields[c.index];
     if (raw === undefined || raw.length === 0) return NaN;
-    let v = +raw;
+    let v = decimalValue(raw);
     if (v !== v) {
       v = this.slowValue(raw, c, line);
       if (v !== v) return NaN;

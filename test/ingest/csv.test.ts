@@ -4,7 +4,8 @@ import { existsSync, readFileSync } from 'node:fs';
 import { Readable } from 'node:stream';
 import { fileURLToPath } from 'node:url';
 import { assertClose } from '../helpers/assert.js';
-import { readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
+import fc from 'fast-check';
+import { decimalValue, readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
 import { parseColumnOverride } from '../../src/ingest/columns.js';
 import { WX, type Observation } from '../../src/ingest/types.js';
 
@@ -229,6 +230,18 @@ test('weatherFlagsFromCodes() reads METAR weather groups', () => {
   assert.is(weatherFlagsFromCodes('M'), 0);
 });
 
+// Reference: the JavaScript Number() conversion (ECMA-262 StringToNumber), which rounds correctly.
+test('decimalValue() equals Number() for decimal texts (property test)', () => {
+  fc.assert(
+    fc.property(fc.boolean(), fc.stringMatching(/^[0-9]{1,12}$/), fc.stringMatching(/^[0-9]{0,8}$/), (neg, a, b) => {
+      const text = `${neg ? '-' : ''}${a}${b ? '.' + b : ''}`;
+      return Object.is(decimalValue(text), Number(text));
+    }),
+    { numRuns: 3000 },
+  );
+  for (const t of ['1e3', ' 7.20', '0x10', '.5', '5.', '-', 'M', '', '12345678901234567']) assert.ok(Object.is(decimalValue(t), +t), t);
+});
+
 test('readCsvStream() gives the same observations as readCsvText()', async () => {
   const text = IEM + IEM.split('\n').slice(1).join('\n');
   const viaText = readCsvText(text, 'iem.csv', {});
@@ -236,6 +249,13 @@ test('readCsvStream() gives the same observations as readCsvText()', async () =>
   const res = await readCsvStream(Readable.from([text.slice(0, 100), text.slice(100)]), 'iem.csv', {}, (o) => got.push(o));
   assert.equal(got, viaText.observations);
   assert.equal(res.report, viaText.report);
+});
+
+test('readCsvStream() reports empty and binary streams', async () => {
+  const empty = await readCsvStream(Readable.from([]), 'e.csv', {}, () => {});
+  assert.equal(empty.report.rejectedByReason, { empty: 1 });
+  const bin = await readCsvStream(Readable.from(['abc\u0000def,x\n1,2\n']), 'b.csv', {}, () => {});
+  assert.equal(bin.report.rejectedByReason, { binary: 1 });
 });
 
 // Real files (see the realdata README beside the repository): every line parsed, counts as observed.
