@@ -24,6 +24,9 @@ const last = <T>(v: T | T[]): T => (Array.isArray(v) ? v[v.length - 1]! : v);
 /** All values of a repeatable option. */
 const all = (v: unknown): string[] => (v === undefined ? [] : (Array.isArray(v) ? v : [v]).map(String));
 
+/** Stands for a `-` path between runCli and inputArgs (yargs would drop a lone `-`). */
+export const STDIN_TOKEN = '\u0000stdin';
+
 /** Arguments shared by inspect and detect, after yargs. */
 export interface InputArgs {
   paths: string[];
@@ -58,8 +61,10 @@ export function withInputOptions<T>(y: Argv<T>) {
 
 /** Normalise the repeatable options yargs may give as a string, an array or undefined. */
 export function inputArgs(a: Record<string, unknown>): InputArgs {
+  const paths = all(a.paths).map((p) => (p === STDIN_TOKEN ? '-' : p));
+  if (paths.length === 0) throw new ArgumentError('name at least one file or folder to read (- for standard input)');
   return {
-    paths: all(a.paths),
+    paths,
     stations: a.stations as string | undefined,
     month: a.month as string | undefined,
     tz: a.tz as string | undefined,

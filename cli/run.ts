@@ -8,7 +8,7 @@ import { readFileSync } from 'node:fs';
 import yargs from 'yargs';
 import { BOUNDARY_KINDS } from '../src/detect/types.js';
 import { CAUTION } from '../src/report/caution.js';
-import { withInputOptions, type CliIo } from './options.js';
+import { STDIN_TOKEN, withInputOptions, type CliIo } from './options.js';
 
 export type { CliIo } from './options.js';
 
@@ -113,7 +113,9 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     let selected: Selected | null = null;
     const { output } = await new Promise<{ output: string }>((resolve, reject) => {
       try {
-        parser((s) => (selected = s)).parse([...argv], {}, (err, _a, out) => (err ? reject(err) : resolve({ output: out })));
+        // yargs drops a lone `-` from positionals; carry it through as a token that inputArgs turns back.
+        const args = argv.map((a) => (a === '-' ? STDIN_TOKEN : a));
+        parser((s) => (selected = s)).parse(args, {}, (err, _a, out) => (err ? reject(err) : resolve({ output: out })));
       } catch (e) {
         reject(e);
       }
@@ -126,7 +128,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));
     const usage = err.name === 'UsageError';
-    io.stderr(`fropa: ${err.message}\n`);
+    io.stderr(`fropa: ${err.message.split(STDIN_TOKEN).join('-')}\n`);
     if ((err as { fromParser?: boolean }).fromParser) io.stderr('Run fropa --help (or fropa <command> --help) for usage.\n');
     if (verbose && err.stack) io.stderr(err.stack + '\n');
     if (verbose && err.cause instanceof Error && err.cause.stack) io.stderr('caused by: ' + err.cause.stack + '\n');

@@ -118,8 +118,9 @@ export function inspectToTable(files: readonly InspectFile[], maxIssues = 5): st
     row('lines', `${f.lines} (parsed ${f.parsed}, rejected ${f.rejected})`);
     if (f.rejected > 0) {
       row('rejected', counts(f.rejected_by_reason));
-      for (const i of f.issues.slice(0, maxIssues)) more(issueLine(i));
-      if (f.rejected > Math.min(maxIssues, f.issues.length)) more(`… ${f.rejected - Math.min(maxIssues, f.issues.length)} more`);
+      const shown = f.issues.slice(0, maxIssues);
+      for (const i of shown) more(issueLine(i));
+      if (shown.length > 0 && f.rejected > shown.length) more(`… ${f.rejected - shown.length} more`);
     }
     const units = Object.entries(f.units).map(([k, u]) => `${k} ${u}`);
     if (units.length) row('units', units.join(', '));
