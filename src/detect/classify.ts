@@ -1,0 +1,129 @@
+/**
+ * Classification of a candidate from its measured features: scores per boundary kind from the
+ * signatures in the literature (cold front: Sanders1999, Schultz2005; dryline: Schaefer1986; outflow
+ * boundary: Wakimoto1982; sea-breeze front: Miller2003; wind shift: FMH-1 §5.4.6), with the criteria
+ * that held and failed written as evidence. Thresholds are common practice, no source.
+ */
+import type { StationMeta } from '../ingest/types.js';
+import type { BoundaryKind } from './types.js';
+import type { Features } from './features.js';
+import { angularDifferenceDeg } from '../physics/wind.js';
+
+export interface Classification {
+  kind: BoundaryKind;
+  confidence: number;
+  evidence: string[];
+  /** Score of every kind, for diagnostics. */
+  scores: Record<BoundaryKind, number>;
+}
+
+/** Linear ramp 0 → 1 as x goes from a to b (either order). NaN → 0. */
+export function ramp(x: number, a: number, b: number): number {
+  if (Number.isNaN(x)) return 0;
+  const t = (x - a) / (b - a);
+  return t <= 0 ? 0 : t >= 1 ? 1 : t;
+}
+
+const f1 = (x: number) => (Number.isNaN(x) ? 'n/a' : x.toFixed(1));
+const f0 = (x: number) => (Number.isNaN(x) ? 'n/a' : x.toFixed(0));
+
+/**
+ * Score each kind in [0, 1] and pick the best. `hemisphere` is +1 north, −1 south: a cold front veers
+ * in the north and backs in the south, so turns are compared after multiplying by it.
+ */
+export function classify(f: Features, meta: StationMeta | undefined, hemisphere: 1 | -1): Classification {
+  const turn = f.turnDeg * hemisphere; // + = the cold-front sense for this hemisphere
+  const absTurn = Math.abs(f.turnDeg);
+  const dT = f.tempAdjChangeC;
+  const dTd = f.dewpointChangeC;
+  const dTh = f.thetaEChangeK;
+  const trough = Math.min(ramp(-f.pressureFallBeforeHpa, 0.2, 1.0), ramp(f.pressureRiseAfterHpa, 0.3, 1.5));
+  const riseAfter = ramp(f.pressureRise3hHpa, 0.3, 2.0);
+  const windy = ramp(Math.min(f.speedBeforeMs, f.speedAfterMs), 1.0, 3.0);
+  const veer = ramp(turn, 15, 50) * windy;
+  const anyTurn = ramp(absTurn, 25, 60) * windy;
+  const cooling = ramp(-dT, 1.0, 4.0);
+  const warming = ramp(dT, 1.0, 3.5);
+  const drying = Math.max(ramp(-dTh, 1.5, 6), ramp(-dTd, 1.0, 4.0));
+  const moistening = Math.max(ramp(dTd, 0.5, 3.0), ramp(dTh, 1.5, 6));
+  const abrupt = ramp(-f.abruptChangeC, 1.5, 4.0);
+  const recovers = ramp(f.recoveryFraction, 0.25, 0.6);
+  const jump = ramp(f.pressureJumpHpa, 0.6, 2.0);
+  const gusty = ramp(f.gustMaxMs, 10, 18);
+  const daytime = Number.isNaN(f.solarHour) ? 0.5 : f.solarHour >= 9.5 && f.solarHour <= 18.5 ? 1 : 0;
+  const levelT = ramp(dT, -2.5, -0.5);
+  const dryline = ramp(-f.dewpointDropMaxC, 4, 8) * levelT * (daytime ? 1 : 0.3) * (1 - 0.7 * trough);
+  let onshore = 0;
+  if (meta?.coastal && meta.seaBearingDeg !== undefined && !Number.isNaN(f.windAfterDeg)) {
+    onshore = ramp(-angularDifferenceDeg(f.windAfterDeg, meta.seaBearingDeg), -75, -40);
+  }
+  const seaBreeze = (meta?.coastal ? 1 : 0) * daytime * onshore * anyTurn * ramp(-dT, 0.3, 1.5) * ramp(dTd, -1.5, 0) * ramp(f.solarHour, 8.5, 10.5) * (1 - ramp(f.solarHour, 16.5, 18.5)) * (1 - trough);
+  const windBack = anyTurn > 0.5 ? ramp(-f.windReturnDeg, -60, -30) : 0;
+  const mesohighDecay = ramp(-f.pressureFallAfterPeakHpa, 0.5, 1.5) * jump;
+  const outflow = abrupt * Math.max(recovers, windBack, mesohighDecay) * Math.max(jump, gusty, f.convectiveNear ? 1 : 0) * (1 - 0.5 * trough);
+  const fallingAfter = ramp(-f.pressureRise3hHpa, 0.5, 2.0);
+
+  // Cold front: cooling that lasts, with evidence beyond temperature (turn, trough/rise, drying).
+  const beyond = Math.max(veer, trough, riseAfter * 0.8, drying * 0.8);
+  const cold = cooling * (0.35 + 0.65 * beyond) * (0.55 + 0.25 * veer + 0.2 * Math.max(trough, riseAfter)) * (1 - 0.8 * recovers) * (0.7 + 0.3 * drying) * (1 - 0.6 * fallingAfter);
+  const warmVeer = ramp(turn, 5, 40) * windy;
+  // Warm fronts come with cloud and rain that damp the diurnal cycle, so the observed rise counts too.
+  const cloudy = ramp(f.depressionBeforeC, 4, 1);
+  const warmingAny = Math.max(ramp(dT, 1.5, 3.5), 0.8 * cloudy * ramp(f.tempChangeC, 1.5, 3.5));
+  const pressureFalling = ramp(-f.pressureFallBeforeHpa, 0.5, 2.0) * (1 - riseAfter);
+  // Warm air arrives on a wind from the equatorward side: southerly in the north, northerly in the south.
+  const towardPoleDeg = hemisphere === 1 ? 180 : 0;
+  const equatorward = Number.isNaN(f.windAfterDeg) ? 0.5 : ramp(-angularDifferenceDeg(f.windAfterDeg, towardPoleDeg), -110, -60);
+  const warmMoist = Math.min(ramp(dTd, 1.0, 3.0), ramp(dTh, 2, 6) + 0.3);
+  const warm = warmingAny * warmMoist * Math.max(warmVeer, pressureFalling) * (0.4 + 0.6 * equatorward);
+  const occluded = ramp(absTurn, 30, 60) * windy * trough * (1 - cooling) * (1 - warming) * 0.9;
+  const shift = anyTurn * 0.6;
+
+  const scores: Record<BoundaryKind, number> = {
+    'cold-front': cold,
+    'warm-front': warm,
+    'occluded-front': occluded,
+    dryline,
+    'outflow-boundary': outflow,
+    'sea-breeze-front': seaBreeze,
+    'wind-shift': shift,
+  };
+  // Specific decoys beat the general kinds when they fit at least as well.
+  // A plain wind shift is the fallback: a boundary kind that fits reasonably wins over it.
+  let kind: BoundaryKind = 'wind-shift';
+  let best = -1;
+  for (const k of Object.keys(scores) as BoundaryKind[]) {
+    if (k !== 'wind-shift' && scores[k] > best) {
+      best = scores[k];
+      kind = k;
+    }
+  }
+  if (best < 0.35 && shift > best) kind = 'wind-shift';
+  if (outflow >= 0.35 && outflow >= 0.7 * cold) kind = 'outflow-boundary';
+  if (seaBreeze >= 0.35 && seaBreeze >= 0.6 * cold) kind = 'sea-breeze-front';
+  if (dryline >= 0.4 && dryline >= 0.7 * cold) kind = 'dryline';
+  const confidence = Math.max(0, Math.min(1, scores[kind]));
+
+  const ev: string[] = [];
+  const say = (ok: boolean, text: string) => ev.push(`${ok ? '+' : '−'} ${text}`);
+  const sense = hemisphere === 1 ? 'veer' : 'back';
+  say(
+    veer > 0.5,
+    Number.isNaN(f.turnDeg)
+      ? 'no wind turn measurable (calm or missing wind)'
+      : `wind ${f0(f.windBeforeDeg)}° → ${f0(f.windAfterDeg)}° (${f.turnDeg >= 0 ? 'veering' : 'backing'} ${f0(Math.abs(f.turnDeg))}°; a cold front ${sense}s in this hemisphere)`,
+  );
+  say(cooling > 0.5 || warming > 0.5, `temperature ${f1(f.tempChangeC)} °C observed, ${f1(dT)} °C after removing the expected diurnal change`);
+  say(kind === 'warm-front' ? moistening > 0.5 : drying > 0.5, `dew point ${f1(dTd)} °C, θe ${f1(dTh)} K`);
+  say(trough > 0.5, `pressure ${f1(f.pressureFallBeforeHpa)} hPa in 3 h to the minimum, ${f1(f.pressureRiseAfterHpa)} hPa in 3 h after`);
+  if (jump > 0.5) say(true, `pressure jump ${f1(f.pressureJumpHpa)} hPa within 30 min`);
+  if (abrupt > 0.5) say(true, `abrupt fall ${f1(f.abruptChangeC)} °C within 30 min`);
+  if (windBack > 0.5) say(kind !== 'cold-front', `wind back within ${f0(f.windReturnDeg)}° of its earlier direction 1.5–3 h later`);
+  if (fallingAfter > 0.5) say(kind !== 'cold-front', `pressure falls ${f1(-f.pressureRise3hHpa)} hPa in the 3 h after`);
+  if (f.recoveryFraction > 0.25) say(kind !== 'cold-front', `temperature recovers ${f0(100 * f.recoveryFraction)} % within 3 h`);
+  if (gusty > 0.5) say(true, `gusts to ${f1(f.gustMaxMs)} m/s`);
+  if (kind === 'dryline') say(true, `dew point falls ${f1(-f.dewpointDropMaxC)} °C within 3 h while temperature holds, by day`);
+  if (kind === 'sea-breeze-front') say(true, `coastal station, onshore wind after the turn, local solar hour ${f1(f.solarHour)}`);
+  if (cooling > 0.5 && beyond < 0.3) say(false, 'no evidence beyond temperature (no turn, no trough, no drying): likely diurnal or local cooling');
+  return { kind, confidence, evidence: ev, scores };
+}

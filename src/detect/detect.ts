@@ -1,0 +1,221 @@
+/**
+ * Detection of boundary passages at one station:
+ * 1. put the QC-clean series on a regular grid (grid.ts), diurnally adjusting temperature;
+ * 2. find change points with PELT [Killick2012] in the wind (u and v together), the adjusted
+ *    temperature, the dew point, θe and pressure (piecewise-linear cost: troughs are kinks);
+ * 3. measure each change point's surroundings (features.ts) and classify it (classify.ts);
+ * 4. keep the strongest candidate within ±3 h, time it on the raw reports (timing.ts), re-measure at
+ *    that time, and add the transition zone, zone depth and observer remarks.
+ */
+import type { StationSeries } from '../series/series.js';
+import { medianCadenceMinutes } from '../series/series.js';
+import { pelt, peltMulti } from '../signal/pelt.js';
+import { buildGrid, type DetectGrid } from './grid.js';
+import { measure, rawColumns, type Features, type RawColumns } from './features.js';
+import { classify, type Classification } from './classify.js';
+import { changeStart, windSplit, type SplitTime } from './timing.js';
+import { runningMean, meanIn } from './window.js';
+import type { DetectOptions, PassageEvent } from './types.js';
+
+const HOUR = 3_600_000;
+/** Candidates closer than this are one passage (the strongest is kept). common practice, no source. */
+const SUPPRESS_MS = 3 * HOUR;
+/** Default confidence floor. */
+export const DEFAULT_MIN_CONFIDENCE = 0.3;
+
+interface Candidate {
+  index: number;
+  f: Features;
+  c: Classification;
+  timing?: SplitTime;
+  prefrontalShiftMs?: number;
+}
+
+/** Change-point indices on the grid from every channel, sorted and de-duplicated. */
+export function changePointCandidates(g: DetectGrid): number[] {
+  const perH = HOUR / g.stepMs;
+  const minSegment = Math.max(2, Math.round(perH / 2));
+  const maxSegment = Math.round(72 * perH);
+  const set = new Set<number>();
+  const add = (cps: ArrayLike<number>) => {
+    for (let i = 0; i < cps.length; i++) set.add(cps[i]!);
+  };
+  const opts = { minSegment, maxSegment, penalty: 'mbic' as const };
+  add(peltMulti([g.uMs, g.vMs], { ...opts, cost: 'mean' }).changePoints);
+  add(pelt(g.tAdjC, { ...opts, cost: 'mean' }).changePoints);
+  add(pelt(g.tdC, { ...opts, cost: 'mean' }).changePoints);
+  add(pelt(g.thetaEK, { ...opts, cost: 'mean' }).changePoints);
+  if (g.pressureKind !== 'none') add(pelt(g.pHpa, { ...opts, cost: 'linear', minSegment: Math.max(3, minSegment) }).changePoints);
+  return [...set].sort((a, b) => a - b);
+}
+
+/** Nearest grid index to a time. */
+function gridIndex(g: DetectGrid, tMs: number): number {
+  return Math.max(0, Math.min(g.n - 1, Math.round((tMs - g.timeMs[0]!) / g.stepMs)));
+}
+
+/** Detect every boundary passage at one station. Pure: same series and options → same events. */
+export function detectStation(series: StationSeries, opts: DetectOptions = {}): PassageEvent[] {
+  const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
+  const cadence = medianCadenceMinutes(series.timeMs);
+  const g = buildGrid(series, cadence);
+  if (!g) return [];
+  const hemisphere: 1 | -1 = (series.meta?.latDeg ?? 1) < 0 ? -1 : 1;
+  const raw = rawColumns(series);
+  const perH = HOUR / g.stepMs;
+  const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
+  const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
+
+  const evaluate = (i: number): Candidate => {
+    const f = measure(g, series, raw, i, tSmooth, tRawSmooth);
+    return { index: i, f, c: classify(f, series.meta, hemisphere) };
+  };
+  // 1–3: candidates from change points, measured and classified.
+  const cands = changePointCandidates(g)
+    .map(evaluate)
+    .filter((c) => c.c.confidence >= minConfidence * 0.8);
+  // 4: strongest first, suppress neighbours.
+  cands.sort((a, b) => b.c.confidence - a.c.confidence || a.index - b.index);
+  const kept: Candidate[] = [];
+  for (const c of cands) {
+    if (kept.some((k) => Math.abs(k.f.timeMs - c.f.timeMs) < SUPPRESS_MS)) continue;
+    kept.push(c);
+  }
+  // Time each on the raw reports, then re-measure there.
+  const events: PassageEvent[] = [];
+  for (const c0 of kept) {
+    const c = retime(c0, g, series, raw, evaluate);
+    if (c.c.confidence < minConfidence) continue;
+    events.push(toEvent(series, c, opts));
+  }
+  const out = suppressAfterTiming(events);
+  attachRemarks(series, out);
+  return out;
+}
+
+/**
+ * After timing, candidates can meet: keep the stronger of two within 2 h; drop a thermal event that lies
+ * inside the transition zone of a stronger one of the same sign; drop a second cold front within 9 h
+ * behind a stronger one unless it has its own veer and pressure trough (continued cold advection is not
+ * a new front). Rules: common practice, no source.
+ */
+export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
+  const byStrength = events.slice().sort((a, b) => b.confidence - a.confidence || a.timeMs - b.timeMs);
+  const kept: PassageEvent[] = [];
+  const thermalSign = (e: PassageEvent) => (e.kind === 'cold-front' || e.kind === 'outflow-boundary' ? -1 : e.kind === 'warm-front' ? 1 : 0);
+  for (const e of byStrength) {
+    const clash = kept.some((k) => {
+      if (Math.abs(k.timeMs - e.timeMs) < 2 * HOUR) return true;
+      const sameSign = k.kind === e.kind && thermalSign(k) !== 0;
+      if (sameSign && e.timeMs > k.timeMs && e.timeMs <= (Number.isNaN(k.zoneEndMs) ? k.timeMs : k.zoneEndMs) + HOUR) return true;
+      if (k.kind === 'cold-front' && e.kind === 'cold-front' && e.timeMs > k.timeMs && e.timeMs - k.timeMs < 9 * HOUR) {
+        return !(e.windTurnDeg * Math.sign(k.windTurnDeg || 1) >= 30 && e.pressureRise3hHpa > 0.5);
+      }
+      return false;
+    });
+    if (!clash) kept.push(e);
+  }
+  return kept.sort((a, b) => a.timeMs - b.timeMs);
+}
+
+/** Place the leading edge on the raw reports (wind shift, or the start of the sharp change) and re-measure. */
+function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, evaluate: (i: number) => Candidate): Candidate {
+  const kind = c.c.kind;
+  const f = c.f;
+  const wind = windSplit(s.timeMs, raw, f.timeMs);
+  let start: SplitTime | null = null;
+  const thermal = kind === 'cold-front' || kind === 'warm-front' || kind === 'outflow-boundary' || kind === 'sea-breeze-front';
+  if (thermal && !Number.isNaN(f.zoneEndMs)) {
+    const level = meanIn(raw.tC, lowerIdx(s.timeMs, f.timeMs - 2 * HOUR), lowerIdx(s.timeMs, f.timeMs - 0.25 * HOUR));
+    start = changeStart(s.timeMs, raw.tC, Number.isNaN(level) ? meanIn(g.tC, f.index - HOUR / g.stepMs, f.index) : level, f.tempChangeC, f.timeMs - 3 * HOUR, f.zoneEndMs + 1);
+  } else if (kind === 'dryline') {
+    const level = meanIn(g.tdC, f.index - HOUR / g.stepMs, f.index + 1);
+    start = changeStart(s.timeMs, raw.tdC, level, f.dewpointDropMaxC, f.timeMs - 3 * HOUR, f.timeMs + 3 * HOUR);
+  }
+  let chosen: SplitTime | null = null;
+  let prefrontal: number | undefined;
+  if (wind && start) {
+    // A wind shift well ahead of the temperature change is a prefrontal trough (Schultz2005): time the front at the change.
+    if (kind === 'cold-front' && wind.timeMs < start.timeMs - 1.5 * HOUR) {
+      chosen = start;
+      prefrontal = wind.timeMs;
+    } else chosen = Math.abs(wind.timeMs - start.timeMs) <= 2 * HOUR ? wind : start;
+  } else chosen = wind ?? start;
+  if (!chosen) return c;
+  const i = gridIndex(g, chosen.timeMs);
+  const again = evaluate(i);
+  // Keep the re-measured classification unless it lost the passage altogether.
+  const better = again.c.confidence >= 0.7 * c.c.confidence ? again : { ...c };
+  better.timing = chosen;
+  if (prefrontal !== undefined) better.prefrontalShiftMs = prefrontal;
+  return better;
+}
+
+function lowerIdx(t: Float64Array, x: number): number {
+  let lo = 0;
+  let hi = t.length;
+  while (lo < hi) {
+    const m = (lo + hi) >> 1;
+    if (t[m]! < x) lo = m + 1;
+    else hi = m;
+  }
+  return lo;
+}
+
+function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEvent {
+  const f = c.f;
+  const timeMs = c.timing?.timeMs ?? f.timeMs;
+  const evidence = [...c.c.evidence];
+  if (c.prefrontalShiftMs !== undefined) {
+    evidence.push(`+ wind shift ${((timeMs - c.prefrontalShiftMs) / HOUR).toFixed(1)} h ahead of the temperature fall: prefrontal trough; the front is placed at the fall`);
+  }
+  const zoneEndMs = Math.max(f.zoneEndMs, timeMs);
+  const zoneHours = Number.isNaN(f.zoneEndMs) ? NaN : (zoneEndMs - timeMs) / HOUR;
+  const speed = opts.frontSpeedKmh;
+  const zoneDepthKm = speed !== undefined && speed > 0 && !Number.isNaN(zoneHours) ? zoneHours * speed : NaN;
+  const gradient = zoneDepthKm > 0 ? (Math.abs(f.tempChangeC) / zoneDepthKm) * 100 : NaN;
+  return {
+    station: s.station,
+    kind: c.c.kind,
+    timeMs,
+    timeEarliestMs: c.timing?.earliestMs ?? timeMs - 0.5 * HOUR,
+    timeLatestMs: c.timing?.latestMs ?? timeMs + 0.5 * HOUR,
+    confidence: Math.round(c.c.confidence * 100) / 100,
+    tempChangeC: f.tempChangeC,
+    dewpointChangeC: f.dewpointChangeC,
+    thetaEChangeK: f.thetaEChangeK,
+    pressureMinHpa: f.pressureMinHpa,
+    pressureMinTimeMs: f.pressureMinTimeMs,
+    pressureRise3hHpa: f.pressureRise3hHpa,
+    windBeforeDeg: f.windBeforeDeg,
+    windAfterDeg: f.windAfterDeg,
+    windTurnDeg: f.turnDeg,
+    windSpeedAfterMs: f.speedAfterMs,
+    gustMaxMs: f.gustMaxMs,
+    precipNear: f.precipNear,
+    zoneStartMs: timeMs,
+    zoneEndMs: Number.isNaN(f.zoneEndMs) ? NaN : zoneEndMs,
+    zoneHours,
+    zoneDepthKm,
+    gradientKPer100km: gradient,
+    observerFropaTimeMs: NaN,
+    evidence,
+  };
+}
+
+/**
+ * Observer remarks (WSHFT / FROPA) are reported beside the nearest detection within 3 h, never used to
+ * detect: FMH-1 remarks are labels for validation.
+ */
+function attachRemarks(s: StationSeries, events: PassageEvent[]): void {
+  for (const r of s.remarks) {
+    const t = Number.isNaN(r.shiftTimeMs) ? r.reportTimeMs : r.shiftTimeMs;
+    let best: PassageEvent | undefined;
+    for (const e of events) if (Math.abs(e.timeMs - t) <= 3 * HOUR && (!best || Math.abs(e.timeMs - t) < Math.abs(best.timeMs - t))) best = e;
+    if (!best) continue;
+    if (Number.isNaN(best.observerFropaTimeMs) || r.frontal) {
+      best.observerFropaTimeMs = t;
+      best.evidence.push(`observer remark ${r.label}${Number.isNaN(r.shiftTimeMs) ? '' : ' (shift began ' + new Date(r.shiftTimeMs).toISOString().slice(11, 16) + 'Z)'}`);
+    }
+  }
+}

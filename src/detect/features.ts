@@ -1,0 +1,211 @@
+/**
+ * Measurements around a candidate passage time on the detection grid: the quantities a forecaster
+ * looks at (wind before/after and its turn, temperature, dew point and θe change, pressure trough,
+ * jump and rise, gusts, precipitation, recovery) plus the transition zone.
+ */
+import type { StationSeries } from '../series/series.js';
+import { WX } from '../ingest/types.js';
+import { cleanColumn } from '../qc/qc.js';
+import { signedTurnDeg, windFromComponents } from '../physics/wind.js';
+import type { DetectGrid } from './grid.js';
+import { argExtremeIn, at, meanIn } from './window.js';
+
+const HOUR = 3_600_000;
+
+export interface Features {
+  /** Grid index of the anchor (leading edge estimate). */
+  index: number;
+  timeMs: number;
+  windBeforeDeg: number;
+  windAfterDeg: number;
+  speedBeforeMs: number;
+  speedAfterMs: number;
+  /** Signed turn, + veering. */
+  turnDeg: number;
+  /** Observed temperature change to the end of the zone (°C). */
+  tempChangeC: number;
+  /** Diurnally adjusted temperature change to the extreme within 6 h (°C). */
+  tempAdjChangeC: number;
+  /** Largest adjusted fall (negative) or rise within 30 min around the anchor. */
+  abruptChangeC: number;
+  /** Fraction of the adjusted temperature change undone within 3 h after the extreme. */
+  recoveryFraction: number;
+  dewpointChangeC: number;
+  /** Most negative dew-point change to any time within 3 h after (for drylines). */
+  dewpointDropMaxC: number;
+  thetaEChangeK: number;
+  pressureMinHpa: number;
+  pressureMinTimeMs: number;
+  /** Pressure change in the 3 h before the minimum (negative = falling ahead). */
+  pressureFallBeforeHpa: number;
+  /** Pressure change in the 3 h after the minimum. */
+  pressureRiseAfterHpa: number;
+  /** Pressure change from the anchor to 3 h after it. */
+  pressureRise3hHpa: number;
+  /** Largest 30-min pressure rise near the anchor (mesohigh jump). */
+  pressureJumpHpa: number;
+  gustMaxMs: number;
+  precipNear: boolean;
+  convectiveNear: boolean;
+  /** Local solar hour at the anchor (NaN without longitude). */
+  solarHour: number;
+  zoneEndMs: number;
+  zoneHours: number;
+  /** Mean dew-point depression in the hour before (°C): small under cloud and rain. */
+  depressionBeforeC: number;
+  /** Angle between the wind before and the mean wind 1.5–3 h after (small = the wind went back). */
+  windReturnDeg: number;
+  /** Pressure change from the highest value near the anchor to 2–3 h later (negative after a mesohigh). */
+  pressureFallAfterPeakHpa: number;
+}
+
+/** QC-clean raw columns used near each candidate (made once per station). */
+export interface RawColumns {
+  gust: Float64Array;
+  peak: Float64Array;
+  spd: Float64Array;
+  dir: Float64Array;
+  tC: Float64Array;
+  tdC: Float64Array;
+}
+
+export function rawColumns(s: StationSeries): RawColumns {
+  return {
+    gust: cleanColumn(s, 'gustMs'),
+    peak: cleanColumn(s, 'peakWindMs'),
+    spd: cleanColumn(s, 'windSpeedMs'),
+    dir: cleanColumn(s, 'windDirDeg'),
+    tC: cleanColumn(s, 'temperatureC'),
+    tdC: cleanColumn(s, 'dewpointC'),
+  };
+}
+
+/** Vector-mean wind over [lo, hi) grid indices. */
+function meanWind(g: DetectGrid, lo: number, hi: number): { dirDeg: number; speedMs: number; scalarSpeedMs: number } {
+  const u = meanIn(g.uMs, lo, hi);
+  const v = meanIn(g.vMs, lo, hi);
+  const w = windFromComponents(u, v);
+  return { dirDeg: w.dirDeg, speedMs: w.speedMs, scalarSpeedMs: meanIn(g.speedMs, lo, hi) };
+}
+
+/** Measure the features of a candidate at grid index i. `tSmooth` is the 30-min running mean of tAdjC. */
+export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: number, tSmooth: Float64Array, tRawSmooth: Float64Array): Features {
+  const perH = HOUR / g.stepMs;
+  const before = meanWind(g, i - 2 * perH, i - Math.max(1, perH / 6));
+  const after = meanWind(g, i + Math.max(1, perH / 3), i + 2 * perH);
+  const turnDeg = before.speedMs > 0.3 && after.speedMs > 0.3 ? signedTurnDeg(before.dirDeg, after.dirDeg) : NaN;
+
+  // Temperature: level in the hour before, then the extreme within 6 h in the direction of the 2–3.5 h change.
+  const tb = meanIn(g.tAdjC, i - perH, i + 1);
+  const tbRaw = meanIn(g.tC, i - perH, i + 1);
+  const later = meanIn(g.tAdjC, i + 1.5 * perH, i + 3 * perH) - tb;
+  const sign = later < 0 ? 1 : -1; // 1 → look for a minimum
+  const ext = argExtremeIn(tSmooth, i, i + 6 * perH + 1, sign);
+  const tempAdjChangeC = ext >= 0 ? tSmooth[ext]! - tb : NaN;
+  // Zone end: first time 90 % of that change is complete (Sanders-style leading edge to 90 %).
+  let zoneEnd = ext;
+  if (ext >= 0 && Math.abs(tempAdjChangeC) > 0) {
+    for (let k = i; k <= ext; k++) {
+      const d = tSmooth[k]! - tb;
+      if (d === d && d / tempAdjChangeC >= 0.9) {
+        zoneEnd = k;
+        break;
+      }
+    }
+  }
+  const tempChangeC = zoneEnd >= 0 ? at(tRawSmooth, zoneEnd) - tbRaw : NaN;
+  // Abrupt change within 30 min around the anchor.
+  let abrupt = 0;
+  const w30 = Math.max(1, Math.round(perH / 2));
+  for (let k = Math.max(0, i - w30); k <= i + perH && k + w30 < g.n; k++) {
+    const d = g.tAdjC[k + w30]! - g.tAdjC[k]!;
+    if (d === d && Math.abs(d) > Math.abs(abrupt) && Math.sign(d) === -sign) abrupt = d;
+  }
+  // Recovery within 3 h after the extreme.
+  let recoveryFraction = 0;
+  if (ext >= 0 && Math.abs(tempAdjChangeC) > 0.5) {
+    const rec = argExtremeIn(tSmooth, ext, ext + 3 * perH + 1, -sign);
+    if (rec >= 0) recoveryFraction = (tSmooth[rec]! - tSmooth[ext]!) / -tempAdjChangeC;
+  }
+  // Moisture.
+  const tdb = meanIn(g.tdC, i - perH, i + 1);
+  const dewpointChangeC = meanIn(g.tdC, i + 1 * perH, i + 3 * perH) - tdb;
+  const tdMinIdx = argExtremeIn(g.tdC, i, i + 3 * perH + 1, 1);
+  const dewpointDropMaxC = tdMinIdx >= 0 ? g.tdC[tdMinIdx]! - tdb : NaN;
+  const thetaEChangeK = meanIn(g.thetaEK, i + 1 * perH, i + 3 * perH) - meanIn(g.thetaEK, i - perH, i + 1);
+  // Pressure.
+  const pm = argExtremeIn(g.pHpa, i - 3 * perH, i + 1 * perH + 1, 1);
+  const pMin = pm >= 0 ? g.pHpa[pm]! : NaN;
+  const pressureFallBeforeHpa = pm >= 0 ? pMin - meanIn(g.pHpa, pm - 3.25 * perH, pm - 2.75 * perH) : NaN;
+  const pressureRiseAfterHpa = pm >= 0 ? meanIn(g.pHpa, pm + 2.75 * perH, pm + 3.25 * perH) - pMin : NaN;
+  const pressureRise3hHpa = meanIn(g.pHpa, i + 2.75 * perH, i + 3.25 * perH) - meanIn(g.pHpa, i - 0.25 * perH, i + 0.25 * perH);
+  let jump = 0;
+  for (let k = Math.max(0, i - w30); k <= i + perH && k + w30 < g.n; k++) {
+    const d = g.pHpa[k + w30]! - g.pHpa[k]!;
+    if (d === d && d > jump) jump = d;
+  }
+  const pPeak = argExtremeIn(g.pHpa, i - 0.5 * perH, i + perH + 1, -1);
+  const pressureFallAfterPeakHpa = pPeak >= 0 ? meanIn(g.pHpa, i + 2 * perH, i + 3 * perH) - g.pHpa[pPeak]! : NaN;
+  const back = meanWind(g, i + 1.5 * perH, i + 3 * perH);
+  const windReturnDeg = before.speedMs > 0.3 && back.speedMs > 0.3 ? Math.abs(signedTurnDeg(before.dirDeg, back.dirDeg)) : NaN;
+  // Raw reports near the anchor: gusts, precipitation, convection.
+  const tMs = g.timeMs[i]!;
+  const { gust, peak, spd } = raw;
+  let gustMax = NaN;
+  let precipNear = false;
+  let convectiveNear = false;
+  for (let k = lowerBound(s.timeMs, tMs - HOUR); k < s.length && s.timeMs[k]! <= tMs + 2 * HOUR; k++) {
+    const cand = Math.max(gust[k]! || 0, peak[k]! || 0, spd[k]! || 0);
+    if (cand > 0 && !(cand <= gustMax)) gustMax = cand;
+    if (Math.abs(s.timeMs[k]! - tMs) <= HOUR) {
+      if (s.weather[k]! & WX.PRECIP || s.precipMm[k]! > 0) precipNear = true;
+      if (s.weather[k]! & (WX.THUNDER | WX.CONVECTIVE | WX.HAIL | WX.SQUALL)) convectiveNear = true;
+    }
+  }
+  const lon = s.meta?.lonDeg;
+  const solarHour = lon === undefined || Number.isNaN(lon) ? NaN : (((tMs / HOUR + lon / 15) % 24) + 24) % 24;
+  const zoneEndMs = zoneEnd >= 0 ? g.timeMs[zoneEnd]! : NaN;
+  return {
+    index: i,
+    timeMs: tMs,
+    windBeforeDeg: before.dirDeg,
+    windAfterDeg: after.dirDeg,
+    speedBeforeMs: before.scalarSpeedMs,
+    speedAfterMs: after.scalarSpeedMs,
+    turnDeg,
+    tempChangeC,
+    tempAdjChangeC,
+    abruptChangeC: abrupt,
+    recoveryFraction,
+    dewpointChangeC,
+    dewpointDropMaxC,
+    thetaEChangeK,
+    pressureMinHpa: pMin,
+    pressureMinTimeMs: pm >= 0 ? g.timeMs[pm]! : NaN,
+    pressureFallBeforeHpa,
+    pressureRiseAfterHpa,
+    pressureRise3hHpa,
+    pressureJumpHpa: jump,
+    gustMaxMs: gustMax,
+    precipNear,
+    convectiveNear,
+    solarHour,
+    zoneEndMs,
+    zoneHours: (zoneEndMs - tMs) / HOUR,
+    windReturnDeg,
+    pressureFallAfterPeakHpa,
+    depressionBeforeC: tbRaw - tdb,
+  };
+}
+
+/** First index with t[k] ≥ x in a sorted array. */
+export function lowerBound(t: ArrayLike<number>, x: number): number {
+  let lo = 0;
+  let hi = t.length;
+  while (lo < hi) {
+    const m = (lo + hi) >> 1;
+    if (t[m]! < x) lo = m + 1;
+    else hi = m;
+  }
+  return lo;
+}

@@ -1,0 +1,98 @@
+/**
+ * Timing a passage on the raw reports: the wind shift as the split of the reports that best separates
+ * the mean wind vector before from after (a two-sample change point in u/v, least squares), and the start
+ * of the sharp temperature change. Times fall between two reports: `earliest` is the last report before,
+ * `latest` the first report after, and the estimate is their midpoint.
+ */
+import { windComponents, windFromComponents, signedTurnDeg } from '../physics/wind.js';
+import type { RawColumns } from './features.js';
+import { lowerBound } from './features.js';
+
+const HOUR = 3_600_000;
+
+export interface SplitTime {
+  timeMs: number;
+  earliestMs: number;
+  latestMs: number;
+  turnDeg: number;
+  /** Between-group sum of squares of the split, (m/s)². */
+  strength: number;
+}
+
+/**
+ * Best wind split among reports within ±`searchMs` of `aroundMs`, each side averaged over up to `sideMs`.
+ * Returns null when no split turns the wind by at least `minTurnDeg`.
+ */
+export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: number, searchMs = 2 * HOUR, sideMs = 1.5 * HOUR, minTurnDeg = 30): SplitTime | null {
+  const lo = lowerBound(timeMs, aroundMs - searchMs - sideMs);
+  const hi = lowerBound(timeMs, aroundMs + searchMs + sideMs);
+  const idx: number[] = [];
+  const us: number[] = [];
+  const vs: number[] = [];
+  for (let k = lo; k < hi; k++) {
+    const s = raw.spd[k]!;
+    if (Number.isNaN(s)) continue;
+    const c = windComponents(s === 0 ? 0 : raw.dir[k]!, s);
+    if (Number.isNaN(c.uMs)) continue;
+    idx.push(k);
+    us.push(c.uMs);
+    vs.push(c.vMs);
+  }
+  const m = idx.length;
+  if (m < 4) return null;
+  let best: SplitTime | null = null;
+  let bestScore = 0;
+  let a = 0;
+  let b = 0;
+  for (let j = 1; j < m; j++) {
+    const tj = timeMs[idx[j]!]!;
+    if (Math.abs(tj - aroundMs) > searchMs) continue;
+    while (a < j && timeMs[idx[a]!]! < tj - sideMs) a++;
+    while (b < m && timeMs[idx[b]!]! < tj + sideMs) b++;
+    const nb = j - a;
+    const na = b - j;
+    if (nb < 1 || na < 2) continue;
+    let ub = 0, vb = 0, ua = 0, va = 0;
+    for (let q = a; q < j; q++) { ub += us[q]!; vb += vs[q]!; }
+    for (let q = j; q < b; q++) { ua += us[q]!; va += vs[q]!; }
+    ub /= nb; vb /= nb; ua /= na; va /= na;
+    const score = ((nb * na) / (nb + na)) * ((ua - ub) ** 2 + (va - vb) ** 2);
+    if (score > bestScore) {
+      const wb = windFromComponents(ub, vb);
+      const wa = windFromComponents(ua, va);
+      const turn = wb.speedMs > 0.5 && wa.speedMs > 0.5 ? signedTurnDeg(wb.dirDeg, wa.dirDeg) : NaN;
+      if (Math.abs(turn) >= minTurnDeg) {
+        bestScore = score;
+        const t0 = timeMs[idx[j - 1]!]!;
+        best = { timeMs: (t0 + tj) / 2, earliestMs: t0, latestMs: tj, turnDeg: turn, strength: score };
+      }
+    }
+  }
+  return best;
+}
+
+/**
+ * Start of a temperature change of `changeC` (signed) after a level `levelC`: the last report within
+ * [fromMs, toMs] still within 15 % of the change from the level, bracketed by the next report.
+ */
+export function changeStart(timeMs: Float64Array, values: Float64Array, levelC: number, changeC: number, fromMs: number, toMs: number): SplitTime | null {
+  if (!(Math.abs(changeC) > 0)) return null;
+  const lo = lowerBound(timeMs, fromMs);
+  const hi = lowerBound(timeMs, toMs);
+  let last = -1;
+  let next = -1;
+  // Walk back from the end of the change to the last report that had not yet departed.
+  for (let k = hi - 1; k >= lo; k--) {
+    const v = values[k]!;
+    if (Number.isNaN(v)) continue;
+    if ((v - levelC) / changeC < 0.15) {
+      last = k;
+      break;
+    }
+    next = k;
+  }
+  if (last < 0 || next < 0) return null;
+  const t0 = timeMs[last]!;
+  const t1 = timeMs[next]!;
+  return { timeMs: (t0 + t1) / 2, earliestMs: t0, latestMs: t1, turnDeg: NaN, strength: 0 };
+}

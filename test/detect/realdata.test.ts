@@ -1,0 +1,87 @@
+/**
+ * Detection on real public-domain observations (US ASOS/AWOS via the Iowa Environmental Mesonet archive and
+ * NCEI Local Climatological Data). Expected times come from observer remarks (FMH-1 FROPA / WSHFT) where the
+ * reports carry them, and otherwise from reading the reports (noted as such). Skipped when the shared
+ * folder beside the repository is absent.
+ */
+import { test } from 'uvu';
+import * as assert from 'uvu/assert';
+import { existsSync } from 'node:fs';
+import { fileURLToPath } from 'node:url';
+import { loadPaths } from '../../src/ingest/load.js';
+import { detectStation } from '../../src/detect/detect.js';
+import type { PassageEvent } from '../../src/detect/types.js';
+
+const dir = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
+const have = existsSync(dir);
+const MIN = 60_000;
+
+function eventsFor(files: string[], station: string): PassageEvent[] {
+  const r = loadPaths(files.map((f) => dir + f), { stationsFile: dir + 'stations.csv' });
+  const s = r.series.find((x) => x.station === station);
+  assert.ok(s, `series ${station}`);
+  return detectStation(s!);
+}
+
+function near(ev: PassageEvent[], iso: string, toleranceMin: number): PassageEvent | undefined {
+  const t = Date.parse(iso);
+  return ev.filter((e) => Math.abs(e.timeMs - t) <= toleranceMin * MIN).sort((a, b) => Math.abs(a.timeMs - t) - Math.abs(b.timeMs - t))[0];
+}
+
+const show = (ev: PassageEvent[], from: string, to: string) =>
+  ev
+    .filter((e) => e.timeMs >= Date.parse(from) && e.timeMs <= Date.parse(to))
+    .map((e) => `${e.kind} ${new Date(e.timeMs).toISOString()} c=${e.confidence}`)
+    .join(' | ');
+
+if (!have) {
+  test('real-data detection checks (skipped: shared/realdata not found beside the repository)', () => {});
+} else {
+  const jfk = eventsFor(['KJFK_2019-11_to_2020-02_asos.csv'], 'KJFK');
+
+  // Observer remark FROPA in the 13:51Z report of 2019-11-12 (FMH-1 remark); wind 230° → 310° between 12:51 and 13:51.
+  test('KJFK 2019-11-12: the observer-labelled cold front is found as a cold front within the report window', () => {
+    const e = near(jfk, '2019-11-12T13:20Z', 90);
+    assert.ok(e, show(jfk, '2019-11-12T06:00Z', '2019-11-12T23:00Z'));
+    assert.is(e!.kind, 'cold-front', show(jfk, '2019-11-12T06:00Z', '2019-11-12T23:00Z'));
+    assert.ok(!Number.isNaN(e!.observerFropaTimeMs), 'observer FROPA attached');
+  });
+
+  // Observer remark WRM FROPA at 14:51Z 2020-02-07; a cold front follows about 17–18Z (PRESRR 17:51, 18:51).
+  test('KJFK 2020-02-07: warm front then cold front', () => {
+    const win = show(jfk, '2020-02-07T06:00Z', '2020-02-08T00:00Z');
+    const w = near(jfk, '2020-02-07T14:30Z', 120);
+    assert.ok(w && w.kind === 'warm-front', win);
+    const c = near(jfk, '2020-02-07T17:30Z', 90);
+    assert.ok(c && c.kind === 'cold-front', win);
+  });
+
+  // Reading of the reports (no observer label): squall-line gust front 01:49–02:08Z (PK WND 27036/0149, PRESRR, hail),
+  // synoptic cold front about 04:30–05:30Z with strong cooling after.
+  test('KORD 2024-02-27/28: the gust front is told apart from the synoptic cold front', () => {
+    const ord = eventsFor(['KORD_2024-02-27_28_metar.txt'], 'KORD');
+    const win = show(ord, '2024-02-27T20:00Z', '2024-02-28T12:00Z');
+    const cold = ord.filter((e) => e.kind === 'cold-front');
+    assert.is(cold.length, 1, win);
+    assert.ok(Math.abs(cold[0]!.timeMs - Date.parse('2024-02-28T05:00Z')) <= 90 * MIN, win);
+    const gust = near(ord, '2024-02-28T01:55Z', 60);
+    assert.ok(gust && gust.kind !== 'cold-front', win);
+  });
+
+  // Reading of the reports: the 26 Oct 2010 cold front crosses MSP ≈10:20–11:00Z, ORD ≈13:00–13:45Z, GRB ≈14:00–14:50Z, CLE ≈18:30Z.
+  const oct: [string, string, string][] = [
+    ['KMSP', 'oct2010_asos_MSP.csv', '2010-10-26T10:40Z'],
+    ['KORD', 'oct2010_asos_ORD.csv', '2010-10-26T13:20Z'],
+    ['KGRB', 'oct2010_asos_GRB.csv', '2010-10-26T14:25Z'],
+    ['KCLE', 'oct2010_asos_CLE.csv', '2010-10-26T18:30Z'],
+  ];
+  for (const [id, file, iso] of oct) {
+    test(`${id} 2010-10-26: cold front near ${iso}`, () => {
+      const ev = eventsFor([file], id);
+      const e = near(ev, iso, 90);
+      assert.ok(e && e.kind === 'cold-front', show(ev, '2010-10-26T00:00Z', '2010-10-27T06:00Z'));
+    });
+  }
+}
+
+test.run();
