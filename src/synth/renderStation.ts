@@ -159,7 +159,7 @@ function pressureAnomaly(ps: readonly Passage[], t: number): number {
     if (Math.abs(t - p.timeMs) > 6 * DAY) continue;
     const tk = p.timeMs - (p.prefrontalLeadH > 0 ? p.prefrontalLeadH * HOUR : p.troughLeadMin * 60000);
     const d = p.troughHpa;
-    const ta = Math.min(18, Math.max(6, d / 0.5)) * HOUR;
+    const ta = Math.min(14, Math.max(5, d / 0.8)) * HOUR;
     const tb = Math.min(10, Math.max(4, d / 0.9)) * HOUR;
     dp -= d * (t < tk ? Math.exp((t - tk) / ta) : Math.exp(-(t - tk) / tb));
     dp += 0.6 * d * Math.exp(-(((t - tk - 22 * HOUR) / (14 * HOUR)) ** 2));
@@ -357,7 +357,7 @@ export function renderStation(s: StationSchedule, group: GroupPlan, startMs: num
     // Pressure.
     let slp = group.basePressureHpa + pressureAnomaly(s.passages, t) + outP;
     for (const wv of group.pressureWaves) slp += wv.amplitudeHpa * Math.sin((2 * Math.PI * (t - startMs)) / (wv.periodDays * DAY) + wv.phase);
-    slp += 0.6 * Math.cos((2 * Math.PI * (hSolar - 10)) / 12);
+    slp += 0.5 * Math.cos((2 * Math.PI * (hSolar - 10)) / 12);
     nP = 0.9 * nP + 0.03 * noise.normal();
     slp += nP;
     const tMeanK = temp + 273.15 + 0.0065 * elev * 0.5;
