@@ -88,10 +88,15 @@ function sameValues(a: Observation, b: Observation): boolean {
  * values merged with any missing value filled from the other). Every duplicate is noted.
  */
 export function buildSeries(station: string, observations: readonly Observation[], meta?: StationMeta): StationSeries {
-  const obs = observations.slice();
-  // Stable sort by time, then by input order (files then lines keep their order through slice()).
-  const order = obs.map((_, i) => i);
-  order.sort((i, j) => obs[i]!.timeMs - obs[j]!.timeMs || i - j);
+  const obs = observations;
+  // Stable sort by time, then by input order; most files arrive sorted, so check first.
+  const order = new Int32Array(obs.length);
+  let sorted = true;
+  for (let i = 0; i < obs.length; i++) {
+    order[i] = i;
+    if (i > 0 && obs[i]!.timeMs < obs[i - 1]!.timeMs) sorted = false;
+  }
+  if (!sorted) order.sort((i, j) => obs[i]!.timeMs - obs[j]!.timeMs || i - j);
   const kept: Observation[] = [];
   const duplicates: DuplicateNote[] = [];
   for (const idx of order) {
