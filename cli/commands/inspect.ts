@@ -24,7 +24,7 @@ export function noDataMessage(paths: readonly string[], reports: ReturnType<type
   for (const r of reports) {
     if (r.format === 'stations') continue;
     const reasons = Object.entries(r.rejectedByReason).map(([k, n]) => `${k} ${n}`);
-    lines.push(`  ${r.file}: ${r.format}, ${r.parsed} parsed, ${r.rejected} rejected${reasons.length ? ` (${reasons.join(', ')})` : ''}${r.notes.length ? `; ${r.notes[0]}` : ''}`);
+    lines.push(`  ${r.file}: ${r.format}, ${r.parsed} parsed, ${r.rejected} rejected${reasons.length ? ` (${reasons.join(', ')})` : ''}${r.issues.length === 0 && r.notes.length ? `; ${r.notes[0]}` : ''}`);
     for (const i of r.issues.slice(0, 3)) lines.push(`  ${issueLine(i)}`);
   }
   return lines.join('\n') + '\n';

@@ -244,6 +244,13 @@ test('detect table ends with the caution; json is an array', async () => {
   assert.ok(Array.isArray(JSON.parse(j.stdout)));
 });
 
+test('detect --local --tz ZONE: table times in that zone', async () => {
+  const r = await cli(['detect', multi, '--tz', 'America/Chicago', '--local']);
+  assert.is(r.code, 0, r.stderr);
+  assert.match(r.stdout, /time \(America\/Chicago\)|no passages found/);
+  assert.match(r.stdout, 'KAAA  no passages');
+});
+
 test('detect --out-dir writes events.csv, events.json, summary.txt and says where', async () => {
   const od = join(dir, 'out', 'nested');
   const r = await cli(['detect', multi, '--out-dir', od]);
