@@ -37,7 +37,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   const dT = f.tempAdjChangeC;
   const dTd = f.dewpointChangeC;
   const dTh = f.thetaEChangeK;
-  const trough = Math.min(ramp(-f.pressureFallBeforeHpa, 0.2, 1.0), ramp(f.pressureRiseAfterHpa, 0.3, 1.5));
+  const trough = Math.min(ramp(-f.pressureFallBeforeHpa, 0.4, 1.5), ramp(f.pressureRiseAfterHpa, 0.6, 2.0));
   const riseAfter = ramp(f.pressureRise3hHpa, 0.3, 2.0);
   const windy = ramp(Math.min(f.speedBeforeMs, f.speedAfterMs), 1.0, 3.0);
   const veer = ramp(turn, 15, 50) * windy;
@@ -64,8 +64,10 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   const fallingAfter = ramp(-f.pressureRise3hHpa, 0.5, 2.0);
 
   // Cold front: cooling that lasts, with evidence beyond temperature (turn, trough/rise, drying).
-  const beyond = Math.max(veer, trough, riseAfter * 0.8, drying * 0.8);
-  const cold = cooling * (0.35 + 0.65 * beyond) * (0.55 + 0.25 * veer + 0.2 * Math.max(trough, riseAfter)) * (1 - 0.8 * recovers) * (0.7 + 0.3 * drying) * (1 - 0.6 * fallingAfter);
+  // Calm air with no turn is how radiative cooling looks: the commonest false cold front.
+  const calmAfter = 1 - ramp(f.speedAfterMs, 1.0, 3.0);
+  const beyond = Math.max(veer, 0.9 * trough, 0.8 * Math.min(riseAfter, drying));
+  const cold = cooling * (0.35 + 0.65 * beyond) * (0.55 + 0.25 * veer + 0.2 * Math.max(trough, riseAfter)) * (1 - 0.8 * recovers) * (0.7 + 0.3 * drying) * (1 - 0.6 * fallingAfter) * (1 - 0.8 * calmAfter * (1 - veer));
   const warmVeer = ramp(turn, 5, 40) * windy;
   // Warm fronts come with cloud and rain that damp the diurnal cycle, so the observed rise counts too.
   const cloudy = ramp(f.depressionBeforeC, 4, 1);
@@ -124,6 +126,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   if (gusty > 0.5) say(true, `gusts to ${f1(f.gustMaxMs)} m/s`);
   if (kind === 'dryline') say(true, `dew point falls ${f1(-f.dewpointDropMaxC)} °C within 3 h while temperature holds, by day`);
   if (kind === 'sea-breeze-front') say(true, `coastal station, onshore wind after the turn, local solar hour ${f1(f.solarHour)}`);
+  if (cooling > 0.5 && calmAfter > 0.5 && veer < 0.5) say(false, 'light or calm wind after, no turn: radiative cooling looks like this');
   if (cooling > 0.5 && beyond < 0.3) say(false, 'no evidence beyond temperature (no turn, no trough, no drying): likely diurnal or local cooling');
   return { kind, confidence, evidence: ev, scores };
 }
