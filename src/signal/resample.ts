@@ -141,7 +141,8 @@ export interface ResampledWind {
 
 /**
  * Wind components from direction (from which it blows, degrees true) and speed (m/s), meteorological
- * convention u = −s·sin(d), v = −s·cos(d) (WMO-No. 8; textbook). Calm (speed 0) gives u = v = 0 whatever
+ * convention u = −s·sin(d), v = −s·cos(d) (d is where the wind blows from, WMO-No. 8; the component
+ * formulas are textbook). Calm (speed 0) gives u = v = 0 whatever
  * the direction; a missing direction with non-zero speed (variable wind) gives NaN.
  * @example windComponents(270, 10) // { uMs: 10, vMs: ≈0 } (a west wind blows towards the east)
  */
