@@ -5,7 +5,7 @@
  */
 import type { FileReport, Observation, ParseIssue } from './types.js';
 import { addIssue, newFileReport } from './types.js';
-import { archiveStamp, parseMonthOption, yearMonthFromFileName, type MonthRef } from './metar/calendar.js';
+import { archiveStamp, archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
 
 export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';
@@ -41,10 +41,10 @@ export function metarToObservation(r: MetarReport, file: string, line: number): 
     latDeg: NaN,
     lonDeg: NaN,
     elevationM: NaN,
+    remarks: r.remarks.length ? r.remarks : undefined,
     file,
     line,
   };
-  if (r.remarks.length) o.remarks = r.remarks;
   return o;
 }
 
@@ -119,7 +119,10 @@ export function readMetarText(
     }
   }
   const r = newMetarReport();
-  const ref: DecodeRef = { year: 0, month: 0, file, line: 0 };
+  const ref: DecodeRef = { year: 0, month: 0, file, line: 0, refDay: undefined, refMode: undefined, column0: 0 };
+  const st: ArchiveStamp = { year: 0, month: 0, day: 0, next: 0 };
+  const civil: [number, number, number] = [0, 0, 0];
+  let lastDay = NaN;
   let stamped = 0;
   let noYearMonth = 0;
   let lineNo = 0;
@@ -145,9 +148,9 @@ export function readMetarText(
     }
     ref.line = lineNo;
     ref.column0 = 0;
-    const st = text.charCodeAt(a) <= 57 ? archiveStamp(text, a, b) : null;
+    const stamped1 = text.charCodeAt(a) <= 57 && archiveStampInto(text, a, b, st);
     let start = a;
-    if (st) {
+    if (stamped1) {
       ref.year = st.year;
       ref.month = st.month;
       ref.refDay = st.day;
@@ -185,11 +188,15 @@ export function readMetarText(
       addIssue(report, { file, line: lineNo, reason: 'nil-report', message: `NIL report for ${r.station}: no observation to use` });
       continue;
     }
-    if (running && !st) {
-      const d = new Date(r.timeMs);
-      running.year = d.getUTCFullYear();
-      running.month = d.getUTCMonth() + 1;
-      running.refDay = d.getUTCDate();
+    if (running && !stamped1) {
+      const dayNo = Math.floor(r.timeMs / 86_400_000);
+      if (dayNo !== lastDay) {
+        lastDay = dayNo;
+        civilFromDays(dayNo, civil);
+        running.year = civil[0];
+        running.month = civil[1];
+        running.refDay = civil[2];
+      }
     }
     observations.push(metarToObservation(r, file, lineNo));
     report.parsed++;

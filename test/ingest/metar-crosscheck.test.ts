@@ -23,7 +23,7 @@
 import { readFileSync } from 'node:fs';
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { parseMetar, RemarkType } from 'metar-taf-parser';
+import { parseMetar, RemarkType, type IMetar } from 'metar-taf-parser';
 import { decodeMetar, isParseIssue, INHG_HPA, KNOT_MS, STATUTE_MILE_M } from '../../src/ingest/metar.js';
 
 const corpus = readFileSync(new URL('../fixtures/metar-corpus.txt', import.meta.url), 'utf8')
@@ -54,7 +54,7 @@ const same = (a: number, b: number, tol: number) => (Number.isNaN(a) && Number.i
 function compare(line: string): string[] {
   const r = decodeMetar(line, { year: 2020, month: 1, file: 'metar-corpus.txt', line: 0 });
   if (isParseIssue(r)) return [`issue ${r.reason}`];
-  let m: ReturnType<typeof parseMetar>;
+  let m: IMetar;
   try {
     m = parseMetar(line);
   } catch {

@@ -25,9 +25,44 @@ export interface MonthRef {
   refMode?: 'archive' | 'nearest';
 }
 
+const MONTH_DAYS = [31, 28, 31, 30, 31, 30, 31, 31, 30, 31, 30, 31];
+
 /** Days in a month (month 1–12), proleptic Gregorian. */
 export function daysInMonth(year: number, month: number): number {
-  return new Date(Date.UTC(year, month, 0)).getUTCDate();
+  if (month === 2) return (year % 4 === 0 && year % 100 !== 0) || year % 400 === 0 ? 29 : 28;
+  return MONTH_DAYS[month - 1]!;
+}
+
+/**
+ * Days since 1970-01-01 of a proleptic Gregorian date (integer arithmetic, no Date object).
+ * Algorithm: H. Hinnant, "chrono-Compatible Low-Level Date Algorithms", days_from_civil.
+ * @example daysFromCivil(2000, 3, 1) // 11017
+ */
+export function daysFromCivil(y: number, m: number, d: number): number {
+  y -= m <= 2 ? 1 : 0;
+  const era = Math.floor(y / 400);
+  const yoe = y - era * 400;
+  const doy = Math.floor((153 * (m > 2 ? m - 3 : m + 9) + 2) / 5) + d - 1;
+  const doe = yoe * 365 + Math.floor(yoe / 4) - Math.floor(yoe / 100) + doy;
+  return era * 146097 + doe - 719468;
+}
+
+/**
+ * Calendar date of a day count since 1970-01-01, written into `out` = [year, month, day].
+ * Algorithm: H. Hinnant, civil_from_days.
+ */
+export function civilFromDays(z: number, out: [number, number, number]): void {
+  z += 719468;
+  const era = Math.floor(z / 146097);
+  const doe = z - era * 146097;
+  const yoe = Math.floor((doe - Math.floor(doe / 1460) + Math.floor(doe / 36524) - Math.floor(doe / 146096)) / 365);
+  const doy = doe - (365 * yoe + Math.floor(yoe / 4) - Math.floor(yoe / 100));
+  const mp = Math.floor((5 * doy + 2) / 153);
+  const d = doy - Math.floor((153 * mp + 2) / 5) + 1;
+  const m = mp < 10 ? mp + 3 : mp - 9;
+  out[0] = yoe + era * 400 + (m <= 2 ? 1 : 0);
+  out[1] = m;
+  out[2] = d;
 }
 
 /**
@@ -38,13 +73,35 @@ export function daysInMonth(year: number, month: number): number {
  * @example reportTimeMs(31, 23, 51, { year: 2020, month: 1, refDay: 1 }) // Date.UTC(2019, 11, 31, 23, 51)
  */
 export function reportTimeMs(day: number, hour: number, minute: number, ref: MonthRef): number {
+  // one-entry cache: consecutive reports usually share the reference and the day
+  if (ref.year === cacheYear && ref.month === cacheMonth && ref.refDay === cacheRefDay && ref.refMode === cacheMode && day === cacheDay)
+    return Number.isNaN(cacheDays) ? NaN : cacheDays * DAY_MS + hour * 3_600_000 + minute * 60_000;
+  const days = reportDays(day, ref);
+  cacheYear = ref.year;
+  cacheMonth = ref.month;
+  cacheRefDay = ref.refDay;
+  cacheMode = ref.refMode;
+  cacheDay = day;
+  cacheDays = days;
+  return Number.isNaN(days) ? NaN : days * DAY_MS + hour * 3_600_000 + minute * 60_000;
+}
+
+let cacheYear = NaN;
+let cacheMonth = NaN;
+let cacheRefDay: number | undefined = NaN;
+let cacheMode: MonthRef['refMode'] = undefined;
+let cacheDay = NaN;
+let cacheDays = NaN;
+
+/** Day number (days since 1970-01-01) of a report day under `ref`, NaN when impossible. */
+function reportDays(day: number, ref: MonthRef): number {
   const y = ref.year;
   const m = ref.month;
   if (ref.refDay === undefined) {
     if (day > daysInMonth(y, m)) return NaN;
-    return Date.UTC(y, m - 1, day, hour, minute);
+    return daysFromCivil(y, m, day);
   }
-  const refMs = Date.UTC(y, m - 1, ref.refDay);
+  const refDays = daysFromCivil(y, m, ref.refDay);
   const lo = ref.refMode === 'nearest' ? -15 : -25;
   const hi = ref.refMode === 'nearest' ? 15 : 3;
   let best = NaN;
@@ -53,13 +110,13 @@ export function reportTimeMs(day: number, hour: number, minute: number, ref: Mon
     const cy = m + k < 1 ? y - 1 : m + k > 12 ? y + 1 : y;
     const cm = m + k < 1 ? 12 : m + k > 12 ? 1 : m + k;
     if (day > daysInMonth(cy, cm)) continue;
-    const dayMs = Date.UTC(cy, cm - 1, day);
-    const off = (dayMs - refMs) / DAY_MS;
-    if (off >= lo && off <= hi) return dayMs + hour * 3_600_000 + minute * 60_000;
+    const days = daysFromCivil(cy, cm, day);
+    const off = days - refDays;
+    if (off >= lo && off <= hi) return days;
     const dist = Math.min(Math.abs(off - lo), Math.abs(off - hi));
     if (dist < bestDist) {
       bestDist = dist;
-      best = dayMs + hour * 3_600_000 + minute * 60_000;
+      best = days;
     }
   }
   // Outside the window in every month (a gap of more than two weeks): the closest candidate.
@@ -124,22 +181,28 @@ function dg(s: string, i: number): number {
  * `YYYY-MM-DD HH:MM[:SS]`, followed by a blank; null when there is none. Charcode scanning (hot path).
  */
 export function archiveStamp(s: string, start: number, end: number): ArchiveStamp | null {
-  if (end - start < 13) return null;
+  const out: ArchiveStamp = { year: 0, month: 0, day: 0, next: 0 };
+  return archiveStampInto(s, start, end, out) ? out : null;
+}
+
+/** As archiveStamp, writing into `out`; false when there is no stamp (allocation-free hot path). */
+export function archiveStampInto(s: string, start: number, end: number, out: ArchiveStamp): boolean {
+  if (end - start < 13) return false;
   const y = dg(s, start) * 1000 + dg(s, start + 1) * 100 + dg(s, start + 2) * 10 + dg(s, start + 3);
-  if (y < 0) return null;
+  if (y < 0) return false;
   let month: number;
   let day: number;
   let p: number;
   const c4 = s.charCodeAt(start + 4);
   if (c4 === 45 /* - */) {
-    if (s.charCodeAt(start + 7) !== 45) return null;
+    if (s.charCodeAt(start + 7) !== 45) return false;
     month = dg(s, start + 5) * 10 + dg(s, start + 6);
     day = dg(s, start + 8) * 10 + dg(s, start + 9);
     const sep = s.charCodeAt(start + 10);
-    if (sep !== 84 /* T */ && sep !== 32) return null;
+    if (sep !== 84 /* T */ && sep !== 32) return false;
     // HH:MM
-    if (dg(s, start + 11) < 0 || dg(s, start + 12) < 0 || s.charCodeAt(start + 13) !== 58) return null;
-    if (dg(s, start + 14) < 0 || dg(s, start + 15) < 0) return null;
+    if (dg(s, start + 11) < 0 || dg(s, start + 12) < 0 || s.charCodeAt(start + 13) !== 58) return false;
+    if (dg(s, start + 14) < 0 || dg(s, start + 15) < 0) return false;
     p = start + 16;
     if (s.charCodeAt(p) === 58) p += 3; // :SS
     if (s.charCodeAt(p) === 46) { // .fff
@@ -148,18 +211,22 @@ export function archiveStamp(s: string, start: number, end: number): ArchiveStam
     }
     if (s.charCodeAt(p) === 90 /* Z */) p++;
   } else {
-    for (let i = 4; i < 12; i++) if (dg(s, start + i) < 0) return null;
+    for (let i = 4; i < 12; i++) if (dg(s, start + i) < 0) return false;
     month = dg(s, start + 4) * 10 + dg(s, start + 5);
     day = dg(s, start + 6) * 10 + dg(s, start + 7);
     p = start + 12;
   }
-  if (!(month >= 1 && month <= 12 && day >= 1 && day <= 31)) return null;
+  if (!(month >= 1 && month <= 12 && day >= 1 && day <= 31)) return false;
   const c = s.charCodeAt(p);
-  if (!(c === 32 || c === 9 || c === 44 /* , */)) return null;
+  if (!(c === 32 || c === 9 || c === 44 /* , */)) return false;
   while (p < end) {
     const q = s.charCodeAt(p);
     if (q !== 32 && q !== 9 && q !== 44) break;
     p++;
   }
-  return { year: y, month, day, next: p };
+  out.year = y;
+  out.month = month;
+  out.day = day;
+  out.next = p;
+  return true;
 }

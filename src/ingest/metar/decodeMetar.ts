@@ -106,12 +106,12 @@ export function newMetarReport(): MetarReport {
 function resetReport(r: MetarReport): void {
   r.type = 'METAR'; r.station = ''; r.timeMs = NaN; r.auto = false; r.corrected = false; r.nil = false;
   r.windDirDeg = NaN; r.windSpeedMs = NaN; r.gustMs = NaN; r.windVariable = false; r.windVarFromDeg = NaN; r.windVarToDeg = NaN;
-  r.visibilityM = NaN; r.weatherCodes.length = 0; r.weather = 0; r.sky.length = 0; r.temperatureC = NaN; r.dewpointC = NaN;
+  r.visibilityM = NaN; if (r.weatherCodes.length) r.weatherCodes.length = 0; r.weather = 0; if (r.sky.length) r.sky.length = 0; r.temperatureC = NaN; r.dewpointC = NaN;
   r.tempFromRemarks = false; r.qnhHpa = NaN; r.altimeterHpa = NaN; r.seaLevelPressureHpa = NaN; r.pressureTendency3hHpa = NaN;
   r.pressureTendencyCode = -1; r.pressureTrend = 0; r.precip1hMm = NaN; r.peakWindMs = NaN; r.peakWindDirDeg = NaN;
   r.peakWindTimeMs = NaN; if (r.remarks.length) r.remarks = []; r.stationType = ''; r.maintenance = false;
-  r.unknownGroups.length = 0; r.precipTrace = false; r.precip3or6hMm = NaN; r.precip24hMm = NaN; r.tempMax6hC = NaN;
-  r.tempMin6hC = NaN; r.rvr.length = 0; r.cavok = false;
+  if (r.unknownGroups.length) r.unknownGroups.length = 0; r.precipTrace = false; r.precip3or6hMm = NaN; r.precip24hMm = NaN; r.tempMax6hC = NaN;
+  r.tempMin6hC = NaN; if (r.rvr.length) r.rvr.length = 0; r.cavok = false;
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -124,8 +124,11 @@ export let tokEnd = new Int32Array(256);
 function tokenize(s: string, start: number, end: number): number {
   let n = 0;
   let p = start;
+  let ts = tokStart;
+  let te = tokEnd;
   while (p < end) {
-    while (p < end && s.charCodeAt(p) <= 32) p++;
+    let c = s.charCodeAt(p);
+    while (c <= 32 && p < end) c = s.charCodeAt(++p);
     if (p >= end) break;
     const a = p;
     while (p < end && s.charCodeAt(p) > 32) p++;
@@ -136,22 +139,38 @@ function tokenize(s: string, start: number, end: number): number {
       last = true;
     }
     if (b > a) {
-      if (n === tokStart.length) {
+      if (n === ts.length) {
         const ns = new Int32Array(n * 2);
-        ns.set(tokStart);
-        tokStart = ns;
+        ns.set(ts);
+        tokStart = ts = ns;
         const ne = new Int32Array(n * 2);
-        ne.set(tokEnd);
-        tokEnd = ne;
+        ne.set(te);
+        tokEnd = te = ne;
       }
-      tokStart[n] = a;
-      tokEnd[n] = b;
+      ts[n] = a;
+      te[n] = b;
       n++;
     }
     if (last) break;
   }
   return n;
 }
+
+/** First three characters packed into one number (for fast keyword tests). */
+function k3(s: string, a: number): number {
+  return (s.charCodeAt(a) << 16) | (s.charCodeAt(a + 1) << 8) | s.charCodeAt(a + 2);
+}
+const key3 = (w: string) => k3(w, 0);
+const K_RMK = key3('RMK');
+const K_FEW = key3('FEW');
+const K_SCT = key3('SCT');
+const K_BKN = key3('BKN');
+const K_OVC = key3('OVC');
+const K_CLR = key3('CLR');
+const K_SKC = key3('SKC');
+const K_NSC = key3('NSC');
+const K_NCD = key3('NCD');
+const K_SLASH3 = key3('///');
 
 // ---------------------------------------------------------------------------------------------
 // Small char-code helpers.
@@ -339,11 +358,12 @@ function skyGroup(s: string, a: number, b: number, r: MetarReport, lite: boolean
   let cover: string;
   let i: number;
   const c0 = s.charCodeAt(a);
+  const k = k3(s, a);
   if (len === 3) {
-    if (s.startsWith('CLR', a)) cover = 'CLR';
-    else if (s.startsWith('SKC', a)) cover = 'SKC';
-    else if (s.startsWith('NSC', a)) cover = 'NSC';
-    else if (s.startsWith('NCD', a)) cover = 'NCD';
+    if (k === K_CLR) cover = 'CLR';
+    else if (k === K_SKC) cover = 'SKC';
+    else if (k === K_NSC) cover = 'NSC';
+    else if (k === K_NCD) cover = 'NCD';
     else return false;
     if (!lite) r.sky.push({ cover, heightFt: NaN });
     return true;
@@ -352,11 +372,11 @@ function skyGroup(s: string, a: number, b: number, r: MetarReport, lite: boolean
     cover = 'VV';
     i = a + 2;
   } else if (len >= 6) {
-    if (s.startsWith('FEW', a)) cover = 'FEW';
-    else if (s.startsWith('SCT', a)) cover = 'SCT';
-    else if (s.startsWith('BKN', a)) cover = 'BKN';
-    else if (s.startsWith('OVC', a)) cover = 'OVC';
-    else if (slashes(s, a, a + 3)) cover = '///';
+    if (k === K_FEW) cover = 'FEW';
+    else if (k === K_SCT) cover = 'SCT';
+    else if (k === K_BKN) cover = 'BKN';
+    else if (k === K_OVC) cover = 'OVC';
+    else if (k === K_SLASH3) cover = '///';
     else return false;
     i = a + 3;
   } else return false;
@@ -397,6 +417,9 @@ function isTrend(s: string, a: number, b: number): boolean {
 }
 
 // ---------------------------------------------------------------------------------------------
+
+/** Interned station ids by base-37 key (ids of 3–5 letters/digits are unique keys). */
+const STATION_IDS = new Map<number, string>();
 
 /** Where a report sits and how to date it. */
 export interface DecodeRef extends MonthRef {
@@ -455,9 +478,22 @@ export function decodeInto(
     let ok = len >= 3 && len <= 5;
     const c = s.charCodeAt(a);
     if (!(c >= 65 && c <= 90)) ok = false;
+    // base-37 key of the id: interns station strings without allocating a substring per report
+    let key = c - 54;
     for (let k = a + 1; ok && k < b; k++) {
       const q = s.charCodeAt(k);
-      if (!((q >= 65 && q <= 90) || (q >= 48 && q <= 57))) ok = false;
+      if (q >= 65 && q <= 90) key = key * 37 + (q - 54);
+      else if (q >= 48 && q <= 57) key = key * 37 + (q - 47);
+      else ok = false;
+    }
+    if (ok) {
+      let id = STATION_IDS.get(key);
+      if (id === undefined) {
+        if (STATION_IDS.size > 200_000) STATION_IDS.clear();
+        id = s.slice(a, b);
+        STATION_IDS.set(key, id);
+      }
+      r.station = id;
     }
     if (!ok) {
       if (!keyword && i === 0)
@@ -465,7 +501,6 @@ export function decodeInto(
       return issue(ref, 'no-station', `"${s.slice(a, b)}" is not a station identifier (4-letter ICAO id expected)`, s, a, b, start);
     }
   }
-  r.station = s.slice(a, b);
   i++;
   // Time DDHHMMZ (FM 15 YYGGggZ).
   if (i >= n) return issue(ref, 'no-time', `report for ${r.station} has no DDHHMMZ time group`, s, a, b, start);
@@ -494,7 +529,7 @@ export function decodeInto(
     b = TE[i]!;
     const len = b - a;
     const c0 = s.charCodeAt(a);
-    if (c0 === 82 /* R */ && len === 3 && s.charCodeAt(a + 1) === 77 && s.charCodeAt(a + 2) === 75) {
+    if (len === 3 && k3(s, a) === K_RMK) {
       decodeRemarks(s, TS, TE, i + 1, n, r, ref.file, ref.line, lite);
       i = n;
       break;

@@ -208,7 +208,8 @@ export function decodeRemarks(
     switch (c0) {
       case 65: // A
         if ((len === 3 || len === 4) && s.charCodeAt(a + 1) === 79 && (s.charCodeAt(a + 2) === 49 || s.charCodeAt(a + 2) === 50)) {
-          r.stationType = s.slice(a, b);
+          const two = s.charCodeAt(a + 2) === 50;
+          r.stationType = len === 3 ? (two ? 'AO2' : 'AO1') : s.charCodeAt(a + 3) === 65 ? (two ? 'AO2A' : 'AO1A') : s.slice(a, b);
           continue;
         }
         if (isWord(s, a, b, 'APRNT') && i + 1 < n && isWord(s, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
