@@ -89,8 +89,8 @@ function median(a: number[]): number {
  * The station's own mean diurnal anomaly by local solar time, or a fallback when the record is short.
  *
  * Climatology rule: values are averaged into solar-time bins (B per day, default 24); each bin value's
- * anomaly is taken from a centred one-day moving mean (a 2×B moving average: B + 1 bins, the two end bins
- * weighted ½, needing at least 80 % of those bins present); the profile value of each bin of the day is the
+ * anomaly is taken from a centred one-day moving mean (for even B a 2×B moving average: B + 1 bins, the two
+ * end bins weighted ½; for odd B, B bins; at least 80 % of the window's bins present); the profile value of each bin of the day is the
  * MEDIAN of its anomalies over all days (robust, so a few frontal days do not dominate), then the profile is
  * shifted to mean 0. It is used when every bin has anomalies from at least `minDays` (default 10) days;
  * otherwise the fallback is returned (`fallbackDiurnalProfile`), with the daily range taken as the median
@@ -157,8 +157,11 @@ export function meanDiurnalAnomaly(
   for (let k = 0; k < len; k++) if (cnt[k]! > 0) mean[k] = sum[k]! / cnt[k]!;
 
   // Centred 2×B moving mean and anomalies, collected by bin of day.
+  // Window j = −half … +half: for even B that is B + 1 bins with the two ends weighted ½ (2×B moving
+  // average); for odd B it is B bins of weight 1.
   const half = B >> 1;
-  const need = 0.8 * (B + 1);
+  const even = B % 2 === 0;
+  const need = 0.8 * (2 * half + 1);
   const byBin: number[][] = Array.from({ length: B }, () => []);
   const posSum = new Float64Array(B);
   const posCnt = new Int32Array(B);
@@ -167,10 +170,10 @@ export function meanDiurnalAnomaly(
     let ws = 0;
     let ww = 0;
     let present = 0;
-    for (let j = -half; j <= B - half; j++) {
+    for (let j = -half; j <= half; j++) {
       const q = k + j;
       if (q < 0 || q >= len || Number.isNaN(mean[q]!)) continue;
-      const w = j === -half || j === B - half ? 0.5 : 1;
+      const w = even && (j === -half || j === half) ? 0.5 : 1;
       ws += w * mean[q]!;
       ww += w;
       present++;

@@ -3,7 +3,7 @@
  *
  * Minimises Σ_segments [C(segment)] + m·β over all segmentations (m = number of change points) by the
  * recursion F(t) = min_{τ<t} [F(τ) + C(y_{τ+1:t}) + β], F(0) = −β, pruning a candidate τ for ever once
- * F(τ) + C(y_{τ+1:t}) + K > F(t) [Killick2012, eq. 3 and Theorem 3.1]. K = 0 is valid for every cost
+ * F(τ) + C(y_{τ+1:t}) + K > F(t) [Killick2012] (the PELT pruning condition). K = 0 is valid for every cost
  * here (each is a negative log-likelihood maximised over its segment parameters, so splitting a segment
  * never raises its cost; the MBIC length term is also superadditive, see below).
  *
@@ -32,10 +32,11 @@
  * the true sample index as x). A change found after a gap is reported at the first valid sample after
  * the gap; the gap shows as `segments[k].end < segments[k+1].start`.
  *
- * Speed: O(n) per evaluation on average when changes keep arriving (the pruned candidate set stays small);
- * on long stretches without any change the candidate set grows and the cost tends to O(n²) — bound it
- * with `maxSegment` when analysing weeks of data at once. All sums come from cumulative arrays (Float64Array),
- * so each segment cost is O(d).
+ * Speed: each step costs O(d) per surviving candidate, and candidates inside the current segment are never
+ * pruned, so the total is about n × (typical segment length): O(n) when changes keep arriving (the
+ * linear-cost case of [Killick2012]), tending to O(n²) on long stretches without any change (pure noise).
+ * `maxSegment` bounds the work but forces a boundary at least every maxSegment samples; for long quiet
+ * records prefer analysing overlapping windows. All sums come from cumulative arrays (Float64Array).
  */
 import { robustNoiseSigma } from './noise.js';
 
@@ -49,7 +50,10 @@ export interface PeltOptions {
   penalty?: PeltPenalty;
   /** Minimum valid samples per segment (default 2 for `mean`, 3 for `meanvar` and `linear`). */
   minSegment?: number;
-  /** Maximum valid samples per segment (default Infinity = exact unconstrained optimum). */
+  /**
+   * Maximum valid samples per segment (default Infinity = exact unconstrained optimum). A finite value
+   * bounds the run time but forces a boundary at least this often (spurious ones in quiet stretches).
+   */
   maxSegment?: number;
   /** Noise standard deviation, units of the values (default: robustNoiseSigma of the series). */
   sigma?: number;
@@ -267,14 +271,18 @@ export function peltMulti(channels: ArrayLike<number>[], opts: PeltMultiOptions 
   F[0] = -beta;
   const R = new Int32Array(n + 1);
   const vals = new Float64Array(n + 1);
-  // killAt[τ]: step after which τ is dropped (pruning found at step t takes effect after t + minSeg − 1).
-  const killAt = new Int32Array(n + 1).fill(0x7fffffff);
+  // killAt[i]: step after which candidate R[i] is dropped (a pruning found at step t takes effect after
+  // t + minSeg − 1); kept parallel to R so that both are scanned sequentially.
+  const killAt = new Int32Array(n + 1);
   let rn = 0;
 
   const fastMean = d === 1 && costKind === 'mean';
   for (let T = minSeg; T <= n; T++) {
     const cand = T - minSeg;
-    if ((cand === 0 || cand >= minSeg) && F[cand]! < Infinity) R[rn++] = cand;
+    if ((cand === 0 || cand >= minSeg) && F[cand]! < Infinity) {
+      killAt[rn] = 0x7fffffff;
+      R[rn++] = cand;
+    }
     // F(τ) + C(τ, T) for every candidate; one tight loop per cost model.
     let best = Infinity;
     let arg = -1;
@@ -306,8 +314,14 @@ export function peltMulti(channels: ArrayLike<number>[], opts: PeltMultiOptions 
             if (r < 0) r = 0;
             v += m * Math.log(r / m + floorFrac);
           }
-        } else {
+        } else if (linear) {
           for (let c = 0; c < d; c++) v += sse(c, tau, T);
+        } else {
+          for (let c = 0; c < d; c++) {
+            const s1 = S1[T * d + c]! - S1[tau * d + c]!;
+            const r = S2[T * d + c]! - S2[tau * d + c]! - (s1 * s1) / m;
+            if (r > 0) v += r;
+          }
         }
         vals[i] = v;
         if (v < best) {
@@ -320,16 +334,17 @@ export function peltMulti(channels: ArrayLike<number>[], opts: PeltMultiOptions 
     const FT = best + beta;
     F[T] = FT;
     last[T] = arg;
-    // Prune [Killick2012 Thm 3.1]: if F(τ) + C(τ, T) > F(T), τ can never be the optimal last change
+    // Prune [Killick2012]: if F(τ) + C(τ, T) > F(T), τ can never be the optimal last change
     // for any end T' at which T itself is a legal last change, i.e. T' ≥ T + minSeg; so τ is dropped
     // after step T + minSeg − 1. (With minSeg = 1 this is the textbook rule.)
     const kill = T + minSeg - 1;
     let w = 0;
     for (let i = 0; i < rn; i++) {
       const tau = R[i]!;
-      if (vals[i]! > FT && killAt[tau]! > kill) killAt[tau] = kill;
-      if (killAt[tau]! <= T) continue;
-      if (T + 1 - tau > maxSeg) continue;
+      let k = killAt[i]!;
+      if (vals[i]! > FT && k > kill) k = kill;
+      if (k <= T || T + 1 - tau > maxSeg) continue;
+      killAt[w] = k;
       R[w++] = tau;
     }
     rn = w;
