@@ -1,0 +1,16 @@
+/**
+ * `npm run bench:ingest`: METAR and CSV ingest throughput, each beside its reference measured in the same
+ * run (plain line splitting and metar-taf-parser for METAR; papaparse parse-only for CSV).
+ * Optional argument: lines/rows (default 1,000,000).
+ */
+import { benchMetar } from './ingest-metar.js';
+import { benchCsv } from './ingest-csv.js';
+
+const n = Number(process.argv[2] ?? 1_000_000);
+console.log('== METAR ==');
+const m = await benchMetar(n);
+console.log('\n== CSV ==');
+const c = await benchCsv(n);
+console.log('\n== summary ==');
+console.log(`METAR decode to series / line splitting: ${m.ratioOursToSplit.toFixed(2)} (target >= 0.30); / metar-taf-parser: ${m.ratioOursToReference.toFixed(0)}x`);
+console.log(`CSV ingest to series / papaparse parse-only: ${c.ratio.toFixed(2)} (target >= 0.70)`);
