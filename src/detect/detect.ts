@@ -11,7 +11,7 @@ import type { StationSeries } from '../series/series.js';
 import { medianCadenceMinutes } from '../series/series.js';
 import { pelt, peltMulti } from '../signal/pelt.js';
 import { buildGrid, type DetectGrid } from './grid.js';
-import { measure, rawColumns, type Features, type RawColumns } from './features.js';
+import { lowerBound, measure, rawColumns, type Features, type RawColumns } from './features.js';
 import { classify, type Classification } from './classify.js';
 import { changeStart, windSplit, type SplitTime } from './timing.js';
 import { runningMean, meanIn } from './window.js';
@@ -126,7 +126,7 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
   let start: SplitTime | null = null;
   const thermal = kind === 'cold-front' || kind === 'warm-front' || kind === 'outflow-boundary' || kind === 'sea-breeze-front';
   if (thermal && !Number.isNaN(f.zoneEndMs)) {
-    const level = meanIn(raw.tC, lowerIdx(s.timeMs, f.timeMs - 2 * HOUR), lowerIdx(s.timeMs, f.timeMs - 0.25 * HOUR));
+    const level = meanIn(raw.tC, lowerBound(s.timeMs, f.timeMs - 2 * HOUR), lowerBound(s.timeMs, f.timeMs - 0.25 * HOUR));
     start = changeStart(s.timeMs, raw.tC, Number.isNaN(level) ? meanIn(g.tC, f.index - HOUR / g.stepMs, f.index) : level, f.tempChangeC, f.timeMs - 3 * HOUR, f.zoneEndMs + 1);
   } else if (kind === 'dryline') {
     const level = meanIn(g.tdC, f.index - HOUR / g.stepMs, f.index + 1);
@@ -149,17 +149,6 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
   better.timing = chosen;
   if (prefrontal !== undefined) better.prefrontalShiftMs = prefrontal;
   return better;
-}
-
-function lowerIdx(t: Float64Array, x: number): number {
-  let lo = 0;
-  let hi = t.length;
-  while (lo < hi) {
-    const m = (lo + hi) >> 1;
-    if (t[m]! < x) lo = m + 1;
-    else hi = m;
-  }
-  return lo;
 }
 
 function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEvent {

@@ -43,7 +43,9 @@ const ANGLE_SLACK_DEG = 1e-9;
  */
 export function normalizeDirectionDeg(dirDeg: number): number {
   const d = dirDeg % 360;
-  return d < 0 ? d + 360 : d === 0 ? 0 : d;
+  const r = d < 0 ? d + 360 : d === 0 ? 0 : d;
+  return r >= 360 ? r - 360 : r; // a tiny negative angle rounds to 360 when shifted
+
 }
 
 /**

@@ -139,32 +139,9 @@ export interface ResampledWind {
   scalarSpeedMs: Float64Array;
 }
 
-/**
- * Wind components from direction (from which it blows, degrees true) and speed (m/s), meteorological
- * convention u = −s·sin(d), v = −s·cos(d) (d is where the wind blows from, WMO-No. 8; the component
- * formulas are textbook). Calm (speed 0) gives u = v = 0 whatever
- * the direction; a missing direction with non-zero speed (variable wind) gives NaN.
- * @example windComponents(270, 10) // { uMs: 10, vMs: ≈0 } (a west wind blows towards the east)
- */
-export function windComponents(dirDeg: number, speedMs: number): { uMs: number; vMs: number } {
-  if (speedMs === 0) return { uMs: 0, vMs: 0 };
-  const r = (dirDeg * Math.PI) / 180;
-  return { uMs: -speedMs * Math.sin(r), vMs: -speedMs * Math.cos(r) };
-}
-
-/**
- * Direction (from which the wind blows, degrees true, [0, 360)) and speed from u, v (m/s); inverse of
- * windComponents. Direction is NaN when the speed is below 1e-9 m/s (calm has no direction).
- * @example windFromComponents(0, -5) // { dirDeg: 0, speedMs: 5 } (north wind)
- */
-export function windFromComponents(uMs: number, vMs: number): { dirDeg: number; speedMs: number } {
-  const speedMs = Math.hypot(uMs, vMs);
-  if (!(speedMs >= 1e-9)) return { dirDeg: NaN, speedMs };
-  let dirDeg = (Math.atan2(-uMs, -vMs) * 180) / Math.PI;
-  if (dirDeg < 0) dirDeg += 360;
-  if (dirDeg >= 360) dirDeg -= 360;
-  return { dirDeg, speedMs };
-}
+// Wind components follow the meteorological convention of src/physics/wind.ts (u = −s·sin d, v = −s·cos d).
+export { windComponents, windFromComponents } from '../physics/wind.js';
+import { windComponents, windFromComponents } from '../physics/wind.js';
 
 /**
  * Resample wind as vector components, never averaging raw directions: each report becomes
