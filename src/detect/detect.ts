@@ -88,7 +88,7 @@ export function detectStation(series: StationSeries, opts: DetectOptions = {}): 
     if (c.c.confidence < minConfidence) continue;
     events.push(toEvent(series, c, opts));
   }
-  const out = suppressAfterTiming(events);
+  const out = markPrefrontalTroughs(suppressAfterTiming(events));
   attachRemarks(series, out);
   return out;
 }
@@ -116,6 +116,21 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
     if (!clash) kept.push(e);
   }
   return kept.sort((a, b) => a.timeMs - b.timeMs);
+}
+
+/**
+ * A wind shift with a pressure trough and little temperature change, followed within 1–8 h by a cold
+ * front at the same station, is a prefrontal trough (Schultz2005), not an occluded front: keep it as an
+ * unclassified wind shift and say so.
+ */
+export function markPrefrontalTroughs(events: PassageEvent[]): PassageEvent[] {
+  return events.map((e) => {
+    if (e.kind !== 'occluded-front' && e.kind !== 'wind-shift') return e;
+    const front = events.find((c) => c.kind === 'cold-front' && c.timeMs - e.timeMs >= HOUR && c.timeMs - e.timeMs <= 8 * HOUR);
+    if (!front) return e;
+    const lead = ((front.timeMs - e.timeMs) / HOUR).toFixed(1);
+    return { ...e, kind: 'wind-shift', evidence: [...e.evidence, `+ cold front follows ${lead} h later: prefrontal trough (wind shift and trough ahead of the front)`] };
+  });
 }
 
 /** Place the leading edge on the raw reports (wind shift, or the start of the sharp change) and re-measure. */

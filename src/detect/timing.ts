@@ -63,8 +63,27 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
       const turn = wb.speedMs > 0.5 && wa.speedMs > 0.5 ? signedTurnDeg(wb.dirDeg, wa.dirDeg) : NaN;
       if (Math.abs(turn) >= minTurnDeg) {
         bestScore = score;
-        const t0 = timeMs[idx[j - 1]!]!;
-        best = { timeMs: (t0 + tj) / 2, earliestMs: t0, latestMs: tj, turnDeg: turn, strength: score };
+        // The shift began at the first report that had turned a tenth of the way from the wind well
+        // before it (FMH-1 §5.4.6 reports the time a shift began); for an abrupt shift that is the split.
+        let k = j;
+        while (k - 1 > 0) {
+          const tk = timeMs[idx[k - 1]!]!;
+          let ur = 0, vr = 0, nr = 0;
+          for (let q = k - 2; q >= 0 && timeMs[idx[q]!]! >= tk - 2 * HOUR; q--) {
+            if (timeMs[idx[q]!]! > tk - 0.5 * HOUR) continue;
+            ur += us[q]!; vr += vs[q]!; nr++;
+          }
+          if (nr === 0) break;
+          const ref = windFromComponents(ur / nr, vr / nr);
+          const kd = idx[k - 1]!;
+          if (!(raw.spd[kd]! > 0) || !(ref.speedMs > 0.5)) break;
+          const part = signedTurnDeg(ref.dirDeg, raw.dir[kd]!);
+          if (!(part / turn >= 0.1)) break;
+          k--;
+        }
+        const t0 = timeMs[idx[k - 1]!]!;
+        const t1 = timeMs[idx[k]!]!;
+        best = { timeMs: (t0 + t1) / 2, earliestMs: t0, latestMs: t1, turnDeg: turn, strength: score };
       }
     }
   }
