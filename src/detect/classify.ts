@@ -66,18 +66,29 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   // Cold front: cooling that lasts, with evidence beyond temperature (turn, trough/rise, drying).
   // Calm air with no turn is how radiative cooling looks: the commonest false cold front.
   const calmAfter = 1 - ramp(f.speedAfterMs, 1.0, 3.0);
-  const beyond = Math.max(veer, 0.9 * trough, 0.8 * Math.min(riseAfter, drying));
-  const cold = cooling * (0.35 + 0.65 * beyond) * (0.55 + 0.25 * veer + 0.2 * Math.max(trough, riseAfter)) * (1 - 0.8 * recovers) * (0.7 + 0.3 * drying) * (1 - 0.6 * fallingAfter) * (1 - 0.8 * calmAfter * (1 - veer));
+  // A kink in the pressure trace (the 3-h tendency turning upward), not a steady post-frontal rise.
+  const kink = ramp(f.pressureRise3hHpa - f.pressureChangeBefore3hHpa, 1.0, 3.0);
+  const beyond = Math.max(veer, 0.9 * trough, 0.8 * Math.min(kink, drying));
+  // The front lies where the temperature falls (Sanders1999): a shift hours ahead of the fall is not it.
+  const lateOnset = ramp(f.onsetDelayH, 1.5, 2.5);
+  const cold = cooling * (0.35 + 0.65 * beyond) * (0.55 + 0.25 * veer + 0.2 * Math.max(trough, riseAfter)) * (1 - 0.8 * recovers) * (0.7 + 0.3 * drying) * (1 - 0.6 * fallingAfter) * (1 - 0.8 * calmAfter * (1 - veer)) * (1 - 0.7 * lateOnset);
   const warmVeer = ramp(turn, 5, 40) * windy;
   // Warm fronts come with cloud and rain that damp the diurnal cycle, so the observed rise counts too.
   const cloudy = ramp(f.depressionBeforeC, 4, 1);
-  const warmingAny = Math.max(ramp(dT, 1.5, 3.5), 0.8 * cloudy * ramp(f.tempChangeC, 1.5, 3.5));
+  // Warm fronts are slow: judge them on the short windows and on 3–5 h windows, whichever fits better.
+  const warmingShort = Math.max(ramp(dT, 1.5, 3.5), 0.8 * cloudy * ramp(f.tempChangeC, 1.5, 3.5));
+  const warmingLong = ramp(f.tempAdjChangeLongC, 1.5, 3.5);
   const pressureFalling = ramp(-f.pressureFallBeforeHpa, 0.5, 2.0) * (1 - riseAfter);
   // Warm air arrives on a wind from the equatorward side: southerly in the north, northerly in the south.
   const towardPoleDeg = hemisphere === 1 ? 180 : 0;
-  const equatorward = Number.isNaN(f.windAfterDeg) ? 0.5 : ramp(-angularDifferenceDeg(f.windAfterDeg, towardPoleDeg), -110, -60);
-  const warmMoist = Math.min(ramp(dTd, 1.0, 3.0), ramp(dTh, 2, 6) + 0.3);
-  const warm = warmingAny * warmMoist * Math.max(warmVeer, pressureFalling) * (0.4 + 0.6 * equatorward);
+  const equatorwardOf = (d: number) => (Number.isNaN(d) ? 0.5 : ramp(-angularDifferenceDeg(d, towardPoleDeg), -110, -60));
+  const warmVeerLong = ramp(f.turnLongDeg * hemisphere, 10, 40) * windy;
+  const moistShort = Math.min(ramp(dTd, 1.0, 3.0), ramp(dTh, 2, 6) + 0.3);
+  const moistLong = ramp(f.dewpointChangeLongC, 1.0, 3.0);
+  const warmShort = warmingShort * moistShort * Math.max(warmVeer, pressureFalling) * (0.4 + 0.6 * equatorwardOf(f.windAfterDeg));
+  const warmLong = warmingLong * moistLong * Math.max(warmVeerLong, pressureFalling) * (0.4 + 0.6 * equatorwardOf(f.windAfterLongDeg));
+  const warm = Math.max(warmShort, 0.9 * warmLong);
+  const warmingAny = Math.max(warmingShort, warmingLong);
   const occluded = ramp(absTurn, 30, 60) * windy * trough * (1 - cooling) * (1 - warming) * 0.9;
   const shift = anyTurn * 0.6;
 
@@ -127,6 +138,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   if (kind === 'dryline') say(true, `dew point falls ${f1(-f.dewpointDropMaxC)} °C within 3 h while temperature holds, by day`);
   if (kind === 'sea-breeze-front') say(true, `coastal station, onshore wind after the turn, local solar hour ${f1(f.solarHour)}`);
   if (cooling > 0.5 && calmAfter > 0.5 && veer < 0.5) say(false, 'light or calm wind after, no turn: radiative cooling looks like this');
+  if (cooling > 0.5 && lateOnset > 0.5) say(false, `the temperature fall starts ${f1(f.onsetDelayH)} h after this time: the front lies at the fall`);
   if (cooling > 0.5 && beyond < 0.3) say(false, 'no evidence beyond temperature (no turn, no trough, no drying): likely diurnal or local cooling');
   return { kind, confidence, evidence: ev, scores };
 }

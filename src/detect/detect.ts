@@ -100,12 +100,15 @@ export function detectStation(series: StationSeries, opts: DetectOptions = {}): 
  * a new front). Rules: common practice, no source.
  */
 export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
-  const byStrength = events.slice().sort((a, b) => b.confidence - a.confidence || a.timeMs - b.timeMs);
+  // A warm front's rise is spread over hours; of two candidates, the one with the veer is the passage.
+  const strength = (e: PassageEvent) => e.confidence + (e.kind === 'warm-front' ? 0.3 * Math.min(1, Math.max(0, (Math.abs(e.windTurnDeg) - 20) / 40)) : 0);
+  const byStrength = events.slice().sort((a, b) => strength(b) - strength(a) || a.timeMs - b.timeMs);
   const kept: PassageEvent[] = [];
   const thermalSign = (e: PassageEvent) => (e.kind === 'cold-front' || e.kind === 'outflow-boundary' ? -1 : e.kind === 'warm-front' ? 1 : 0);
   for (const e of byStrength) {
     const clash = kept.some((k) => {
       if (Math.abs(k.timeMs - e.timeMs) < 2 * HOUR) return true;
+      if (k.kind === 'warm-front' && e.kind === 'warm-front' && Math.abs(k.timeMs - e.timeMs) < 6 * HOUR) return true;
       const sameSign = k.kind === e.kind && thermalSign(k) !== 0;
       if (sameSign && e.timeMs > k.timeMs && e.timeMs <= (Number.isNaN(k.zoneEndMs) ? k.timeMs : k.zoneEndMs) + HOUR) return true;
       if (k.kind === 'cold-front' && e.kind === 'cold-front' && e.timeMs > k.timeMs && e.timeMs - k.timeMs < 9 * HOUR) {

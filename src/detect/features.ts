@@ -51,6 +51,15 @@ export interface Features {
   solarHour: number;
   zoneEndMs: number;
   zoneHours: number;
+  /** Slow (warm-front scale) changes: adjusted temperature and dew point 3–5 h after minus 2 h before; wind turn between 3–0.5 h before and 1.5–4 h after. */
+  tempAdjChangeLongC: number;
+  dewpointChangeLongC: number;
+  turnLongDeg: number;
+  windAfterLongDeg: number;
+  /** Hours from the anchor until a fifth of the temperature change, or 1 °C if less, is done (large = the change starts later). */
+  onsetDelayH: number;
+  /** Pressure change over the 3 h before the anchor (hPa). */
+  pressureChangeBefore3hHpa: number;
   /** Mean dew-point depression in the hour before (°C): small under cloud and rain. */
   depressionBeforeC: number;
   /** Angle between the wind before and the mean wind 1.5–3 h after (small = the wind went back). */
@@ -93,6 +102,8 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
   const perH = HOUR / g.stepMs;
   const before = meanWind(g, i - 2 * perH, i - Math.max(1, perH / 6));
   const after = meanWind(g, i + Math.max(1, perH / 3), i + 2 * perH);
+  const beforeLong = meanWind(g, i - 3 * perH, i - perH / 2);
+  const afterLong = meanWind(g, i + 1.5 * perH, i + 4 * perH);
   const turnDeg = before.speedMs > 0.3 && after.speedMs > 0.3 ? signedTurnDeg(before.dirDeg, after.dirDeg) : NaN;
 
   // Temperature: level in the hour before, then the extreme within 6 h in the direction of the 2–3.5 h change.
@@ -109,6 +120,16 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
       const d = tSmooth[k]! - tb;
       if (d === d && d / tempAdjChangeC >= 0.9) {
         zoneEnd = k;
+        break;
+      }
+    }
+  }
+  let onset = -1;
+  if (ext >= 0 && Math.abs(tempAdjChangeC) > 0) {
+    for (let k = i; k <= ext; k++) {
+      const d = tSmooth[k]! - tb;
+      if (d === d && d / tempAdjChangeC >= Math.min(0.2, 1 / Math.abs(tempAdjChangeC))) {
+        onset = k;
         break;
       }
     }
@@ -195,6 +216,12 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     windReturnDeg,
     pressureFallAfterPeakHpa,
     depressionBeforeC: tbRaw - tdb,
+    onsetDelayH: onset >= 0 ? (onset - i) / perH : NaN,
+    pressureChangeBefore3hHpa: meanIn(g.pHpa, i - 0.25 * perH, i + 0.25 * perH) - meanIn(g.pHpa, i - 3.25 * perH, i - 2.75 * perH),
+    tempAdjChangeLongC: meanIn(g.tAdjC, i + 3 * perH, i + 5 * perH) - meanIn(g.tAdjC, i - 2 * perH, i),
+    dewpointChangeLongC: meanIn(g.tdC, i + 3 * perH, i + 5 * perH) - meanIn(g.tdC, i - 2 * perH, i),
+    turnLongDeg: beforeLong.speedMs > 0.3 && afterLong.speedMs > 0.3 ? signedTurnDeg(beforeLong.dirDeg, afterLong.dirDeg) : NaN,
+    windAfterLongDeg: afterLong.dirDeg,
   };
 }
 
