@@ -42,7 +42,8 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   const windy = ramp(Math.min(f.speedBeforeMs, f.speedAfterMs), 1.0, 3.0);
   const veer = ramp(turn, 15, 50) * windy;
   const anyTurn = ramp(absTurn, 25, 60) * windy;
-  const cooling = ramp(-dT, 1.0, 4.0);
+  // θe falls with the cold, dry air even when a diurnal adjustment hides the temperature fall.
+  const cooling = Math.max(ramp(-dT, 1.0, 4.0), 0.8 * ramp(-dTh, 3, 7) * ramp(-f.tempChangeC, 0, 1.5));
   const warming = ramp(dT, 1.0, 3.5);
   const drying = Math.max(ramp(-dTh, 1.5, 6), ramp(-dTd, 1.0, 4.0));
   const moistening = Math.max(ramp(dTd, 0.5, 3.0), ramp(dTh, 1.5, 6));
@@ -76,7 +77,8 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   // Warm fronts come with cloud and rain that damp the diurnal cycle, so the observed rise counts too.
   const cloudy = ramp(f.depressionBeforeC, 4, 1);
   // Warm fronts are slow: judge them on the short windows and on 3–5 h windows, whichever fits better.
-  const warmingShort = Math.max(ramp(dT, 1.5, 3.5), 0.8 * cloudy * ramp(f.tempChangeC, 1.5, 3.5));
+  // θe rises with the warm, moist air even when the diurnal adjustment hides the temperature rise.
+  const warmingShort = Math.max(ramp(dT, 1.5, 3.5), 0.8 * cloudy * ramp(f.tempChangeC, 1.5, 3.5), 0.8 * ramp(dTh, 3, 7) * ramp(f.tempChangeC, 0, 1.5));
   const warmingLong = ramp(f.tempAdjChangeLongC, 1.5, 3.5);
   const pressureFalling = ramp(-f.pressureFallBeforeHpa, 0.5, 2.0) * (1 - riseAfter);
   // Warm air arrives on a wind from the equatorward side: southerly in the north, northerly in the south.
@@ -89,7 +91,10 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   const warmLong = warmingLong * moistLong * Math.max(warmVeerLong, pressureFalling) * (0.4 + 0.6 * equatorwardOf(f.windAfterLongDeg));
   const warm = Math.max(warmShort, 0.9 * warmLong);
   const warmingAny = Math.max(warmingShort, warmingLong);
-  const occluded = ramp(absTurn, 30, 60) * windy * trough * (1 - cooling) * (1 - warming) * 0.9;
+  // Little change of air mass: little temperature change, or (under a diurnal adjustment that may misjudge
+  // a cloudy day) little change of θe.
+  const littleChange = (1 - ramp(Math.abs(dTh), 3, 7)) * (1 - ramp(Math.min(Math.abs(dT), Math.abs(f.tempChangeC)), 2, 5));
+  const occluded = ramp(absTurn, 30, 60) * windy * trough * littleChange * 0.9;
   const shift = anyTurn * 0.6;
 
   const scores: Record<BoundaryKind, number> = {

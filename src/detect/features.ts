@@ -147,6 +147,10 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
   if (ext >= 0 && Math.abs(tempAdjChangeC) > 0.5) {
     const rec = argExtremeIn(tSmooth, ext, ext + 3 * perH + 1, -sign);
     if (rec >= 0) recoveryFraction = (tSmooth[rec]! - tSmooth[ext]!) / -tempAdjChangeC;
+    // The observed temperature must come back too: an adjusted "recovery" alone is the diurnal expectation.
+    const recRaw = argExtremeIn(tRawSmooth, ext, ext + 3 * perH + 1, -sign);
+    const rawBack = recRaw >= 0 ? (tRawSmooth[recRaw]! - tRawSmooth[ext]!) / -tempAdjChangeC : 0;
+    recoveryFraction = Math.min(recoveryFraction, rawBack);
   }
   // Moisture.
   const tdb = meanIn(g.tdC, i - perH, i + 1);
