@@ -43,7 +43,10 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   const veer = ramp(turn, 15, 50) * windy;
   const anyTurn = ramp(absTurn, 25, 60) * windy;
   // θe falls with the cold, dry air even when a diurnal adjustment hides the temperature fall.
-  const cooling = Math.max(ramp(-dT, 1.0, 4.0), 0.8 * ramp(-dTh, 3, 7) * ramp(-f.tempChangeC, 0, 1.5));
+  // An adjusted fall must show in something observed (temperature, θe or dew point): under unexpected cloud
+  // the diurnal expectation alone can fake a fall of several degrees.
+  const observedFall = Math.max(ramp(-f.tempChangeC, 0, 1.5), ramp(-dTh, 1, 3), ramp(-dTd, 0.5, 2));
+  const cooling = Math.max(ramp(-dT, 1.0, 4.0) * (0.3 + 0.7 * observedFall), 0.8 * ramp(-dTh, 3, 7) * ramp(-f.tempChangeC, 0, 1.5));
   const warming = ramp(dT, 1.0, 3.5);
   const drying = Math.max(ramp(-dTh, 1.5, 6), ramp(-dTd, 1.0, 4.0));
   const moistening = Math.max(ramp(dTd, 0.5, 3.0), ramp(dTh, 1.5, 6));
