@@ -73,7 +73,7 @@ function parser(onSelect: (s: Selected) => void) {
           .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json and summary.txt into DIR', group: 'Output:' })
           .option('local', { type: 'boolean', describe: 'Table times in the --tz zone instead of UTC (needs --tz; CSV/JSON stay UTC)', group: 'Output:' })
           .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
-          .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.3)', group: 'Detection:' })
+          .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.4)', group: 'Detection:' })
           .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h, for zone depth and gradient', group: 'Detection:' })
           .conflicts('out', 'out-dir')
           .example('$0 detect stations-demo', 'Passages in the demo folder, as a table')

@@ -21,7 +21,7 @@ const HOUR = 3_600_000;
 /** Candidates closer than this are one passage (the strongest is kept). common practice, no source. */
 const SUPPRESS_MS = 3 * HOUR;
 /** Default confidence floor. */
-export const DEFAULT_MIN_CONFIDENCE = 0.3;
+export const DEFAULT_MIN_CONFIDENCE = 0.4;
 
 interface Candidate {
   index: number;

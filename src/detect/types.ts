@@ -50,6 +50,6 @@ export interface PassageEvent {
 export interface DetectOptions {
   /** Front speed normal to the front, km/h, for zone depth and gradient. */
   frontSpeedKmh?: number;
-  /** Drop events below this confidence. Default 0.3. */
+  /** Drop events below this confidence. Default 0.4 (DEFAULT_MIN_CONFIDENCE). */
   minConfidence?: number;
 }
