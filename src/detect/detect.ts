@@ -176,8 +176,10 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
   if (c.prefrontalShiftMs !== undefined) {
     evidence.push(`+ wind shift ${((timeMs - c.prefrontalShiftMs) / HOUR).toFixed(1)} h ahead of the temperature fall: prefrontal trough; the front is placed at the fall`);
   }
-  const zoneEndMs = Math.max(f.zoneEndMs, timeMs);
-  const zoneHours = Number.isNaN(f.zoneEndMs) ? NaN : (zoneEndMs - timeMs) / HOUR;
+  // Moisture boundaries: the zone is where the dew point changes, not the temperature.
+  const rawZoneEnd = c.c.kind === 'dryline' && !Number.isNaN(f.moistureZoneEndMs) ? f.moistureZoneEndMs : f.zoneEndMs;
+  const zoneEndMs = Math.max(rawZoneEnd, timeMs);
+  const zoneHours = Number.isNaN(rawZoneEnd) ? NaN : (zoneEndMs - timeMs) / HOUR;
   const speed = opts.frontSpeedKmh;
   const zoneDepthKm = speed !== undefined && speed > 0 && !Number.isNaN(zoneHours) ? zoneHours * speed : NaN;
   const gradient = zoneDepthKm > 0 ? (Math.abs(f.tempChangeC) / zoneDepthKm) * 100 : NaN;
@@ -201,7 +203,7 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
     gustMaxMs: f.gustMaxMs,
     precipNear: f.precipNear,
     zoneStartMs: timeMs,
-    zoneEndMs: Number.isNaN(f.zoneEndMs) ? NaN : zoneEndMs,
+    zoneEndMs: Number.isNaN(rawZoneEnd) ? NaN : zoneEndMs,
     zoneHours,
     zoneDepthKm,
     gradientKPer100km: gradient,

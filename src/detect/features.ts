@@ -51,6 +51,8 @@ export interface Features {
   solarHour: number;
   zoneEndMs: number;
   zoneHours: number;
+  /** Zone end from the dew-point fall (for drylines and other moisture boundaries), epoch ms. */
+  moistureZoneEndMs: number;
   /** Slow (warm-front scale) changes: adjusted temperature and dew point 3–5 h after minus 2 h before; wind turn between 3–0.5 h before and 1.5–4 h after. */
   tempAdjChangeLongC: number;
   dewpointChangeLongC: number;
@@ -113,12 +115,16 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
   const sign = later < 0 ? 1 : -1; // 1 → look for a minimum
   const ext = argExtremeIn(tSmooth, i, i + 6 * perH + 1, sign);
   const tempAdjChangeC = ext >= 0 ? tSmooth[ext]! - tb : NaN;
-  // Zone end: first time 90 % of that change is complete (Sanders-style leading edge to 90 %).
-  let zoneEnd = ext;
-  if (ext >= 0 && Math.abs(tempAdjChangeC) > 0) {
-    for (let k = i; k <= ext; k++) {
+  // End of the frontal change: after the steepest part, where the rate of change has dropped to a small
+  // fraction of its peak; slower changes beyond it are air-mass modification or the diurnal residual.
+  const changeEnd = ext >= 0 ? endOfSteepChange(tSmooth, i, ext, Math.max(1, Math.round(perH / 4)), -sign, 0.07) : -1;
+  const frontalChange = changeEnd >= 0 ? tSmooth[changeEnd]! - tb : NaN;
+  // Zone end: first time 90 % of the frontal change is complete (leading edge to 90 %).
+  let zoneEnd = changeEnd;
+  if (changeEnd >= 0 && Math.abs(frontalChange) > 0) {
+    for (let k = i; k <= changeEnd; k++) {
       const d = tSmooth[k]! - tb;
-      if (d === d && d / tempAdjChangeC >= 0.9) {
+      if (d === d && d / frontalChange >= 0.9) {
         zoneEnd = k;
         break;
       }
@@ -134,7 +140,7 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
       }
     }
   }
-  const tempChangeC = zoneEnd >= 0 ? at(tRawSmooth, zoneEnd) - tbRaw : NaN;
+  const tempChangeC = changeEnd >= 0 ? at(tRawSmooth, changeEnd) - tbRaw : NaN;
   // Abrupt change within 30 min around the anchor.
   let abrupt = 0;
   const w30 = Math.max(1, Math.round(perH / 2));
@@ -157,6 +163,18 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
   const dewpointChangeC = meanIn(g.tdC, i + 1 * perH, i + 3 * perH) - tdb;
   const tdMinIdx = argExtremeIn(g.tdC, i, i + 3 * perH + 1, 1);
   const dewpointDropMaxC = tdMinIdx >= 0 ? g.tdC[tdMinIdx]! - tdb : NaN;
+  let moistureZoneEnd = -1;
+  if (tdMinIdx > i && dewpointDropMaxC < 0) {
+    const end = endOfSteepChange(g.tdC, i, tdMinIdx, Math.max(1, Math.round(perH / 4)), -1, 0.07);
+    const total = g.tdC[end]! - tdb;
+    for (let k = i; k <= end; k++) {
+      const d = g.tdC[k]! - tdb;
+      if (d === d && d / total >= 0.9) {
+        moistureZoneEnd = k;
+        break;
+      }
+    }
+  }
   const thetaEChangeK = meanIn(g.thetaEK, i + 1 * perH, i + 3 * perH) - meanIn(g.thetaEK, i - perH, i + 1);
   // Pressure.
   const pm = argExtremeIn(g.pHpa, i - 3 * perH, i + 1 * perH + 1, 1);
@@ -217,6 +235,7 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     solarHour,
     zoneEndMs,
     zoneHours: (zoneEndMs - tMs) / HOUR,
+    moistureZoneEndMs: moistureZoneEnd >= 0 ? g.timeMs[moistureZoneEnd]! : NaN,
     windReturnDeg,
     pressureFallAfterPeakHpa,
     depressionBeforeC: tbRaw - tdb,
@@ -227,6 +246,30 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     turnLongDeg: beforeLong.speedMs > 0.3 && afterLong.speedMs > 0.3 ? signedTurnDeg(beforeLong.dirDeg, afterLong.dirDeg) : NaN,
     windAfterLongDeg: afterLong.dirDeg,
   };
+}
+
+/**
+ * End of the steep part of a change in `v` between `from` and `to` (indices): the first index after the
+ * steepest point where the rate in the direction `dir` (+1 rising, −1 falling), measured over ±`half`
+ * samples, has fallen below `fraction` of its peak; `to` when it never does. common practice, no source.
+ */
+export function endOfSteepChange(v: ArrayLike<number>, from: number, to: number, half: number, dir: number, fraction: number): number {
+  const rate = (k: number) => dir * ((v[Math.min(v.length - 1, k + half)]! - v[Math.max(0, k - half)]!) / (2 * half));
+  let kMax = -1;
+  let rMax = 0;
+  for (let k = from; k <= to; k++) {
+    const r = rate(k);
+    if (r > rMax) {
+      rMax = r;
+      kMax = k;
+    }
+  }
+  if (kMax < 0) return to;
+  for (let k = kMax + 1; k <= to; k++) {
+    const r = rate(k);
+    if (!(r >= fraction * rMax)) return k;
+  }
+  return to;
 }
 
 /** First index with t[k] ≥ x in a sorted array. */
