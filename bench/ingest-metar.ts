@@ -2,7 +2,8 @@
  * METAR decoding speed. Generates a seeded synthetic corpus (invented reports, ≥ 1,000,000 lines,
  * many stations, US and WMO styles, remarks, archive prefixes) in os.tmpdir(), then measures in one run:
  *   (a) read + split into lines (the floor any reader pays), lines/s;
- *   (b) readMetarText (decode to Observations) + buildSeries per station, reports/s;
+ *   (b) read + readMetarText into a SeriesBuilder + one typed series per station (what loadPaths does,
+ *       without QC), reports/s; (b1) read + readMetarText to an Observation array; (b0) the decoder alone;
  *   (c) metar-taf-parser's parseMetar on a 50,000-line subset, reports/s.
  * Prints the figures and the ratios ours/split (target ≥ 0.3) and ours/metar-taf-parser.
  * Run: node --import tsx bench/ingest-metar.ts [lines]
@@ -15,7 +16,7 @@ import { parseMetar } from 'metar-taf-parser';
 import { readMetarText } from '../src/ingest/metar.js';
 import { archiveStampInto } from '../src/ingest/metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef } from '../src/ingest/metar/decodeMetar.js';
-import { buildSeries, groupByStation } from '../src/series/series.js';
+import { SeriesBuilder } from '../src/series/seriesBuilder.js';
 
 /** mulberry32 PRNG (public-domain algorithm), seeded. */
 function rng(seed: number): () => number {
@@ -200,29 +201,32 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
       split = Math.min(split, s);
       splitCpu = Math.min(splitCpu, c);
     }
-    // (b) read + readMetarText + buildSeries per station; best of 3
+    // (b) read + readMetarText into a SeriesBuilder (no Observation per report) + one series per station; best of 3
     let ours = Infinity;
     let oursCpu = Infinity;
-    let decodeOnly = Infinity;
-    let decodeOnlyCpu = Infinity;
     let res!: { report: ReturnType<typeof readMetarText>['report'] };
     let nStations = 0;
     for (let k = 0; k < 3; k++) {
-      res = { report: res?.report }; // drop the previous run's records before timing the next
       const [, s, c] = time(() => {
-        const [r, sd, cd] = time(() => readMetarText(readFileSync(file, 'utf8'), file));
-        decodeOnly = Math.min(decodeOnly, sd);
-        decodeOnlyCpu = Math.min(decodeOnlyCpu, cd);
+        const b = new SeriesBuilder();
+        const r = readMetarText(readFileSync(file, 'utf8'), file, { onObservation: (o) => b.add(o) });
         res = { report: r.report };
-        const groups = groupByStation(r.observations);
         nStations = 0;
-        for (const [id, obs] of groups) {
-          buildSeries(id, obs);
+        for (const id of b.stations()) {
+          b.build(id);
           nStations++;
         }
       });
       ours = Math.min(ours, s);
       oursCpu = Math.min(oursCpu, c);
+    }
+    // (b1) read + readMetarText to an array of Observation records (the array API), no series
+    let decodeOnly = Infinity;
+    let decodeOnlyCpu = Infinity;
+    for (let k = 0; k < 3; k++) {
+      const [, sd, cd] = time(() => readMetarText(readFileSync(file, 'utf8'), file).observations.length);
+      decodeOnly = Math.min(decodeOnly, sd);
+      decodeOnlyCpu = Math.min(decodeOnlyCpu, cd);
     }
     // (b0) the decoder alone into one reused MetarReport (no Observation records): where the time goes
     let bare = Infinity;
@@ -297,13 +301,14 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
     const k = (x: number) => Math.round(x / 1000).toLocaleString('en-US') + 'k';
     console.log(`METAR bench: ${fig.lines.toLocaleString('en-US')} lines, ${(bytes / 1e6).toFixed(1)} MB, ${fig.stations} stations (node ${process.version})`);
     console.log(`  (a) read + split lines             ${k(fig.splitLinesPerS)} lines/s`);
-    console.log(`  (b) read + decode + buildSeries    ${k(fig.oursReportsPerS)} reports/s  (read + decode only: ${k(fig.oursDecodeOnlyReportsPerS)}/s; parsed ${fig.parsed}, rejected ${fig.rejected}, unknown groups ${fig.unknownGroups})`);
+    console.log(`  (b) read + decode to typed series  ${k(fig.oursReportsPerS)} reports/s  (parsed ${fig.parsed}, rejected ${fig.rejected}, unknown groups ${fig.unknownGroups})`);
+    console.log(`  (b1) read + decode to Observation[] ${k(fig.oursDecodeOnlyReportsPerS)} reports/s  (the array API, no series)`);
     console.log(`  (b0) read + decoder alone, no records ${k(fig.bareDecoderReportsPerS)} reports/s  (split ratio ${(split / bare).toFixed(2)})`);
     console.log(`  (c) metar-taf-parser (50k subset)  ${k(fig.referenceReportsPerS)} reports/s  (${refFail} threw)`);
-    console.log(`  wall clock, best of 3: decode-to-Observation / split = ${fig.ratioDecodeOnlyToSplit.toFixed(2)} (target >= 0.30); with buildSeries / split = ${fig.ratioOursToSplit.toFixed(2)}; ours / metar-taf-parser = ${fig.ratioOursToReference.toFixed(1)}x`);
+    console.log(`  wall clock, best of 3: decode to series / split = ${fig.ratioOursToSplit.toFixed(2)} (target >= 0.30); Observation[] / split = ${fig.ratioDecodeOnlyToSplit.toFixed(2)}; ours / metar-taf-parser = ${fig.ratioOursToReference.toFixed(1)}x (target well over 50x)`);
     const c = fig.cpu;
-    console.log(`  CPU time: split ${k(c.splitLinesPerS)}/s, decoder alone ${k(c.bareDecoderReportsPerS)}/s, decode to records ${k(c.oursDecodeOnlyReportsPerS)}/s, + series ${k(c.oursReportsPerS)}/s, metar-taf-parser ${k(c.referenceReportsPerS)}/s`);
-    console.log(`            decode / split = ${c.ratioDecodeOnlyToSplit.toFixed(2)}, with series / split = ${c.ratioOursToSplit.toFixed(2)}, ours / metar-taf-parser = ${c.ratioOursToReference.toFixed(1)}x`);
+    console.log(`  CPU time: split ${k(c.splitLinesPerS)}/s, decoder alone ${k(c.bareDecoderReportsPerS)}/s, to series ${k(c.oursReportsPerS)}/s, to Observation[] ${k(c.oursDecodeOnlyReportsPerS)}/s, metar-taf-parser ${k(c.referenceReportsPerS)}/s`);
+    console.log(`            to series / split = ${c.ratioOursToSplit.toFixed(2)} (target >= 0.30), Observation[] / split = ${c.ratioDecodeOnlyToSplit.toFixed(2)}, ours / metar-taf-parser = ${c.ratioOursToReference.toFixed(1)}x`);
     console.log(`  load average ${loadavg().map((x) => x.toFixed(1)).join(' ')} on ${cpus().length} cores`);
     return fig;
   } finally {

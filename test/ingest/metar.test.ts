@@ -16,7 +16,9 @@ import {
   STATUTE_MILE_M,
   type MetarReport,
 } from '../../src/ingest/metar.js';
-import { WX, type ParseIssue } from '../../src/ingest/types.js';
+import { WX, type Observation, type ParseIssue } from '../../src/ingest/types.js';
+import { readFileSync } from 'node:fs';
+import { readMetarText } from '../../src/ingest/metar.js';
 
 const REF = { year: 2024, month: 3, file: 'test.txt', line: 1 };
 const kt = (v: number) => v * KNOT_MS;
@@ -373,6 +375,28 @@ test('looksLikeMetar sniffs METAR text but not CSV', () => {
   assert.ok(looksLikeMetar('2024-02-27T08:51:00Z KORD 270851Z 20014G23KT 10SM 14/12 A2942\n'));
   assert.not.ok(looksLikeMetar('station,valid,tmpf\nJFK,2019-11-01 00:24,66.00\n'));
   assert.not.ok(looksLikeMetar(''));
+});
+
+// Same reader, two outputs: the reused-object callback must see exactly what the array API returns.
+test('readMetarText(onObservation) hands over the same observations as the array API (fixture corpus)', () => {
+  const text = readFileSync(new URL('../fixtures/metar-corpus.txt', import.meta.url), 'utf8');
+  const a = readMetarText(text, 'corpus.txt', { month: '2024-02' });
+  const seen: Observation[] = [];
+  let last: Observation | null = null;
+  const b = readMetarText(text, 'corpus.txt', {
+    month: '2024-02',
+    onObservation: (o) => {
+      if (last) assert.ok(o === last, 'one reused object');
+      last = o;
+      const copy = { ...o };
+      if (!copy.remarks) copy.remarks = undefined;
+      seen.push(copy);
+    },
+  });
+  assert.ok(a.observations.length > 50);
+  assert.is(b.observations.length, 0);
+  assert.equal(seen, a.observations);
+  assert.equal(b.report, a.report);
 });
 
 test.run();

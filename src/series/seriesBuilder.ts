@@ -1,0 +1,431 @@
+/**
+ * Columnar sink for observations: readers hand each Observation to `SeriesBuilder.add`, which copies its
+ * fields into per-station growable typed arrays (capacity doubling) and keeps nothing else, so the object
+ * may be reused by the caller right after the call. `build` turns one station's columns into a
+ * StationSeries with exactly the rules of `buildSeries` (stable time sort, duplicate resolution, notes).
+ * Station ids can be resolved (aliases) as rows arrive, once per distinct id.
+ */
+import type { Observation, ObserverRemark, StationMeta } from '../ingest/types.js';
+import { allocSeries, type DuplicateNote, type StationSeries } from './series.js';
+
+const INITIAL_CAPACITY = 64;
+
+/** Grow a typed array to `cap`, keeping the first `n` values. */
+function grownF64(a: Float64Array, n: number, cap: number): Float64Array {
+  const b = new Float64Array(cap);
+  b.set(a.subarray(0, n));
+  return b;
+}
+
+/** One station's rows as they arrived (input order), column by column. */
+export class StationColumns {
+  readonly station: string;
+  length = 0;
+  private cap = 0;
+  timeMs: Float64Array = new Float64Array(0);
+  temperatureC: Float64Array = new Float64Array(0);
+  dewpointC: Float64Array = new Float64Array(0);
+  windDirDeg: Float64Array = new Float64Array(0);
+  windSpeedMs: Float64Array = new Float64Array(0);
+  gustMs: Float64Array = new Float64Array(0);
+  stationPressureHpa: Float64Array = new Float64Array(0);
+  seaLevelPressureHpa: Float64Array = new Float64Array(0);
+  altimeterHpa: Float64Array = new Float64Array(0);
+  precipMm: Float64Array = new Float64Array(0);
+  peakWindMs: Float64Array = new Float64Array(0);
+  /** WX flags (kept as 32-bit so that OR-merging sees what the Observation held; stored 16-bit in the series). */
+  weather: Int32Array = new Int32Array(0);
+  pressureTrend: Int8Array = new Int8Array(0);
+  reportType: Uint8Array = new Uint8Array(0);
+  corrected: Uint8Array = new Uint8Array(0);
+  line: Int32Array = new Int32Array(0);
+  /** Index into the builder's file table. */
+  fileIndex: Int32Array = new Int32Array(0);
+  /** Rows that carry observer remarks, ascending, with their remark lists. */
+  remarkRows: number[] = [];
+  remarkLists: ObserverRemark[][] = [];
+
+  constructor(station: string) {
+    this.station = station;
+  }
+
+  private grow(): void {
+    const n = this.length;
+    const cap = this.cap === 0 ? INITIAL_CAPACITY : this.cap * 2;
+    this.timeMs = grownF64(this.timeMs, n, cap);
+    this.temperatureC = grownF64(this.temperatureC, n, cap);
+    this.dewpointC = grownF64(this.dewpointC, n, cap);
+    this.windDirDeg = grownF64(this.windDirDeg, n, cap);
+    this.windSpeedMs = grownF64(this.windSpeedMs, n, cap);
+    this.gustMs = grownF64(this.gustMs, n, cap);
+    this.stationPressureHpa = grownF64(this.stationPressureHpa, n, cap);
+    this.seaLevelPressureHpa = grownF64(this.seaLevelPressureHpa, n, cap);
+    this.altimeterHpa = grownF64(this.altimeterHpa, n, cap);
+    this.precipMm = grownF64(this.precipMm, n, cap);
+    this.peakWindMs = grownF64(this.peakWindMs, n, cap);
+    let w = new Int32Array(cap);
+    w.set(this.weather.subarray(0, n));
+    this.weather = w;
+    let t8 = new Int8Array(cap);
+    t8.set(this.pressureTrend.subarray(0, n));
+    this.pressureTrend = t8;
+    let u8 = new Uint8Array(cap);
+    u8.set(this.reportType.subarray(0, n));
+    this.reportType = u8;
+    u8 = new Uint8Array(cap);
+    u8.set(this.corrected.subarray(0, n));
+    this.corrected = u8;
+    w = new Int32Array(cap);
+    w.set(this.line.subarray(0, n));
+    this.line = w;
+    w = new Int32Array(cap);
+    w.set(this.fileIndex.subarray(0, n));
+    this.fileIndex = w;
+    this.cap = cap;
+  }
+
+  /** Append the fields of `o` (copied; `o` is not kept, its remarks array is). */
+  push(o: Observation, fileIndex: number): void {
+    const i = this.length;
+    if (i === this.cap) this.grow();
+    this.timeMs[i] = o.timeMs;
+    this.temperatureC[i] = o.temperatureC;
+    this.dewpointC[i] = o.dewpointC;
+    this.windDirDeg[i] = o.windDirDeg;
+    this.windSpeedMs[i] = o.windSpeedMs;
+    this.gustMs[i] = o.gustMs;
+    this.stationPressureHpa[i] = o.stationPressureHpa;
+    this.seaLevelPressureHpa[i] = o.seaLevelPressureHpa;
+    this.altimeterHpa[i] = o.altimeterHpa;
+    this.precipMm[i] = o.precipMm;
+    this.peakWindMs[i] = o.peakWindMs;
+    this.weather[i] = o.weather;
+    this.pressureTrend[i] = o.pressureTrend;
+    const src = o.source;
+    this.reportType[i] = src === 'METAR' ? 1 : src === 'SPECI' ? 2 : 0;
+    this.corrected[i] = o.corrected ? 1 : 0;
+    this.line[i] = o.line;
+    this.fileIndex[i] = fileIndex;
+    const rm = o.remarks;
+    if (rm !== undefined) {
+      this.remarkRows.push(i);
+      this.remarkLists.push(rm);
+    }
+    this.length = i + 1;
+  }
+}
+
+/** NaN-aware equality of one value. */
+function same(x: number, y: number): boolean {
+  return x === y || (x !== x && y !== y);
+}
+
+/** Copy the first n values of a column (exact length). */
+function head<T extends Float64Array | Int32Array | Int8Array | Uint8Array>(a: T, n: number): T {
+  return a.slice(0, n) as unknown as T;
+}
+
+/**
+ * Collects observations of many stations into columns; builds one StationSeries per station.
+ * @example
+ * const b = new SeriesBuilder();
+ * for (const o of observations) b.add(o);
+ * const series = b.stations().map((id) => b.build(id));
+ */
+export class SeriesBuilder {
+  /** Source files seen, indexed by the columns' fileIndex. */
+  readonly files: string[] = [];
+  private readonly fileIdx = new Map<string, number>();
+  private lastFile: string | null = null;
+  private lastFileIndex = -1;
+  /** Raw id → columns of its resolved station. */
+  private readonly byRawId = new Map<string, StationColumns>();
+  private readonly byStation = new Map<string, StationColumns>();
+  private lastRawId: string | null = null;
+  private lastColumns: StationColumns | null = null;
+  private readonly resolve: ((id: string) => string) | undefined;
+
+  /** `resolve` maps a raw station id to the id the series is kept under (alias resolution); called once per distinct raw id. */
+  constructor(resolve?: (id: string) => string) {
+    this.resolve = resolve;
+  }
+
+  /** Number of rows added so far. */
+  get rows(): number {
+    let n = 0;
+    for (const c of this.byStation.values()) n += c.length;
+    return n;
+  }
+
+  private fileIndexOf(file: string): number {
+    if (file === this.lastFile) return this.lastFileIndex;
+    let k = this.fileIdx.get(file);
+    if (k === undefined) {
+      k = this.files.length;
+      this.files.push(file);
+      this.fileIdx.set(file, k);
+    }
+    this.lastFile = file;
+    this.lastFileIndex = k;
+    return k;
+  }
+
+  private columnsOf(rawId: string): StationColumns {
+    if (rawId === this.lastRawId) return this.lastColumns!;
+    let c = this.byRawId.get(rawId);
+    if (c === undefined) {
+      const id = this.resolve ? this.resolve(rawId) : rawId;
+      c = this.byStation.get(id);
+      if (c === undefined) {
+        c = new StationColumns(id);
+        this.byStation.set(id, c);
+      }
+      this.byRawId.set(rawId, c);
+    }
+    this.lastRawId = rawId;
+    this.lastColumns = c;
+    return c;
+  }
+
+  /** Copy one observation in (the object may be reused by the caller afterwards). */
+  add(o: Observation): void {
+    this.columnsOf(o.station).push(o, this.fileIndexOf(o.file));
+  }
+
+  /** Resolved station ids, in order of first appearance. */
+  stations(): string[] {
+    return [...this.byStation.keys()];
+  }
+
+  /** The raw columns of a station (input order), or undefined. */
+  columns(station: string): StationColumns | undefined {
+    return this.byStation.get(station);
+  }
+
+  /**
+   * The series of one station: sorted by time (stable: input order among equal times), duplicates
+   * resolved as in `buildSeries`: a correction (COR) replaces the report it corrects; a report repeated
+   * after its correction is dropped (`corrected-kept`); an identical repeat is dropped; differing repeats
+   * keep the later line with its gaps filled from the earlier one, weather OR-ed and remarks joined.
+   */
+  build(station: string, meta?: StationMeta): StationSeries {
+    const c = this.byStation.get(station);
+    if (c === undefined) return allocSeries(station, 0, meta);
+    return buildFromColumns(station, c, this.files, meta);
+  }
+}
+
+/** See SeriesBuilder.build. */
+function buildFromColumns(station: string, c: StationColumns, files: readonly string[], meta?: StationMeta): StationSeries {
+  const n = c.length;
+  const T = c.timeMs;
+  let sorted = true;
+  let distinct = true;
+  for (let i = 1; i < n; i++) {
+    const a = T[i - 1]!;
+    const b = T[i]!;
+    if (b < a) {
+      sorted = false;
+      break;
+    }
+    if (b === a) distinct = false;
+  }
+  if (sorted && distinct) return copyColumns(station, c, files, meta);
+  let order: Int32Array;
+  if (sorted) {
+    order = new Int32Array(n);
+    for (let i = 0; i < n; i++) order[i] = i;
+  } else {
+    order = stableOrder(T, n);
+  }
+  // Output rows: one per distinct time.
+  let m = n === 0 ? 0 : 1;
+  for (let k = 1; k < n; k++) if (T[order[k]!] !== T[order[k - 1]!]) m++;
+  const s = allocSeries(station, m, meta);
+  const corrected = new Uint8Array(m);
+  const weather = new Int32Array(m);
+  const fileIndex = new Int32Array(m);
+  const rowRemarks: (ObserverRemark[] | undefined)[] = new Array(m);
+  const remarkOf = (idx: number): ObserverRemark[] | undefined => {
+    // remarkRows is ascending: binary search
+    const rows = c.remarkRows;
+    let lo = 0;
+    let hi = rows.length;
+    while (lo < hi) {
+      const mid = (lo + hi) >> 1;
+      if (rows[mid]! < idx) lo = mid + 1;
+      else hi = mid;
+    }
+    return lo < rows.length && rows[lo] === idx ? c.remarkLists[lo] : undefined;
+  };
+  const hasRemarks = c.remarkRows.length > 0;
+  const duplicates: DuplicateNote[] = [];
+  let k = -1;
+  for (let q = 0; q < n; q++) {
+    const idx = order[q]!;
+    const t = T[idx]!;
+    if (k >= 0 && s.timeMs[k] === t) {
+      const oc = c.corrected[idx] === 1;
+      const pc = corrected[k] === 1;
+      const file = files[c.fileIndex[idx]!]!;
+      if (oc && !pc) {
+        duplicates.push({ timeMs: t, action: 'correction-replaced', keptLine: c.line[idx]!, droppedLine: s.line[k]!, file });
+        writeRow(s, k, c, idx);
+        corrected[k] = 1;
+        weather[k] = c.weather[idx]!;
+        fileIndex[k] = c.fileIndex[idx]!;
+        if (hasRemarks) rowRemarks[k] = remarkOf(idx);
+      } else if (pc && !oc) {
+        duplicates.push({ timeMs: t, action: 'corrected-kept', keptLine: s.line[k]!, droppedLine: c.line[idx]!, file });
+      } else if (sameRow(s, k, c, idx)) {
+        duplicates.push({ timeMs: t, action: 'identical-dropped', keptLine: s.line[k]!, droppedLine: c.line[idx]!, file });
+      } else {
+        duplicates.push({ timeMs: t, action: 'conflict-kept-last', keptLine: c.line[idx]!, droppedLine: s.line[k]!, file });
+        mergeRow(s, k, c, idx);
+        corrected[k] = c.corrected[idx]!;
+        weather[k] = c.weather[idx]! | weather[k]!;
+        fileIndex[k] = c.fileIndex[idx]!;
+        // merged remarks: the earlier row's, then this row's (always a list, as buildSeries does)
+        const prev = hasRemarks ? rowRemarks[k] : undefined;
+        const mine = hasRemarks ? remarkOf(idx) : undefined;
+        rowRemarks[k] = [...(prev ?? []), ...(mine ?? [])];
+      }
+      continue;
+    }
+    k++;
+    s.timeMs[k] = t;
+    writeRow(s, k, c, idx);
+    corrected[k] = c.corrected[idx]!;
+    weather[k] = c.weather[idx]!;
+    fileIndex[k] = c.fileIndex[idx]!;
+    if (hasRemarks) rowRemarks[k] = remarkOf(idx);
+  }
+  s.weather.set(weather);
+  finishFiles(s, fileIndex, m, files);
+  for (let i = 0; i < m; i++) {
+    const r = rowRemarks[i];
+    if (r) for (const x of r) s.remarks.push(x);
+  }
+  s.duplicates = duplicates;
+  s.remarks.sort((a, b) => a.reportTimeMs - b.reportTimeMs);
+  return s;
+}
+
+/** Stable order of row indices by time (input order among equal times). */
+function stableOrder(T: Float64Array, n: number): Int32Array {
+  const order = new Int32Array(n);
+  for (let i = 0; i < n; i++) order[i] = i;
+  return order.sort((i, j) => T[i]! - T[j]! || i - j);
+}
+
+/** Station-local file table in order of first appearance among the kept rows. */
+function finishFiles(s: StationSeries, globalIndex: Int32Array, m: number, files: readonly string[]): void {
+  const local = new Map<number, number>();
+  let lastG = -1;
+  let lastL = -1;
+  for (let i = 0; i < m; i++) {
+    const g = globalIndex[i]!;
+    if (g !== lastG) {
+      let l = local.get(g);
+      if (l === undefined) {
+        l = s.files.length;
+        s.files.push(files[g]!);
+        local.set(g, l);
+      }
+      lastG = g;
+      lastL = l;
+    }
+    s.fileIndex[i] = lastL;
+  }
+}
+
+/** Fast path: rows already in strictly increasing time order; columns are copied whole. */
+function copyColumns(station: string, c: StationColumns, files: readonly string[], meta?: StationMeta): StationSeries {
+  const n = c.length;
+  const s = allocSeries(station, 0, meta);
+  const qc = s.qc;
+  for (const f of Object.keys(qc) as (keyof typeof qc)[]) qc[f] = new Uint8Array(n);
+  s.length = n;
+  s.timeMs = head(c.timeMs, n);
+  s.temperatureC = head(c.temperatureC, n);
+  s.dewpointC = head(c.dewpointC, n);
+  s.windDirDeg = head(c.windDirDeg, n);
+  s.windSpeedMs = head(c.windSpeedMs, n);
+  s.gustMs = head(c.gustMs, n);
+  s.stationPressureHpa = head(c.stationPressureHpa, n);
+  s.seaLevelPressureHpa = head(c.seaLevelPressureHpa, n);
+  s.altimeterHpa = head(c.altimeterHpa, n);
+  s.precipMm = head(c.precipMm, n);
+  s.peakWindMs = head(c.peakWindMs, n);
+  s.weather = new Uint16Array(n);
+  s.weather.set(c.weather.subarray(0, n));
+  s.pressureTrend = head(c.pressureTrend, n);
+  s.reportType = head(c.reportType, n);
+  s.line = head(c.line, n);
+  s.fileIndex = new Uint16Array(n);
+  finishFiles(s, c.fileIndex, n, files);
+  for (const list of c.remarkLists) for (const x of list) s.remarks.push(x);
+  s.remarks.sort((a, b) => a.reportTimeMs - b.reportTimeMs);
+  return s;
+}
+
+/** Write row idx of the columns into series row k (all values but time, weather and file). */
+function writeRow(s: StationSeries, k: number, c: StationColumns, idx: number): void {
+  s.temperatureC[k] = c.temperatureC[idx]!;
+  s.dewpointC[k] = c.dewpointC[idx]!;
+  s.windDirDeg[k] = c.windDirDeg[idx]!;
+  s.windSpeedMs[k] = c.windSpeedMs[idx]!;
+  s.gustMs[k] = c.gustMs[idx]!;
+  s.stationPressureHpa[k] = c.stationPressureHpa[idx]!;
+  s.seaLevelPressureHpa[k] = c.seaLevelPressureHpa[idx]!;
+  s.altimeterHpa[k] = c.altimeterHpa[idx]!;
+  s.precipMm[k] = c.precipMm[idx]!;
+  s.peakWindMs[k] = c.peakWindMs[idx]!;
+  s.pressureTrend[k] = c.pressureTrend[idx]!;
+  s.reportType[k] = c.reportType[idx]!;
+  s.line[k] = c.line[idx]!;
+}
+
+/** Row idx over series row k: its values where present, the earlier ones in its gaps. */
+function mergeRow(s: StationSeries, k: number, c: StationColumns, idx: number): void {
+  let v: number;
+  v = c.temperatureC[idx]!;
+  if (v === v) s.temperatureC[k] = v;
+  v = c.dewpointC[idx]!;
+  if (v === v) s.dewpointC[k] = v;
+  v = c.windDirDeg[idx]!;
+  if (v === v) s.windDirDeg[k] = v;
+  v = c.windSpeedMs[idx]!;
+  if (v === v) s.windSpeedMs[k] = v;
+  v = c.gustMs[idx]!;
+  if (v === v) s.gustMs[k] = v;
+  v = c.stationPressureHpa[idx]!;
+  if (v === v) s.stationPressureHpa[k] = v;
+  v = c.seaLevelPressureHpa[idx]!;
+  if (v === v) s.seaLevelPressureHpa[k] = v;
+  v = c.altimeterHpa[idx]!;
+  if (v === v) s.altimeterHpa[k] = v;
+  v = c.precipMm[idx]!;
+  if (v === v) s.precipMm[k] = v;
+  v = c.peakWindMs[idx]!;
+  if (v === v) s.peakWindMs[k] = v;
+  s.pressureTrend[k] = c.pressureTrend[idx]!;
+  s.reportType[k] = c.reportType[idx]!;
+  s.line[k] = c.line[idx]!;
+}
+
+/** The ten series values of row idx equal those of series row k (NaN equals NaN). */
+function sameRow(s: StationSeries, k: number, c: StationColumns, idx: number): boolean {
+  return (
+    same(s.temperatureC[k]!, c.temperatureC[idx]!) &&
+    same(s.dewpointC[k]!, c.dewpointC[idx]!) &&
+    same(s.windDirDeg[k]!, c.windDirDeg[idx]!) &&
+    same(s.windSpeedMs[k]!, c.windSpeedMs[idx]!) &&
+    same(s.gustMs[k]!, c.gustMs[idx]!) &&
+    same(s.stationPressureHpa[k]!, c.stationPressureHpa[idx]!) &&
+    same(s.seaLevelPressureHpa[k]!, c.seaLevelPressureHpa[idx]!) &&
+    same(s.altimeterHpa[k]!, c.altimeterHpa[idx]!) &&
+    same(s.precipMm[k]!, c.precipMm[idx]!) &&
+    same(s.peakWindMs[k]!, c.peakWindMs[idx]!)
+  );
+}
