@@ -97,7 +97,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   // Little change of air mass: little temperature change, or (under a diurnal adjustment that may misjudge
   // a cloudy day) little change of θe.
   const littleChange = (1 - ramp(Math.abs(dTh), 3, 7)) * (1 - ramp(Math.min(Math.abs(dT), Math.abs(f.tempChangeC)), 2, 5));
-  const occluded = ramp(absTurn, 30, 60) * windy * trough * littleChange * 0.9;
+  const occluded = ramp(absTurn, 30, 60) * windy * Math.max(trough, kink) * littleChange * 0.9;
   const shift = anyTurn * 0.6;
 
   const scores: Record<BoundaryKind, number> = {
