@@ -75,7 +75,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   const beyond = Math.max(veer, 0.9 * trough, 0.8 * Math.min(kink, drying));
   // The front lies where the temperature falls (Sanders1999): a shift hours ahead of the fall is not it.
   const lateOnset = ramp(f.onsetDelayH, 1.5, 2.5);
-  const cold = cooling * (0.35 + 0.65 * beyond) * (0.55 + 0.25 * veer + 0.2 * Math.max(trough, riseAfter)) * (1 - 0.8 * recovers) * (0.7 + 0.3 * drying) * (1 - 0.6 * fallingAfter) * (1 - 0.8 * calmAfter * (1 - veer)) * (1 - 0.7 * lateOnset);
+  const cold = cooling * (0.35 + 0.65 * beyond) * (0.55 + 0.25 * veer + 0.2 * Math.max(trough, riseAfter)) * (1 - 0.8 * recovers) * (0.4 + 0.6 * drying) * (1 - 0.6 * fallingAfter) * (1 - 0.8 * calmAfter * (1 - veer)) * (1 - 0.7 * lateOnset);
   const warmVeer = ramp(turn, 5, 40) * windy;
   // Warm fronts come with cloud and rain that damp the diurnal cycle, so the observed rise counts too.
   const cloudy = ramp(f.depressionBeforeC, 4, 1);
