@@ -8,39 +8,66 @@
 import type { Observation, ObserverRemark, StationMeta } from '../ingest/types.js';
 import { allocSeries, type DuplicateNote, type StationSeries } from './series.js';
 
-const INITIAL_CAPACITY = 64;
+const INITIAL_CAPACITY = 32;
+const MAX_CHUNK_ROWS = 2048;
+/** Values per row in a station's record array (row-major, so one report writes two cache lines, not sixteen). */
+const STRIDE = 16;
+// record slots
+const R_TIME = 0;
+const R_T = 1;
+const R_TD = 2;
+const R_DIR = 3;
+const R_SPD = 4;
+const R_GUST = 5;
+const R_PSTN = 6;
+const R_SLP = 7;
+const R_ALT = 8;
+const R_PCP = 9;
+const R_PK = 10;
+const R_WX = 11;
+const R_TREND = 12;
+/** reportType + 4 × corrected */
+const R_KIND = 13;
+const R_LINE = 14;
+const R_FILE = 15;
 
-/** Grow a typed array to `cap`, keeping the first `n` values. */
-function grownF64(a: Float64Array, n: number, cap: number): Float64Array {
-  const b = new Float64Array(cap);
-  b.set(a.subarray(0, n));
-  return b;
+/** One station's rows column by column (exact length), in input order. */
+export interface Columns {
+  length: number;
+  timeMs: Float64Array;
+  temperatureC: Float64Array;
+  dewpointC: Float64Array;
+  windDirDeg: Float64Array;
+  windSpeedMs: Float64Array;
+  gustMs: Float64Array;
+  stationPressureHpa: Float64Array;
+  seaLevelPressureHpa: Float64Array;
+  altimeterHpa: Float64Array;
+  precipMm: Float64Array;
+  peakWindMs: Float64Array;
+  /** WX flags as the Observation held them (32-bit, stored 16-bit in the series). */
+  weather: Int32Array;
+  pressureTrend: Int8Array;
+  reportType: Uint8Array;
+  corrected: Uint8Array;
+  line: Int32Array;
+  /** Index into the builder's file table. */
+  fileIndex: Int32Array;
+  /** Rows that carry observer remarks, ascending, with their remark lists. */
+  remarkRows: readonly number[];
+  remarkLists: readonly ObserverRemark[][];
 }
 
-/** One station's rows as they arrived (input order), column by column. */
+/** One station's rows as they arrived (input order), one record of STRIDE doubles per row, in chunks (no copying on growth). */
 export class StationColumns {
   readonly station: string;
   length = 0;
-  private cap = 0;
-  timeMs: Float64Array = new Float64Array(0);
-  temperatureC: Float64Array = new Float64Array(0);
-  dewpointC: Float64Array = new Float64Array(0);
-  windDirDeg: Float64Array = new Float64Array(0);
-  windSpeedMs: Float64Array = new Float64Array(0);
-  gustMs: Float64Array = new Float64Array(0);
-  stationPressureHpa: Float64Array = new Float64Array(0);
-  seaLevelPressureHpa: Float64Array = new Float64Array(0);
-  altimeterHpa: Float64Array = new Float64Array(0);
-  precipMm: Float64Array = new Float64Array(0);
-  peakWindMs: Float64Array = new Float64Array(0);
-  /** WX flags (kept as 32-bit so that OR-merging sees what the Observation held; stored 16-bit in the series). */
-  weather: Int32Array = new Int32Array(0);
-  pressureTrend: Int8Array = new Int8Array(0);
-  reportType: Uint8Array = new Uint8Array(0);
-  corrected: Uint8Array = new Uint8Array(0);
-  line: Int32Array = new Int32Array(0);
-  /** Index into the builder's file table. */
-  fileIndex: Int32Array = new Int32Array(0);
+  /** Full chunks, then the current one. */
+  private readonly chunks: Float64Array[] = [];
+  private cur: Float64Array = new Float64Array(0);
+  /** Rows used in the current chunk, and its capacity in rows. */
+  private used = 0;
+  private rows = 0;
   /** Rows that carry observer remarks, ascending, with their remark lists. */
   remarkRows: number[] = [];
   remarkLists: ObserverRemark[][] = [];
@@ -50,62 +77,38 @@ export class StationColumns {
   }
 
   private grow(): void {
-    const n = this.length;
-    const cap = this.cap === 0 ? INITIAL_CAPACITY : this.cap * 2;
-    this.timeMs = grownF64(this.timeMs, n, cap);
-    this.temperatureC = grownF64(this.temperatureC, n, cap);
-    this.dewpointC = grownF64(this.dewpointC, n, cap);
-    this.windDirDeg = grownF64(this.windDirDeg, n, cap);
-    this.windSpeedMs = grownF64(this.windSpeedMs, n, cap);
-    this.gustMs = grownF64(this.gustMs, n, cap);
-    this.stationPressureHpa = grownF64(this.stationPressureHpa, n, cap);
-    this.seaLevelPressureHpa = grownF64(this.seaLevelPressureHpa, n, cap);
-    this.altimeterHpa = grownF64(this.altimeterHpa, n, cap);
-    this.precipMm = grownF64(this.precipMm, n, cap);
-    this.peakWindMs = grownF64(this.peakWindMs, n, cap);
-    let w = new Int32Array(cap);
-    w.set(this.weather.subarray(0, n));
-    this.weather = w;
-    let t8 = new Int8Array(cap);
-    t8.set(this.pressureTrend.subarray(0, n));
-    this.pressureTrend = t8;
-    let u8 = new Uint8Array(cap);
-    u8.set(this.reportType.subarray(0, n));
-    this.reportType = u8;
-    u8 = new Uint8Array(cap);
-    u8.set(this.corrected.subarray(0, n));
-    this.corrected = u8;
-    w = new Int32Array(cap);
-    w.set(this.line.subarray(0, n));
-    this.line = w;
-    w = new Int32Array(cap);
-    w.set(this.fileIndex.subarray(0, n));
-    this.fileIndex = w;
-    this.cap = cap;
+    const rows = this.rows === 0 ? INITIAL_CAPACITY : Math.min(this.rows * 2, MAX_CHUNK_ROWS);
+    this.cur = new Float64Array(rows * STRIDE);
+    this.chunks.push(this.cur);
+    this.rows = rows;
+    this.used = 0;
   }
 
   /** Append the fields of `o` (copied; `o` is not kept, its remarks array is). */
   push(o: Observation, fileIndex: number): void {
     const i = this.length;
-    if (i === this.cap) this.grow();
-    this.timeMs[i] = o.timeMs;
-    this.temperatureC[i] = o.temperatureC;
-    this.dewpointC[i] = o.dewpointC;
-    this.windDirDeg[i] = o.windDirDeg;
-    this.windSpeedMs[i] = o.windSpeedMs;
-    this.gustMs[i] = o.gustMs;
-    this.stationPressureHpa[i] = o.stationPressureHpa;
-    this.seaLevelPressureHpa[i] = o.seaLevelPressureHpa;
-    this.altimeterHpa[i] = o.altimeterHpa;
-    this.precipMm[i] = o.precipMm;
-    this.peakWindMs[i] = o.peakWindMs;
-    this.weather[i] = o.weather;
-    this.pressureTrend[i] = o.pressureTrend;
+    if (this.used === this.rows) this.grow();
+    const r = this.cur;
+    const p = this.used * STRIDE;
+    this.used++;
+    r[p + R_TIME] = o.timeMs;
+    r[p + R_T] = o.temperatureC;
+    r[p + R_TD] = o.dewpointC;
+    r[p + R_DIR] = o.windDirDeg;
+    r[p + R_SPD] = o.windSpeedMs;
+    r[p + R_GUST] = o.gustMs;
+    r[p + R_PSTN] = o.stationPressureHpa;
+    r[p + R_SLP] = o.seaLevelPressureHpa;
+    r[p + R_ALT] = o.altimeterHpa;
+    r[p + R_PCP] = o.precipMm;
+    r[p + R_PK] = o.peakWindMs;
+    // integer slots hold what the typed columns of the series would hold
+    r[p + R_WX] = o.weather | 0;
+    r[p + R_TREND] = (o.pressureTrend << 24) >> 24;
     const src = o.source;
-    this.reportType[i] = src === 'METAR' ? 1 : src === 'SPECI' ? 2 : 0;
-    this.corrected[i] = o.corrected ? 1 : 0;
-    this.line[i] = o.line;
-    this.fileIndex[i] = fileIndex;
+    r[p + R_KIND] = (src === 'METAR' ? 1 : src === 'SPECI' ? 2 : 0) + (o.corrected ? 4 : 0);
+    r[p + R_LINE] = o.line | 0;
+    r[p + R_FILE] = fileIndex;
     const rm = o.remarks;
     if (rm !== undefined) {
       this.remarkRows.push(i);
@@ -113,16 +116,62 @@ export class StationColumns {
     }
     this.length = i + 1;
   }
+
+  /** The rows as exact-length columns (fresh arrays). */
+  columns(): Columns {
+    const n = this.length;
+    const timeMs = new Float64Array(n);
+    const temperatureC = new Float64Array(n);
+    const dewpointC = new Float64Array(n);
+    const windDirDeg = new Float64Array(n);
+    const windSpeedMs = new Float64Array(n);
+    const gustMs = new Float64Array(n);
+    const stationPressureHpa = new Float64Array(n);
+    const seaLevelPressureHpa = new Float64Array(n);
+    const altimeterHpa = new Float64Array(n);
+    const precipMm = new Float64Array(n);
+    const peakWindMs = new Float64Array(n);
+    const weather = new Int32Array(n);
+    const pressureTrend = new Int8Array(n);
+    const reportType = new Uint8Array(n);
+    const corrected = new Uint8Array(n);
+    const line = new Int32Array(n);
+    const fileIndex = new Int32Array(n);
+    let i = 0;
+    for (const r of this.chunks) {
+      const end = Math.min(n, i + r.length / STRIDE);
+      for (let p = 0; i < end; i++, p += STRIDE) {
+      timeMs[i] = r[p + R_TIME]!;
+      temperatureC[i] = r[p + R_T]!;
+      dewpointC[i] = r[p + R_TD]!;
+      windDirDeg[i] = r[p + R_DIR]!;
+      windSpeedMs[i] = r[p + R_SPD]!;
+      gustMs[i] = r[p + R_GUST]!;
+      stationPressureHpa[i] = r[p + R_PSTN]!;
+      seaLevelPressureHpa[i] = r[p + R_SLP]!;
+      altimeterHpa[i] = r[p + R_ALT]!;
+      precipMm[i] = r[p + R_PCP]!;
+      peakWindMs[i] = r[p + R_PK]!;
+      weather[i] = r[p + R_WX]!;
+      pressureTrend[i] = r[p + R_TREND]!;
+      const kind = r[p + R_KIND]!;
+      reportType[i] = kind & 3;
+      corrected[i] = kind >> 2;
+      line[i] = r[p + R_LINE]!;
+      fileIndex[i] = r[p + R_FILE]!;
+      }
+    }
+    return {
+      length: n, timeMs, temperatureC, dewpointC, windDirDeg, windSpeedMs, gustMs, stationPressureHpa, seaLevelPressureHpa,
+      altimeterHpa, precipMm, peakWindMs, weather, pressureTrend, reportType, corrected, line, fileIndex,
+      remarkRows: this.remarkRows, remarkLists: this.remarkLists,
+    };
+  }
 }
 
 /** NaN-aware equality of one value. */
 function same(x: number, y: number): boolean {
   return x === y || (x !== x && y !== y);
-}
-
-/** Copy the first n values of a column (exact length). */
-function head<T extends Float64Array | Int32Array | Int8Array | Uint8Array>(a: T, n: number): T {
-  return a.slice(0, n) as unknown as T;
 }
 
 /**
@@ -211,12 +260,12 @@ export class SeriesBuilder {
   build(station: string, meta?: StationMeta): StationSeries {
     const c = this.byStation.get(station);
     if (c === undefined) return allocSeries(station, 0, meta);
-    return buildFromColumns(station, c, this.files, meta);
+    return buildFromColumns(station, c.columns(), this.files, meta);
   }
 }
 
 /** See SeriesBuilder.build. */
-function buildFromColumns(station: string, c: StationColumns, files: readonly string[], meta?: StationMeta): StationSeries {
+function buildFromColumns(station: string, c: Columns, files: readonly string[], meta?: StationMeta): StationSeries {
   const n = c.length;
   const T = c.timeMs;
   let sorted = true;
@@ -340,28 +389,28 @@ function finishFiles(s: StationSeries, globalIndex: Int32Array, m: number, files
 }
 
 /** Fast path: rows already in strictly increasing time order; columns are copied whole. */
-function copyColumns(station: string, c: StationColumns, files: readonly string[], meta?: StationMeta): StationSeries {
+function copyColumns(station: string, c: Columns, files: readonly string[], meta?: StationMeta): StationSeries {
   const n = c.length;
   const s = allocSeries(station, 0, meta);
   const qc = s.qc;
   for (const f of Object.keys(qc) as (keyof typeof qc)[]) qc[f] = new Uint8Array(n);
   s.length = n;
-  s.timeMs = head(c.timeMs, n);
-  s.temperatureC = head(c.temperatureC, n);
-  s.dewpointC = head(c.dewpointC, n);
-  s.windDirDeg = head(c.windDirDeg, n);
-  s.windSpeedMs = head(c.windSpeedMs, n);
-  s.gustMs = head(c.gustMs, n);
-  s.stationPressureHpa = head(c.stationPressureHpa, n);
-  s.seaLevelPressureHpa = head(c.seaLevelPressureHpa, n);
-  s.altimeterHpa = head(c.altimeterHpa, n);
-  s.precipMm = head(c.precipMm, n);
-  s.peakWindMs = head(c.peakWindMs, n);
+  s.timeMs = c.timeMs;
+  s.temperatureC = c.temperatureC;
+  s.dewpointC = c.dewpointC;
+  s.windDirDeg = c.windDirDeg;
+  s.windSpeedMs = c.windSpeedMs;
+  s.gustMs = c.gustMs;
+  s.stationPressureHpa = c.stationPressureHpa;
+  s.seaLevelPressureHpa = c.seaLevelPressureHpa;
+  s.altimeterHpa = c.altimeterHpa;
+  s.precipMm = c.precipMm;
+  s.peakWindMs = c.peakWindMs;
   s.weather = new Uint16Array(n);
-  s.weather.set(c.weather.subarray(0, n));
-  s.pressureTrend = head(c.pressureTrend, n);
-  s.reportType = head(c.reportType, n);
-  s.line = head(c.line, n);
+  s.weather.set(c.weather);
+  s.pressureTrend = c.pressureTrend;
+  s.reportType = c.reportType;
+  s.line = c.line;
   s.fileIndex = new Uint16Array(n);
   finishFiles(s, c.fileIndex, n, files);
   for (const list of c.remarkLists) for (const x of list) s.remarks.push(x);
@@ -370,7 +419,7 @@ function copyColumns(station: string, c: StationColumns, files: readonly string[
 }
 
 /** Write row idx of the columns into series row k (all values but time, weather and file). */
-function writeRow(s: StationSeries, k: number, c: StationColumns, idx: number): void {
+function writeRow(s: StationSeries, k: number, c: Columns, idx: number): void {
   s.temperatureC[k] = c.temperatureC[idx]!;
   s.dewpointC[k] = c.dewpointC[idx]!;
   s.windDirDeg[k] = c.windDirDeg[idx]!;
@@ -387,7 +436,7 @@ function writeRow(s: StationSeries, k: number, c: StationColumns, idx: number): 
 }
 
 /** Row idx over series row k: its values where present, the earlier ones in its gaps. */
-function mergeRow(s: StationSeries, k: number, c: StationColumns, idx: number): void {
+function mergeRow(s: StationSeries, k: number, c: Columns, idx: number): void {
   let v: number;
   v = c.temperatureC[idx]!;
   if (v === v) s.temperatureC[k] = v;
@@ -415,7 +464,7 @@ function mergeRow(s: StationSeries, k: number, c: StationColumns, idx: number): 
 }
 
 /** The ten series values of row idx equal those of series row k (NaN equals NaN). */
-function sameRow(s: StationSeries, k: number, c: StationColumns, idx: number): boolean {
+function sameRow(s: StationSeries, k: number, c: Columns, idx: number): boolean {
   return (
     same(s.temperatureC[k]!, c.temperatureC[idx]!) &&
     same(s.dewpointC[k]!, c.dewpointC[idx]!) &&
