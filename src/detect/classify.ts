@@ -56,7 +56,11 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   const gusty = ramp(f.gustMaxMs, 10, 18);
   const daytime = Number.isNaN(f.solarHour) ? 0.5 : f.solarHour >= 9.5 && f.solarHour <= 18.5 ? 1 : 0;
   const levelT = ramp(dT, -2.5, -0.5);
-  const dryline = ramp(-f.dewpointDropMaxC, 4, 8) * levelT * (daytime ? 1 : 0.3) * (1 - 0.7 * trough);
+  // Dryline (Schaefer1986): moist air ahead (dew point well above freezing; threshold common practice),
+  // a wind turning to the dry, westerly side (mirrored south of the equator), by day.
+  const westerlyAfter = Number.isNaN(f.windAfterDeg) ? 0.5 : ramp(-angularDifferenceDeg(f.windAfterDeg, hemisphere === 1 ? 250 : 290), -80, -40);
+  const moistAhead = ramp(f.dewpointBeforeC, 3, 8);
+  const dryline = ramp(-f.dewpointDropMaxC, 4, 8) * levelT * (daytime ? 1 : 0.3) * (1 - 0.7 * trough) * moistAhead * (0.3 + 0.7 * Math.min(westerlyAfter, ramp(turn, 5, 20) + 0.3));
   let onshore = 0;
   if (meta?.coastal && meta.seaBearingDeg !== undefined && !Number.isNaN(f.windAfterDeg)) {
     onshore = ramp(-angularDifferenceDeg(f.windAfterDeg, meta.seaBearingDeg), -75, -40);
@@ -69,10 +73,12 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
 
   // Cold front: cooling that lasts, with evidence beyond temperature (turn, trough/rise, drying).
   // Calm air with no turn is how radiative cooling looks: the commonest false cold front.
-  const calmAfter = 1 - ramp(f.speedAfterMs, 1.0, 3.0);
+  const calmAfter = Number.isNaN(f.speedAfterMs) ? 0 : 1 - ramp(f.speedAfterMs, 1.0, 3.0); // no wind data is not calm
   // A kink in the pressure trace (the 3-h tendency turning upward), not a steady post-frontal rise.
   const kink = ramp(f.pressureRise3hHpa - f.pressureChangeBefore3hHpa, 1.0, 3.0);
-  const beyond = Math.max(veer, 0.9 * trough, 0.8 * Math.min(kink, drying));
+  // With neither wind nor pressure reported, a marked θe or dew-point fall is the only other evidence there is.
+  const blind = Number.isNaN(f.turnDeg) && Number.isNaN(f.pressureRise3hHpa) ? 1 : 0;
+  const beyond = Math.max(veer, 0.9 * trough, 0.8 * Math.min(kink, drying), 0.7 * blind * ramp(-dTh, 4, 8));
   // The front lies where the temperature falls (Sanders1999): a shift hours ahead of the fall is not it.
   const lateOnset = ramp(f.onsetDelayH, 1.5, 2.5);
   const cold = cooling * (0.35 + 0.65 * beyond) * (0.55 + 0.25 * veer + 0.2 * Math.max(trough, riseAfter)) * (1 - 0.8 * recovers) * (0.4 + 0.6 * drying) * (1 - 0.6 * fallingAfter) * (1 - 0.8 * calmAfter * (1 - veer)) * (1 - 0.7 * lateOnset);
@@ -147,6 +153,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   if (kind === 'sea-breeze-front') say(true, `coastal station, onshore wind after the turn, local solar hour ${f1(f.solarHour)}`);
   if (cooling > 0.5 && calmAfter > 0.5 && veer < 0.5) say(false, 'light or calm wind after, no turn: radiative cooling looks like this');
   if (cooling > 0.5 && lateOnset > 0.5) say(false, `the temperature fall starts ${f1(f.onsetDelayH)} h after this time: the front lies at the fall`);
+  if (blind) say(false, 'no wind and no pressure reported: judged on temperature and moisture alone');
   if (cooling > 0.5 && beyond < 0.3) say(false, 'no evidence beyond temperature (no turn, no trough, no drying): likely diurnal or local cooling');
   return { kind, confidence, evidence: ev, scores };
 }

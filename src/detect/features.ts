@@ -62,6 +62,8 @@ export interface Features {
   onsetDelayH: number;
   /** Pressure change over the 3 h before the anchor (hPa). */
   pressureChangeBefore3hHpa: number;
+  /** Mean dew point in the hour before (°C). */
+  dewpointBeforeC: number;
   /** Mean dew-point depression in the hour before (°C): small under cloud and rain. */
   depressionBeforeC: number;
   /** Angle between the wind before and the mean wind 1.5–3 h after (small = the wind went back). */
@@ -239,6 +241,7 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     windReturnDeg,
     pressureFallAfterPeakHpa,
     depressionBeforeC: tbRaw - tdb,
+    dewpointBeforeC: tdb,
     onsetDelayH: onset >= 0 ? (onset - i) / perH : NaN,
     pressureChangeBefore3hHpa: meanIn(g.pHpa, i - 0.25 * perH, i + 0.25 * perH) - meanIn(g.pHpa, i - 3.25 * perH, i - 2.75 * perH),
     tempAdjChangeLongC: meanIn(g.tAdjC, i + 3 * perH, i + 5 * perH) - meanIn(g.tAdjC, i - 2 * perH, i),

@@ -6,7 +6,7 @@
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { existsSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { loadPaths } from '../../src/ingest/load.js';
 import { detectStation } from '../../src/detect/detect.js';
@@ -82,6 +82,32 @@ if (!have) {
       assert.ok(e && e.kind === 'cold-front', show(ev, '2010-10-26T00:00Z', '2010-10-27T06:00Z'));
     });
   }
+
+  // Colorado 2017 (ProjectPythia sample of IEM ASOS data; no wind in the file): temperature, dew point and
+  // sea-level pressure only. Reading of the reports: FNL 2017-10-09, 13.9 °C at 00:56Z to 5.0 °C at 02:44Z
+  // with pressure rising from 23:56Z; the fall starts after 22:56Z (hourly reports), so the leading edge
+  // lies between 22:56Z and 02:44Z.
+  const co = loadPaths([dir + 'stations.csv', dir + 'colorado_2017_FNL_LMO_1V6_0CO.tsv']);
+  const fnl = detectStation(co.series.find((x) => x.station === 'KFNL')!);
+  test('KFNL 2017-10-09: a strong cold front found without wind data', () => {
+    const e = fnl.find((x) => x.kind === 'cold-front' && x.timeMs >= Date.parse('2017-10-08T22:56Z') && x.timeMs <= Date.parse('2017-10-09T02:44Z'));
+    assert.ok(e, show(fnl, '2017-10-08T12:00Z', '2017-10-09T12:00Z'));
+    assert.ok(e!.tempChangeC <= -8, `ΔT ${e!.tempChangeC}`);
+  });
+
+  // Strong eastern-Colorado cold fronts of 2017 from a published reanalysis-based climatology (project
+  // "A Strong Cold Front Climatology for Eastern Colorado 1950-2022", file 723CF_Final.csv; its `date` column
+  // follows the front by up to a day). The first listed front (2016-12-31) precedes the station record.
+  test('KFNL 2017: the reanalysis list of strong cold fronts is found (a cold front within two days before the listed date)', () => {
+    const dates = readFileSync(dir + 'eastern_colorado_strong_cold_fronts_1950-2022_reanalysis.csv', 'utf8')
+      .split('\n')
+      .filter((l) => l.startsWith('2017') && !l.startsWith('2017-01-01'))
+      .map((l) => Date.parse(l.slice(0, 10) + 'T00:00Z'));
+    const cold = fnl.filter((x) => x.kind === 'cold-front');
+    const found = dates.filter((d) => cold.some((x) => x.timeMs >= d - 48 * 3_600_000 && x.timeMs <= d + 24 * 3_600_000));
+    assert.is(dates.length, 10);
+    assert.ok(found.length >= 9, `found ${found.length} of ${dates.length}`);
+  });
 }
 
 test.run();
