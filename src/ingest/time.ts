@@ -286,6 +286,10 @@ export function makeTimeReader(opts: TimeOptions = {}): TimeReader {
     }
   }
   const p: Parts = { ...scratch };
+  let dayY = NaN;
+  let dayMo = NaN;
+  let dayD = NaN;
+  let dayMs = NaN;
   const reader: TimeReader = {
     error: null,
     read(raw: string): number {
@@ -297,7 +301,14 @@ export function makeTimeReader(opts: TimeOptions = {}): TimeReader {
       }
       if (!readParts(text, p)) return fail('unparsable', `"${text}" is not a time fropa reads (use ISO 8601, e.g. 2024-02-27T08:51Z)`);
       if (!validParts(p)) return fail('unparsable', `"${text}" is not a valid calendar date and time`);
-      const wall = Date.UTC(p.y, p.mo - 1, p.d, p.h, p.mi, p.s, p.ms);
+      // = Date.UTC(y, mo − 1, d, h, mi, s, ms): the day part is cached (consecutive rows share the date)
+      if (p.y !== dayY || p.mo !== dayMo || p.d !== dayD) {
+        dayY = p.y;
+        dayMo = p.mo;
+        dayD = p.d;
+        dayMs = Date.UTC(p.y, p.mo - 1, p.d);
+      }
+      const wall = dayMs + p.h * HOUR_MS + p.mi * 60000 + p.s * 1000 + p.ms;
       if (!Number.isNaN(p.offset)) return wall - p.offset * 60000;
       if (!Number.isNaN(fixed)) return wall - fixed * 60000;
       if (z) {

@@ -167,6 +167,46 @@ export function converter(unit: UnitName): (v: number) => number {
 }
 
 /**
+ * The same conversion as `converter(unit)` as data, for hot loops that switch instead of calling a
+ * closure: `op` 0 identity, 1 °F (v − 32)/1.8, 2 v − k, 3 v × k, 4 v / k. Gives bit-identical results.
+ * @example conversionOf('kt') // { op: 3, k: 0.5144… }
+ */
+export function conversionOf(unit: UnitName): { op: 0 | 1 | 2 | 3 | 4; k: number } {
+  switch (unit) {
+    case 'degF':
+      return { op: 1, k: 0 };
+    case 'K':
+      return { op: 2, k: ZERO_CELSIUS_K };
+    case 'kt':
+      return { op: 3, k: KNOT_MS };
+    case 'mph':
+      return { op: 3, k: MPH_MS };
+    case 'km/h':
+      return { op: 4, k: 3.6 };
+    case 'inHg':
+      return { op: 3, k: INHG_HPA };
+    case 'kPa':
+      return { op: 3, k: 10 };
+    case 'Pa':
+      return { op: 4, k: 100 };
+    case 'in':
+      return { op: 3, k: INCH_M * 1000 };
+    case 'ft':
+      return { op: 3, k: FOOT_M };
+    case 'degC':
+    case 'm/s':
+    case 'hPa':
+    case 'mm':
+    case 'm':
+    case 'deg':
+    case '%':
+      return { op: 0, k: 0 };
+    default:
+      throw new TypeError(`conversionOf: unknown unit ${JSON.stringify(unit)}`);
+  }
+}
+
+/**
  * Convert one value from `unit` to canonical units (see module comment).
  * @example toCanonical(98.6, 'degF') // 37
  */
