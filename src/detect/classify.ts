@@ -138,7 +138,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
     veer > 0.5,
     Number.isNaN(f.turnDeg)
       ? 'no wind turn measurable (calm or missing wind)'
-      : `wind ${f0(f.windBeforeDeg)}° → ${f0(f.windAfterDeg)}° (${f.turnDeg >= 0 ? 'veering' : 'backing'} ${f0(Math.abs(f.turnDeg))}°; a cold front ${sense}s in this hemisphere)`,
+      : `wind ${f0(f.windBeforeDeg)}° → ${f0(f.windAfterDeg)}° (${f.turnDeg >= 0 ? 'veering' : 'backing'} ${f0(Math.abs(f.turnDeg))}°${kind === 'cold-front' || kind === 'warm-front' || kind === 'occluded-front' ? `; fronts ${sense} in this hemisphere` : ''})`,
   );
   say(cooling > 0.5 || warming > 0.5, `temperature ${f1(f.tempChangeC)} °C observed, ${f1(dT)} °C after removing the expected diurnal change`);
   say(kind === 'warm-front' ? moistening > 0.5 : drying > 0.5, `dew point ${f1(dTd)} °C, θe ${f1(dTh)} K`);

@@ -28,6 +28,8 @@ interface Candidate {
   f: Features;
   c: Classification;
   timing?: SplitTime;
+  /** How the leading edge was placed, in words. */
+  basis?: string;
   prefrontalShiftMs?: number;
 }
 
@@ -154,25 +156,32 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
   let prefrontal: number | undefined;
   if (wind && start) {
     // A wind shift well ahead of the temperature change is a prefrontal trough (Schultz2005): time the front at the change.
-    if (kind === 'cold-front' && wind.timeMs < start.timeMs - 1.5 * HOUR) {
+    // "Well ahead": more than 1.5 h, or two report intervals when the reports are sparser than that.
+    const lead = Math.max(1.5 * HOUR, 2 * g.cadenceMin * 60_000);
+    if (kind === 'cold-front' && wind.timeMs < start.timeMs - lead) {
       chosen = start;
       prefrontal = wind.timeMs;
     } else chosen = Math.abs(wind.timeMs - start.timeMs) <= 2 * HOUR ? wind : start;
   } else chosen = wind ?? start;
   if (!chosen) return c;
+  const basis = chosen === wind ? 'timed at the wind shift' : kind === 'dryline' ? 'timed at the start of the dew-point fall' : 'timed at the start of the temperature change';
   const i = gridIndex(g, chosen.timeMs);
   const again = evaluate(i);
   // Keep the re-measured classification unless it lost the passage altogether.
   const better = again.c.confidence >= 0.7 * c.c.confidence ? again : { ...c };
   better.timing = chosen;
+  better.basis = basis;
   if (prefrontal !== undefined) better.prefrontalShiftMs = prefrontal;
   return better;
 }
+
+const hhmm = (ms: number) => new Date(ms).toISOString().slice(11, 16);
 
 function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEvent {
   const f = c.f;
   const timeMs = c.timing?.timeMs ?? f.timeMs;
   const evidence = [...c.c.evidence];
+  if (c.basis) evidence.push(`${c.basis}, between the reports at ${hhmm(c.timing!.earliestMs)} and ${hhmm(c.timing!.latestMs)} UTC`);
   if (c.prefrontalShiftMs !== undefined) {
     evidence.push(`+ wind shift ${((timeMs - c.prefrontalShiftMs) / HOUR).toFixed(1)} h ahead of the temperature fall: prefrontal trough; the front is placed at the fall`);
   }

@@ -80,14 +80,20 @@ export interface RawColumns {
   dir: Float64Array;
   tC: Float64Array;
   tdC: Float64Array;
+  /** Direction resolution of the reports, degrees (10 for METAR-style tens of degrees, else 1). */
+  dirResolutionDeg: number;
 }
 
 export function rawColumns(s: StationSeries): RawColumns {
+  const dir = cleanColumn(s, 'windDirDeg');
+  let tens = true;
+  for (let i = 0; i < dir.length && tens; i++) if (dir[i]! === dir[i]! && dir[i]! % 10 !== 0) tens = false;
   return {
+    dirResolutionDeg: tens ? 10 : 1,
     gust: cleanColumn(s, 'gustMs'),
     peak: cleanColumn(s, 'peakWindMs'),
     spd: cleanColumn(s, 'windSpeedMs'),
-    dir: cleanColumn(s, 'windDirDeg'),
+    dir,
     tC: cleanColumn(s, 'temperatureC'),
     tdC: cleanColumn(s, 'dewpointC'),
   };

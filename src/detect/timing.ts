@@ -63,7 +63,7 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
       const turn = wb.speedMs > 0.5 && wa.speedMs > 0.5 ? signedTurnDeg(wb.dirDeg, wa.dirDeg) : NaN;
       if (Math.abs(turn) >= minTurnDeg) {
         bestScore = score;
-        // The shift began at the first report that had turned a tenth of the way from the wind well
+        // The shift began at the first report that had turned a tenth of the way (and more than the reports' direction resolution) from the wind well
         // before it (FMH-1 §5.4.6 reports the time a shift began); for an abrupt shift that is the split.
         let k = j;
         while (k - 1 > 0) {
@@ -78,7 +78,12 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
           const kd = idx[k - 1]!;
           if (!(raw.spd[kd]! > 0) || !(ref.speedMs > 0.5)) break;
           const part = signedTurnDeg(ref.dirDeg, raw.dir[kd]!);
-          if (!(part / turn >= 0.1)) break;
+          // A tenth of the turn, and more than one step of the reports' direction resolution (noise).
+          if (!(part / turn >= 0.1 && Math.abs(part) >= 1.5 * raw.dirResolutionDeg)) break;
+          // An abrupt jump into report k means the shift began there, whatever drifted before it.
+          const jump = raw.spd[idx[k]!]! > 0 ? signedTurnDeg(raw.dir[kd]!, raw.dir[idx[k]!]!) : NaN;
+          // (Only when the reports are close enough to tell: FMH-1 calls a shift abrupt within 15 min.)
+          if (jump / turn >= 0.5 && timeMs[idx[k]!]! - timeMs[kd]! <= 20 * 60_000) break;
           k--;
         }
         const t0 = timeMs[idx[k - 1]!]!;
