@@ -6,14 +6,9 @@
  *
  * Usage: npm run bench:skill [-- --seed 20260301 --days 90 --json out.json]
  */
-import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
-import { tmpdir } from 'node:os';
-import { join } from 'node:path';
-import type { StationMeta } from '../src/ingest/types.js';
+import { rmSync, writeFileSync } from 'node:fs';
 import type { StationSeries } from '../src/series/series.js';
-import { generateNetwork } from '../src/synth/generateNetwork.js';
-import { toCsvText, type CsvConvention } from '../src/synth/toCsvText.js';
-import { toMetarLines } from '../src/synth/toMetarLines.js';
+import { writeBenchNetwork } from './skill-data.js';
 import type { TruthEvent } from '../src/synth/types.js';
 import { naiveDetect } from './naive.js';
 import { contingencyForKind, csi, far, matchOneToOne, pod, quantile, type Contingency } from './score.js';
@@ -53,34 +48,6 @@ async function importOrExplain(): Promise<{ loadPaths: LoadFn; detectStation: De
   if (typeof loadPaths !== 'function') throw new Error('src/ingest/load.ts does not export loadPaths');
   if (typeof detectStation !== 'function') throw new Error('src/detect/detect.ts does not export detectStation');
   return { loadPaths, detectStation };
-}
-
-/** Invented benchmark network: 11 inland/coastal stations near 41–46° N plus one southern station. */
-function benchStations(): StationMeta[] {
-  const rows: [string, number, number, number, boolean?][] = [
-    ['QBAA', 45.6, -99.2, 520],
-    ['QBAB', 44.1, -98.6, 430],
-    ['QBAC', 42.7, -99.0, 610],
-    ['QBAD', 41.3, -98.1, 560],
-    ['QBAE', 45.2, -96.9, 350],
-    ['QBAF', 43.6, -96.5, 400],
-    ['QBAG', 42.1, -96.2, 340],
-    ['QBAH', 44.8, -94.6, 300],
-    ['QBAI', 43.1, -94.1, 330],
-    ['QBAJ', 41.6, -93.7, 280],
-    ['QBAK', 44.0, -92.3, 190, true],
-    ['QBSA', -36.4, 146.2, 160],
-  ];
-  return rows.map(([id, lat, lon, el, coastal]) => ({
-    id,
-    aliases: [id.slice(1)],
-    name: `Bench ${id}`,
-    latDeg: lat,
-    lonDeg: lon,
-    elevationM: el,
-    coastal: coastal ?? false,
-    seaBearingDeg: coastal ? 80 : undefined,
-  }));
 }
 
 const FRONT_KINDS = new Set(['cold-front', 'warm-front', 'occluded-front']);
@@ -144,41 +111,9 @@ function score(truth: readonly TruthEvent[], det: readonly Detected[]): Scores {
 
 async function main(): Promise<void> {
   const { loadPaths, detectStation } = await importOrExplain();
-  const stations = benchStations();
-  const startMs = Date.UTC(2026, 2, 1);
-  const endMs = startMs + days * 24 * HOUR;
   const t0 = Date.now();
-  const net = generateNetwork(
-    {
-      stations,
-      startMs,
-      endMs,
-      events: { occluded: 2, prefrontalTroughs: 4, drylines: 2, outflows: 3, seaBreezeDays: 8, calmNights: 8 },
-      faults: { gaps: 6, stuck: 2, spikes: 8 },
-    },
-    seed,
-  );
+  const { stations, net, csvDir, metarDir, stationsFile, dir } = writeBenchNetwork(seed, days);
   const genMs = Date.now() - t0;
-  const dir = mkdtempSync(join(tmpdir(), 'fropa-skill-'));
-  const csvDir = join(dir, 'csv5');
-  const metarDir = join(dir, 'metar');
-  mkdirSync(csvDir);
-  mkdirSync(metarDir);
-  const stationsCsv =
-    'id,alias,name,lat,lon,elevation_m,coastal,sea_bearing_deg\n' +
-    stations.map((s) => [s.id, s.aliases[0], s.name, s.latDeg, s.lonDeg, s.elevationM, s.coastal ? 'yes' : 'no', s.seaBearingDeg ?? ''].join(',')).join('\n') +
-    '\n';
-  const stationsFile = join(dir, 'stations.csv');
-  writeFileSync(stationsFile, stationsCsv);
-  const conventions: CsvConvention[] = ['iem', 'metric', 'local-offset'];
-  stations.forEach((s, k) => {
-    const series = net.obs.get(s.id)!;
-    const conv = conventions[k % conventions.length]!;
-    const zone = s.latDeg < 0 ? 'Australia/Melbourne' : 'America/Chicago';
-    writeFileSync(join(csvDir, `${s.id}.csv`), toCsvText(series, s, conv, { zone, duplicates: 2, badLines: 2, seed: seed + k }));
-    writeFileSync(join(metarDir, `${s.id}.metar.txt`), toMetarLines(series, s, { truth: net.truth, duplicates: 2, badLines: 2, seed: seed + k }).join('\n') + '\n');
-  });
-
   const truth = net.truth;
   const count = (pred: (e: TruthEvent) => boolean) => truth.filter(pred).length;
   console.log(`fropa skill benchmark — seed ${seed}, ${days} days, ${stations.length} stations (generated in ${genMs} ms)`);
