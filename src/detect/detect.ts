@@ -18,8 +18,8 @@ import { runningMean, meanIn } from './window.js';
 import type { DetectOptions, PassageEvent } from './types.js';
 
 const HOUR = 3_600_000;
-/** Candidates closer than this are one passage (the strongest is kept). common practice, no source. */
-const SUPPRESS_MS = 3 * HOUR;
+/** Candidates closer than this before timing are one change (the strongest is kept). common practice, no source. */
+const SUPPRESS_MS = 1 * HOUR;
 /** Default confidence floor. */
 export const DEFAULT_MIN_CONFIDENCE = 0.4;
 
@@ -76,7 +76,8 @@ export function detectStation(series: StationSeries, opts: DetectOptions = {}): 
   const cands = changePointCandidates(g)
     .map(evaluate)
     .filter((c) => c.c.confidence >= minConfidence * 0.8);
-  // 4: strongest first, suppress neighbours.
+  // 4: strongest first, suppress close neighbours (within an hour: the same change seen by several
+  // channels); farther ones are timed too, because timing can move or weaken the stronger one.
   cands.sort((a, b) => b.c.confidence - a.c.confidence || a.index - b.index);
   const kept: Candidate[] = [];
   for (const c of cands) {
@@ -110,7 +111,7 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
   for (const e of byStrength) {
     const clash = kept.some((k) => {
       if (Math.abs(k.timeMs - e.timeMs) < 2 * HOUR) return true;
-      if (k.kind === 'warm-front' && e.kind === 'warm-front' && Math.abs(k.timeMs - e.timeMs) < 6 * HOUR) return true;
+      if ((k.kind === 'warm-front' || k.kind === 'dryline') && e.kind === k.kind && Math.abs(k.timeMs - e.timeMs) < 6 * HOUR) return true;
       const sameSign = k.kind === e.kind && thermalSign(k) !== 0;
       if (sameSign && e.timeMs > k.timeMs && e.timeMs <= (Number.isNaN(k.zoneEndMs) ? k.timeMs : k.zoneEndMs) + HOUR) return true;
       if (k.kind === 'cold-front' && e.kind === 'cold-front' && e.timeMs > k.timeMs && e.timeMs - k.timeMs < 9 * HOUR) {

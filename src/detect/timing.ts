@@ -79,7 +79,9 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
           if (!(raw.spd[kd]! > 0) || !(ref.speedMs > 0.5)) break;
           const part = signedTurnDeg(ref.dirDeg, raw.dir[kd]!);
           // A tenth of the turn, and more than one step of the reports' direction resolution (noise).
-          if (!(part / turn >= 0.1 && Math.abs(part) >= 1.5 * raw.dirResolutionDeg)) break;
+          // Between sparse reports (over 20 min apart) a third of the turn: drift is not yet the shift.
+          const need = timeMs[idx[k]!]! - timeMs[kd]! > 20 * 60_000 ? 0.3 : 0.1;
+          if (!(part / turn >= need && Math.abs(part) >= 1.5 * raw.dirResolutionDeg)) break;
           // An abrupt jump into report k means the shift began there, whatever drifted before it.
           const jump = raw.spd[idx[k]!]! > 0 ? signedTurnDeg(raw.dir[kd]!, raw.dir[idx[k]!]!) : NaN;
           // (Only when the reports are close enough to tell: FMH-1 calls a shift abrupt within 15 min.)
