@@ -10,24 +10,9 @@ import {
   solarHour,
 } from '../../src/signal/diurnal.js';
 import { assertClose } from '../helpers/assert.js';
+import { gaussian, mulberry32 } from '../helpers/random.js';
 
 const HOUR = 3600000;
-
-/** Tiny seeded PRNG (mulberry32) and a Box–Muller Gaussian, for synthetic benchmarks only. */
-function mulberry32(seed: number): () => number {
-  let a = seed | 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-function gaussian(r: () => number): number {
-  let u = 0;
-  while (u === 0) u = r();
-  return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * r());
-}
 
 function variance(a: ArrayLike<number>): number {
   let m = 0;

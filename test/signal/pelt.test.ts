@@ -3,43 +3,8 @@ import * as assert from 'uvu/assert';
 import { pelt, peltMulti, type PeltCost } from '../../src/signal/pelt.js';
 import { robustNoiseSigma } from '../../src/signal/noise.js';
 import { assertClose } from '../helpers/assert.js';
-
-// Nile: annual flow of the river Nile at Aswan, 1871–1970, 10^8 m^3 (n = 100). Published data:
-// Cobb (1978, Biometrika 65, 243–251, Table 1); distributed as R `datasets::Nile` (source Durbin & Koopman
-// 2001), documented there "with apparent changepoint near 1898"; Balke (1993, JBES 11, 81–92).
-// Values checked identical against independent public copies.
-const NILE = [
-  1120, 1160, 963, 1210, 1160, 1160, 813, 1230, 1370, 1140, 995, 935, 1110, 994, 1020, 960, 1180, 799, 958, 1140,
-  1100, 1210, 1150, 1250, 1260, 1220, 1030, 1100, 774, 840, 874, 694, 940, 833, 701, 916, 692, 1020, 1050, 969,
-  831, 726, 456, 824, 702, 1120, 1100, 832, 764, 821, 768, 845, 864, 862, 698, 845, 744, 796, 1040, 759,
-  781, 865, 845, 944, 984, 897, 822, 1010, 771, 676, 649, 846, 812, 742, 801, 1040, 860, 874, 848, 890,
-  744, 749, 838, 1050, 918, 986, 797, 923, 975, 815, 1020, 906, 901, 1170, 912, 746, 919, 718, 714, 740,
-];
-
-// Page's data: the n = 40 series of Page (1955, Biometrika 42, 523–527) analysed in Pettitt (1979,
-// J. R. Stat. Soc. C 28, 126–135) Table 1; published change point after t = 17 (p = 0.014). Values as
-// printed in the examples of the R packages `wql` (pett) and `trend` (PagesData).
-const PAGE = [
-  -1.05, 0.96, 1.22, 0.58, -0.98, -0.03, -1.54, -0.71, -0.35, 0.66, 0.44, 0.91, -0.02, -1.42, 1.26, -1.02, -0.81,
-  1.66, 1.05, 0.97, 2.14, 1.22, -0.24, 1.6, 0.72, -0.12, 0.44, 0.03, 0.66, 0.56, 1.37, 1.66, 0.1, 0.8, 1.29, 0.49,
-  -0.07, 1.18, 3.29, 1.84,
-];
-
-/** Tiny seeded PRNG (mulberry32) and a Box–Muller Gaussian, for synthetic benchmarks only. */
-function mulberry32(seed: number): () => number {
-  let a = seed | 0;
-  return () => {
-    a = (a + 0x6d2b79f5) | 0;
-    let t = Math.imul(a ^ (a >>> 15), 1 | a);
-    t = (t + Math.imul(t ^ (t >>> 7), 61 | t)) ^ t;
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
-function gaussian(r: () => number): number {
-  let u = 0;
-  while (u === 0) u = r();
-  return Math.sqrt(-2 * Math.log(u)) * Math.cos(2 * Math.PI * r());
-}
+import { gaussian, mulberry32 } from '../helpers/random.js';
+import { NILE, PAGE } from '../fixtures/changepoint-data.js';
 
 /**
  * Reference: optimal partitioning without pruning (Jackson et al. 2005, Signal Process. Lett. 12, 105–108),

@@ -2,23 +2,7 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { bestStepIn, pettittTest, stepFit } from '../../src/signal/stepfit.js';
 import { assertClose } from '../helpers/assert.js';
-
-// Page's data (Page 1955, Biometrika 42, 523–527) as analysed in Pettitt (1979, J. R. Stat. Soc. C 28,
-// 126–135) Table 1; values as printed in the examples of the R packages `wql` (pett) and `trend` (PagesData).
-const PAGE = [
-  -1.05, 0.96, 1.22, 0.58, -0.98, -0.03, -1.54, -0.71, -0.35, 0.66, 0.44, 0.91, -0.02, -1.42, 1.26, -1.02, -0.81,
-  1.66, 1.05, 0.97, 2.14, 1.22, -0.24, 1.6, 0.72, -0.12, 0.44, 0.03, 0.66, 0.56, 1.37, 1.66, 0.1, 0.8, 1.29, 0.49,
-  -0.07, 1.18, 3.29, 1.84,
-];
-
-// Nile flow at Aswan 1871–1970 (Cobb 1978 Table 1; R datasets::Nile).
-const NILE = [
-  1120, 1160, 963, 1210, 1160, 1160, 813, 1230, 1370, 1140, 995, 935, 1110, 994, 1020, 960, 1180, 799, 958, 1140,
-  1100, 1210, 1150, 1250, 1260, 1220, 1030, 1100, 774, 840, 874, 694, 940, 833, 701, 916, 692, 1020, 1050, 969,
-  831, 726, 456, 824, 702, 1120, 1100, 832, 764, 821, 768, 845, 864, 862, 698, 845, 744, 796, 1040, 759,
-  781, 865, 845, 944, 984, 897, 822, 1010, 771, 676, 649, 846, 812, 742, 801, 1040, 860, 874, 848, 890,
-  744, 749, 838, 1050, 918, 986, 797, 923, 975, 815, 1020, 906, 901, 1170, 912, 746, 919, 718, 714, 740,
-];
+import { NILE, PAGE } from '../fixtures/changepoint-data.js';
 
 test("pettittTest(Page's data): K = 232, change after t = 17, p ≈ 0.014 (Pettitt 1979 Table 1)", () => {
   // R wql::pett example: "K=232, p=0.0146, change-point=17, the same results as Pettitt".
