@@ -507,7 +507,11 @@ export class CsvCore {
     if (v !== v) {
       v = this.slowValue(raw, c, line);
       if (v !== v) return NaN;
-    } else if (v === 0 && raw.trim() === '') return NaN;
+    } else if (v === 0) {
+      // `+raw` reads a blank cell as 0; a cell starting with - . / or a digit is not blank
+      const c0 = raw.charCodeAt(0);
+      if (!(c0 >= 45 && c0 <= 57) && raw.trim() === '') return NaN;
+    }
     if ((v >= 999 || v <= -999) && (isSentinel(v, c.sentinels) || !Number.isFinite(v))) {
       this.count(Number.isFinite(v) ? 'sentinel' : 'bad-value', c.field, line, raw);
       return NaN;

@@ -1,5 +1,6 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
+import fc from 'fast-check';
 import { makeTimeParser, makeTimeReader, parseOffsetMinutes, parseTime, type TimeResult } from '../../src/ingest/time.js';
 
 const iso = (r: TimeResult): string => ('ms' in r ? new Date(r.ms).toISOString() : `error:${r.error}`);
@@ -110,6 +111,35 @@ test('parseOffsetMinutes() reads hh:mm, ±hhmm, hours and minutes', () => {
   assert.is(parseOffsetMinutes('-300'), -300);
   assert.is(parseOffsetMinutes('UTC+1'), 60);
   assert.ok(Number.isNaN(parseOffsetMinutes('x')));
+});
+
+// ECMAScript Date.UTC (ECMA-262 §21.4.3.4, MakeDay/MakeTime) is the reference for the calendar arithmetic;
+// the text forms cover the quick path (`YYYY-MM-DD HH:MM`, `T`, `Z`) and its neighbours that take the general one.
+test('makeTimeReader() gives Date.UTC for every YYYY-MM-DD[ T]HH:MM[Z][:SS] text, valid or not', () => {
+  const reader = makeTimeReader({ zone: 'UTC' });
+  const p2 = (v: number) => String(v).padStart(2, '0');
+  fc.assert(
+    fc.property(
+      fc.integer({ min: 0, max: 9999 }),
+      fc.integer({ min: 0, max: 13 }),
+      fc.integer({ min: 0, max: 32 }),
+      fc.integer({ min: 0, max: 25 }),
+      fc.integer({ min: 0, max: 60 }),
+      fc.constantFrom(' ', 'T', 't', '_'),
+      fc.constantFrom('', 'Z', 'z', ':07', ' '),
+      (y, mo, d, h, mi, sep, tail) => {
+        const text = `${String(y).padStart(4, '0')}-${p2(mo)}-${p2(d)}${sep}${p2(h)}:${p2(mi)}${tail}`;
+        const dim = new Date(Date.UTC(2000, mo, 0)).getUTCDate(); // days in month `mo` (leap year 2000 first)
+        const leapOk = mo !== 2 || d <= 28 || (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
+        const valid = sep !== '_' && mo >= 1 && mo <= 12 && d >= 1 && d <= dim && leapOk && mi <= 59 && (h < 24 || (h === 24 && mi === 0 && tail !== ':07'));
+        const got = reader.read(text);
+        if (!valid) return Number.isNaN(got);
+        const s = tail === ':07' ? 7 : 0;
+        return got === Date.UTC(y, mo - 1, d, h, mi, s);
+      },
+    ),
+    { numRuns: 3000, seed: 7 },
+  );
 });
 
 test.run();

@@ -1,5 +1,6 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
+import fc from 'fast-check';
 import { assertClose } from '../helpers/assert.js';
 import {
   converter,
@@ -12,8 +13,7 @@ import {
   toCanonical,
   unitFromHeader,
   UNIT_NAMES,
-  type UnitName,
-} from '../../src/ingest/units.js';
+  type UnitName, conversionOf } from '../../src/ingest/units.js';
 
 // NIST SP 811 (2008 ed.) Appendix B.8: exact definitions (ft, in, mi, nmi) and the conventional inHg.
 test('unit factors equal the NIST SP 811 Appendix B.8 definitions', () => {
@@ -111,6 +111,16 @@ test('inferUnit() says speed is ambiguous and defaults to m/s', () => {
   assert.is(r.unit, 'm/s');
   assert.ok(r.ambiguous);
   assert.match(r.why, /cannot be told/);
+});
+
+// conversionOf is the data form of converter (NIST SP 811 factors in the module): the two must agree bit for bit.
+test('conversionOf(unit) applied by op equals converter(unit) exactly, every unit', () => {
+  const apply = (c: ReturnType<typeof conversionOf>, v: number) => (c.op === 0 ? v : c.op === 1 ? (v - 32) / 1.8 : c.op === 2 ? v - c.k : c.op === 3 ? v * c.k : v / c.k);
+  for (const u of UNIT_NAMES) {
+    const f = converter(u);
+    const c = conversionOf(u);
+    fc.assert(fc.property(fc.double({ noNaN: false }), (v) => Object.is(apply(c, v), f(v))), { numRuns: 300, seed: 11 });
+  }
 });
 
 test.run();
