@@ -1,17 +1,16 @@
 /**
- * CSV ingest throughput: papaparse streaming step-mode parse only vs fropa readCsvStream (to Observation)
- * plus buildSeries, on one synthetic seeded file (invented data, ≥ 1,000,000 rows, 12 columns) written to
- * the OS temp folder. Prints rows/s for both and their ratio (target ≥ 0.7).
+ * CSV ingest throughput: papaparse streaming step-mode parse only vs fropa readCsvStream into a SeriesBuilder
+ * plus one typed series per station, on one synthetic seeded file (invented data, ≥ 1,000,000 rows, 12 columns)
+ * written to the OS temp folder. Prints rows/s for both, wall clock and CPU time, and their ratio (target ≥ 0.7).
  * Run: node --import tsx bench/ingest-csv.ts [rows]
  */
 import { createReadStream, createWriteStream, existsSync, statSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import Papa from 'papaparse';
 import { readCsvStream } from '../src/ingest/csv.js';
-import type { Observation } from '../src/ingest/types.js';
-import { buildSeries } from '../src/series/series.js';
+import { SeriesBuilder } from '../src/series/seriesBuilder.js';
 
 /** Small seeded PRNG (mulberry32), so every run writes the same file. */
 function mulberry32(seed: number): () => number {
@@ -78,24 +77,14 @@ function papaOnly(path: string): Promise<number> {
   });
 }
 
-/** readCsvStream grouping by station as rows arrive, then buildSeries per station. */
+/** readCsvStream into a SeriesBuilder (one reused Observation, no object per row), then one series per station. */
 async function fropaRead(path: string): Promise<{ rows: number; series: number; readMs: number; buildMs: number }> {
   const t0 = performance.now();
-  const byStation = new Map<string, Observation[]>();
-  let lastStation = '';
-  let list: Observation[] = [];
-  const { report } = await readCsvStream(createReadStream(path), path, {}, (o) => {
-    if (o.station !== lastStation) {
-      lastStation = o.station;
-      let l = byStation.get(lastStation);
-      if (!l) byStation.set(lastStation, (l = []));
-      list = l;
-    }
-    list.push(o);
-  });
+  const builder = new SeriesBuilder();
+  const { report } = await readCsvStream(createReadStream(path), path, { reuseObservation: true }, (o) => builder.add(o));
   const t1 = performance.now();
   let series = 0;
-  for (const [station, l] of byStation) series += buildSeries(station, l).length;
+  for (const station of builder.stations()) series += builder.build(station).length;
   return { rows: report.parsed, series, readMs: t1 - t0, buildMs: performance.now() - t1 };
 }
 
@@ -103,37 +92,63 @@ export interface BenchResult {
   rows: number;
   papaRowsPerSec: number;
   fropaRowsPerSec: number;
+  /** fropa / papaparse, wall clock (best of the repeats each). */
   ratio: number;
+  /** The same from process CPU time (user + system), robust when other processes share the cores. */
+  cpu: { papaRowsPerSec: number; fropaRowsPerSec: number; ratio: number };
   readMs: number;
   buildMs: number;
 }
 
-/** Run the benchmark (best of `repeats` for each side) and print figures. */
-export async function benchCsv(rows = 1_000_000, repeats = 2): Promise<BenchResult> {
+/** Time an async function: [value, wall ms, CPU ms of this process]. */
+async function timed<T>(f: () => Promise<T>): Promise<[T, number, number]> {
+  const c = process.cpuUsage();
+  const t = performance.now();
+  const v = await f();
+  const u = process.cpuUsage(c);
+  return [v, performance.now() - t, (u.user + u.system) / 1000];
+}
+
+/** Run the benchmark (one warm-up, then best of `repeats` for each side, interleaved) and print figures. */
+export async function benchCsv(rows = 1_000_000, repeats = 3): Promise<BenchResult> {
   const path = await writeSyntheticCsv(rows);
-  console.log(`file ${path}: ${(statSync(path).size / 1e6).toFixed(1)} MB, ${rows} rows, 12 columns`);
+  console.log(`file ${path}: ${(statSync(path).size / 1e6).toFixed(1)} MB, ${rows} rows, 12 columns (node ${process.version})`);
+  console.log('papaparse options are the same on both sides (step mode, delimiter guessing, default quote handling; fastMode not used)');
+  // warm-up (JIT) on both sides, not timed
+  await papaOnly(path);
+  await fropaRead(path);
   let papaBest = Infinity;
+  let papaCpu = Infinity;
   let fropaBest = Infinity;
+  let fropaCpu = Infinity;
   let split = { readMs: 0, buildMs: 0 };
   for (let r = 0; r < repeats; r++) {
-    let t = performance.now();
-    const n = await papaOnly(path);
-    papaBest = Math.min(papaBest, performance.now() - t);
-    t = performance.now();
-    const f = await fropaRead(path);
-    const ms = performance.now() - t;
-    if (ms < fropaBest) split = { readMs: f.readMs, buildMs: f.buildMs };
-    fropaBest = Math.min(fropaBest, ms);
-    if (f.rows !== rows || n !== rows + 1) throw new Error(`row counts differ: papa ${n - 1}, fropa ${f.rows}, expected ${rows}`);
+    const [n, pw, pc] = await timed(() => papaOnly(path));
+    papaBest = Math.min(papaBest, pw);
+    papaCpu = Math.min(papaCpu, pc);
+    const [f, fw, fc] = await timed(() => fropaRead(path));
+    if (fw < fropaBest) split = { readMs: f.readMs, buildMs: f.buildMs };
+    fropaBest = Math.min(fropaBest, fw);
+    fropaCpu = Math.min(fropaCpu, fc);
+    if (f.rows !== rows || n !== rows + 1 || f.series !== rows) throw new Error(`row counts differ: papa ${n - 1}, fropa ${f.rows} (${f.series} in series), expected ${rows}`);
   }
-  const papaRowsPerSec = rows / (papaBest / 1000);
-  const fropaRowsPerSec = rows / (fropaBest / 1000);
-  const ratio = fropaRowsPerSec / papaRowsPerSec;
-  console.log(`papaparse step parse only:         ${(papaRowsPerSec / 1e3).toFixed(0)} k rows/s (${papaBest.toFixed(0)} ms)`);
-  console.log(`readCsvStream + buildSeries:       ${(fropaRowsPerSec / 1e3).toFixed(0)} k rows/s (${fropaBest.toFixed(0)} ms)`);
-  console.log(`  of which readCsvStream ${split.readMs.toFixed(0)} ms (${(rows / split.readMs).toFixed(0)} k rows/s), buildSeries ${split.buildMs.toFixed(0)} ms`);
-  console.log(`ratio fropa / papaparse:           ${ratio.toFixed(2)} (target >= 0.70)`);
-  return { rows, papaRowsPerSec, fropaRowsPerSec, ratio, readMs: split.readMs, buildMs: split.buildMs };
+  const per = (ms: number) => rows / (ms / 1000);
+  const res: BenchResult = {
+    rows,
+    papaRowsPerSec: per(papaBest),
+    fropaRowsPerSec: per(fropaBest),
+    ratio: papaBest / fropaBest,
+    cpu: { papaRowsPerSec: per(papaCpu), fropaRowsPerSec: per(fropaCpu), ratio: papaCpu / fropaCpu },
+    readMs: split.readMs,
+    buildMs: split.buildMs,
+  };
+  const k = (x: number) => `${(x / 1e3).toFixed(0)} k rows/s`;
+  console.log(`papaparse step parse only:             ${k(res.papaRowsPerSec)} wall (${papaBest.toFixed(0)} ms), ${k(res.cpu.papaRowsPerSec)} CPU (${papaCpu.toFixed(0)} ms)`);
+  console.log(`readCsvStream to typed series:         ${k(res.fropaRowsPerSec)} wall (${fropaBest.toFixed(0)} ms), ${k(res.cpu.fropaRowsPerSec)} CPU (${fropaCpu.toFixed(0)} ms)`);
+  console.log(`  of which read ${split.readMs.toFixed(0)} ms, series build ${split.buildMs.toFixed(0)} ms (wall)`);
+  console.log(`ratio fropa / papaparse: ${res.ratio.toFixed(2)} wall, ${res.cpu.ratio.toFixed(2)} CPU (target >= 0.70)`);
+  console.log(`  load average ${loadavg().map((x) => x.toFixed(1)).join(' ')} on ${cpus().length} cores`);
+  return res;
 }
 
 if (import.meta.url === pathToFileURL(process.argv[1] ?? '').href) {
