@@ -6,6 +6,9 @@ import { detectStation } from '../../src/detect/detect.js';
 import { BOUNDARY_KINDS, type BoundaryKind, type DetectOptions, type PassageEvent } from '../../src/detect/types.js';
 import { eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, summaryLines } from '../../src/report/format.js';
 import { CAUTION } from '../../src/report/caution.js';
+import { trackFronts, withTrackSpeeds } from '../../src/network/track.js';
+import { tracksToCsv, tracksToJson, tracksToTable } from '../../src/report/fronts.js';
+import type { StationMeta } from '../../src/ingest/types.js';
 import { ArgumentError, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { noDataMessage } from './inspect.js';
 
@@ -62,24 +65,30 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
-  const events: PassageEvent[] = [];
+  let all: PassageEvent[] = [];
   for (const s of result.series) {
-    let found: PassageEvent[];
     try {
-      found = detectStation(s, dopts);
+      all.push(...detectStation(s, dopts));
     } catch (e) {
       throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
     }
-    for (const e of found) if (!kinds || kinds.has(e.kind)) events.push(e);
   }
-  sortEvents(events);
+  // Fronts across the network (needs three or more stations with coordinates); their speed gives the
+  // zone depth and gradient unless --front-speed was given.
+  const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+  const tracks = raw.network === false ? [] : trackFronts(all, metas);
+  if (dopts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, tracks);
+  const events = sortEvents(all.filter((e) => !kinds || kinds.has(e.kind)));
   const stations = result.series.map((s) => s.station);
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {
-    const summary = [...summaryLines(events, stations), CAUTION].join('\n') + '\n';
+    const network = tracksToTable(tracks);
+    const summary = [...summaryLines(events, stations), ...(network ? ['', network.trimEnd()] : []), CAUTION].join('\n') + '\n';
     const files: [string, string][] = [
       ['events.csv', eventsToCsv(events)],
       ['events.json', eventsToJson(events)],
+      ['fronts.csv', tracksToCsv(tracks)],
+      ['fronts.json', tracksToJson(tracks)],
       ['summary.txt', summary],
     ];
     try {
@@ -99,7 +108,14 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
         ? eventsToJson(events)
         : format === 'ndjson'
           ? eventsToNdjson(events)
-          : eventsToTable(events, { zone: local ? opts.zone : undefined, stations });
+          : withNetwork(eventsToTable(events, { zone: local ? opts.zone : undefined, stations }), tracksToTable(tracks));
   await writeOutput(text, args.out, io);
   return 0;
+}
+
+/** Put the network table before the table's closing caution line. */
+function withNetwork(table: string, network: string): string {
+  if (!network) return table;
+  const at = table.lastIndexOf(CAUTION);
+  return at < 0 ? table + '\n' + network : table.slice(0, at) + '\n' + network + table.slice(at);
 }

@@ -201,6 +201,7 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
     timeLatestMs: c.timing?.latestMs ?? timeMs + 0.5 * HOUR,
     confidence: Math.round(c.c.confidence * 100) / 100,
     tempChangeC: f.tempChangeC,
+    tempChangeAdjustedC: f.frontalChangeAdjC,
     dewpointChangeC: f.dewpointChangeC,
     thetaEChangeK: f.thetaEChangeK,
     pressureMinHpa: f.pressureMinHpa,

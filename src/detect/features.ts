@@ -24,6 +24,8 @@ export interface Features {
   turnDeg: number;
   /** Observed temperature change to the end of the zone (°C). */
   tempChangeC: number;
+  /** Diurnally adjusted temperature change over the steep frontal change (°C). */
+  frontalChangeAdjC: number;
   /** Diurnally adjusted temperature change to the extreme within 6 h (°C). */
   tempAdjChangeC: number;
   /** Largest adjusted fall (negative) or rise within 30 min around the anchor. */
@@ -226,6 +228,7 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     turnDeg,
     tempChangeC,
     tempAdjChangeC,
+    frontalChangeAdjC: frontalChange,
     abruptChangeC: abrupt,
     recoveryFraction,
     dewpointChangeC,

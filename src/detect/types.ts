@@ -22,6 +22,8 @@ export interface PassageEvent {
   confidence: number;
   /** After minus before, °C (negative = cooling). */
   tempChangeC: number;
+  /** Temperature change with the expected diurnal change removed, °C (for along-track strength; not in the output contract). */
+  tempChangeAdjustedC?: number;
   dewpointChangeC: number;
   thetaEChangeK: number;
   pressureMinHpa: number;

@@ -1,0 +1,77 @@
+/**
+ * Output writers for fronts tracked across a network: one record per front (CSV, JSON) and a table for
+ * people. Pure functions. Times ISO 8601 UTC; directions are where the front moves toward, degrees true.
+ */
+import type { FrontTrack } from '../network/track.js';
+import { alignColumns, csvCell, isoUtc, roundOrNull, type RecordValue } from './format.js';
+
+export const FRONT_COLUMNS = [
+  'front',
+  'kind',
+  'stations',
+  'first_passage',
+  'last_passage',
+  'speed_kmh',
+  'toward_deg',
+  'rms_residual_min',
+  'trend',
+  'strength_change_c_per_100km',
+  'zone_change_km_per_100km',
+  'passages',
+  'expected',
+] as const;
+export type FrontColumn = (typeof FRONT_COLUMNS)[number];
+
+/** One front as a flat record; `passages` and `expected` list `STATION@time`. */
+export function trackToRecord(t: FrontTrack): Record<FrontColumn, RecordValue> {
+  return {
+    front: t.id,
+    kind: t.kind,
+    stations: t.members.length,
+    first_passage: isoUtc(t.members[0]!.event.timeMs),
+    last_passage: isoUtc(t.members[t.members.length - 1]!.event.timeMs),
+    speed_kmh: roundOrNull(t.speedKmh, 1),
+    toward_deg: roundOrNull(t.directionDeg, 0),
+    rms_residual_min: roundOrNull(t.rmsResidualMin, 0),
+    trend: t.trend,
+    strength_change_c_per_100km: roundOrNull(t.strengthSlopeCPer100km, 2),
+    zone_change_km_per_100km: roundOrNull(t.zoneSlopeKmPer100km, 1),
+    passages: t.members.map((m) => `${m.station}@${isoUtc(m.event.timeMs)}`),
+    expected: t.expected.map((x) => `${x.station}@${isoUtc(x.timeMs)}`),
+  };
+}
+
+export function tracksToCsv(tracks: readonly FrontTrack[]): string {
+  const lines = [FRONT_COLUMNS.join(',')];
+  for (const t of tracks) {
+    const r = trackToRecord(t);
+    lines.push(FRONT_COLUMNS.map((c) => csvCell(r[c])).join(','));
+  }
+  return lines.join('\n') + '\n';
+}
+
+export function tracksToJson(tracks: readonly FrontTrack[]): string {
+  if (tracks.length === 0) return '[]\n';
+  return '[\n' + tracks.map((t) => '  ' + JSON.stringify(trackToRecord(t))).join(',\n') + '\n]\n';
+}
+
+const compass = (deg: number) => ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'][Math.round((((deg % 360) + 360) % 360) / 45) % 8]!;
+
+/** A table of the fronts for people, with a heading line. Empty string when there are none. */
+export function tracksToTable(tracks: readonly FrontTrack[]): string {
+  if (tracks.length === 0) return '';
+  const header = ['front', 'stations', 'first (UTC)', 'last (UTC)', 'speed km/h', 'toward', 'fit ± min', 'trend', 'ΔT °C/100 km'];
+  const rows = tracks.map((t) => [
+    t.id,
+    String(t.members.length),
+    (isoUtc(t.members[0]!.event.timeMs) ?? '').slice(0, 16).replace('T', ' '),
+    (isoUtc(t.members[t.members.length - 1]!.event.timeMs) ?? '').slice(0, 16).replace('T', ' '),
+    t.speedKmh.toFixed(0),
+    `${t.directionDeg.toFixed(0)}° ${compass(t.directionDeg)}`,
+    t.rmsResidualMin.toFixed(0),
+    t.trend,
+    Number.isFinite(t.strengthSlopeCPer100km) ? (t.strengthSlopeCPer100km >= 0 ? '+' : '') + t.strengthSlopeCPer100km.toFixed(2) : '-',
+  ]);
+  const right = [false, true, false, false, true, false, true, false, true];
+  return ['Fronts across the network (passage times fitted as a moving straight front):', ...alignColumns(header, rows, right)].join('\n') + '\n';
+}
