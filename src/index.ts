@@ -9,4 +9,6 @@ export { applyQc, cleanColumn } from './qc/qc.js';
 export { detectStation } from './detect/detect.js';
 export * from './detect/types.js';
 export * from './report/format.js';
+export * from './report/fronts.js';
+export * from './network/track.js';
 export * as physics from './physics/index.js';
