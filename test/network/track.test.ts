@@ -1,6 +1,6 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { fitPlane, motionFromSlowness, trackFronts, withTrackSpeeds } from '../../src/network/track.js';
 import type { PassageEvent } from '../../src/detect/types.js';
@@ -103,5 +103,31 @@ test('trackFronts() on the demo: every planted northern cold front is one track,
     else assert.is(track!.trend, 'steady', id);
   }
 });
+
+// Real observations (Iowa Environmental Mesonet ASOS downloads, public domain): the record cyclone of
+// 26 Oct 2010. Reference motion: the plane through the passage times read from the reports (MSP ≈10:40Z,
+// ORD ≈13:20Z, GRB ≈14:25Z, CLE ≈18:30Z; reading of the reports, not an official analysis).
+const real = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
+if (existsSync(real)) {
+  test('trackFronts() on 26 Oct 2010: one cold front across MSP, ORD, GRB and CLE, moving as the reports say', () => {
+    const files = ['MSP', 'ORD', 'GRB', 'CLE'].map((id) => `${real}oct2010_asos_${id}.csv`);
+    const loaded = loadPaths(files, { stationsFile: real + 'stations.csv' });
+    const events = loaded.series.flatMap((s) => detectStation(s));
+    const metas = loaded.series.map((s) => s.meta!).filter(Boolean);
+    const t = trackFronts(events, metas).find((x) => x.kind === 'cold-front' && x.t0Ms > Date.parse('2010-10-26T00:00Z') && x.t0Ms < Date.parse('2010-10-27T00:00Z'));
+    assert.ok(t, 'tracked');
+    assert.equal(t!.members.map((m) => m.station).sort(), ['KCLE', 'KGRB', 'KMSP', 'KORD']);
+    const read: Record<string, string> = { KMSP: '2010-10-26T10:40Z', KORD: '2010-10-26T13:20Z', KGRB: '2010-10-26T14:25Z', KCLE: '2010-10-26T18:30Z' };
+    const proj = projectLocalKm(metas);
+    const ref = Date.parse(read.KMSP!);
+    const plane = fitPlane(metas.map((m, k) => ({ x: proj.xKm[k]!, y: proj.yKm[k]!, t: (Date.parse(read[m.id]!) - ref) / HOUR })))!;
+    const want = motionFromSlowness(plane.sx, plane.sy);
+    assertClose(t!.speedKmh, want.speedKmh, 0, 0.25, 'speed');
+    const dd = Math.abs(((t!.directionDeg - want.directionDeg + 540) % 360) - 180);
+    assert.ok(dd <= 20, `direction ${t!.directionDeg} vs ${want.directionDeg}`);
+  });
+} else {
+  test('trackFronts() on 26 Oct 2010 (skipped: shared/realdata not found beside the repository)', () => {});
+}
 
 test.run();
