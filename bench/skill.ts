@@ -11,7 +11,8 @@ import type { StationSeries } from '../src/series/series.js';
 import { writeBenchNetwork } from './skill-data.js';
 import type { TruthEvent } from '../src/synth/types.js';
 import { naiveDetect } from './naive.js';
-import { contingencyForKind, csi, far, matchOneToOne, pod, quantile, type Contingency } from './score.js';
+import { contingencyForKind, csi, far, matchOneToOne, pod, type Contingency } from '../src/verify/contingency.js';
+import { quantile } from '../src/verify/quantile.js';
 
 const HOUR = 3_600_000;
 const args = process.argv.slice(2);

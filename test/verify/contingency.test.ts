@@ -1,7 +1,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { assertClose } from '../helpers/assert.js';
-import { contingencyForKind, csi, far, frequencyBias, matchOneToOne, pod, proportionCorrect, quantile } from '../../bench/score.js';
+import { contingencyForKind, csi, far, frequencyBias, matchOneToOne, pod, proportionCorrect } from '../../src/verify/contingency.js';
 
 // Finley (1884) tornado forecasts as tabulated in Wilks (2011), Statistical Methods in the Atmospheric
 // Sciences, 3rd ed., ch. 8 (table 8.1): a = 28 hits, b = 72 false alarms, c = 23 misses, d = 2680.
@@ -34,6 +34,7 @@ test('scores of an empty table are NaN', () => {
   assert.ok(Number.isNaN(far({ hits: 0, falseAlarms: 0, misses: 0 })));
 });
 
+// Matching rules below are fropa's (common practice, no source): nearest pairs first, one-to-one, inclusive window.
 test('matchOneToOne pairs nearest first, one-to-one, same station only', () => {
   const H = 3_600_000;
   const truth = [
@@ -59,12 +60,6 @@ test('contingencyForKind counts a wrong-kind match as a miss and a false alarm',
   const m = { pairs: [[0, 0], [1, 1]] as [number, number][], unmatchedTruth: [2], unmatchedDetections: [2] };
   const c = contingencyForKind(['cold-front', 'cold-front', 'cold-front'], ['cold-front', 'warm-front', 'cold-front'], m, 'cold-front');
   assert.equal(c, { hits: 1, misses: 2, falseAlarms: 1 });
-});
-
-test('quantile uses linear interpolation (Hyndman & Fan 1996 type 7)', () => {
-  assertClose(quantile([1, 2, 3, 4], 0.5), 2.5, 1e-12);
-  assertClose(quantile([10, 20, 30, 40, 50], 0.9), 46, 1e-12);
-  assert.ok(Number.isNaN(quantile([], 0.5)));
 });
 
 test.run();
