@@ -202,7 +202,10 @@ export function slashes(s: string, a: number, b: number): boolean {
 
 /** s[a, b) equals the ASCII word w. */
 export function isWord(s: string, a: number, b: number, w: string): boolean {
-  return b - a === w.length && s.startsWith(w, a);
+  const n = w.length;
+  if (b - a !== n) return false;
+  for (let i = 0; i < n; i++) if (s.charCodeAt(a + i) !== w.charCodeAt(i)) return false;
+  return true;
 }
 
 // ---------------------------------------------------------------------------------------------
