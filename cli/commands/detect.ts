@@ -7,6 +7,7 @@ import { BOUNDARY_KINDS, type BoundaryKind, type DetectOptions, type PassageEven
 import { eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, summaryLines } from '../../src/report/format.js';
 import { CAUTION } from '../../src/report/caution.js';
 import { trackFronts, withTrackSpeeds } from '../../src/network/track.js';
+import { withFrontogenesis } from '../../src/network/frontogenesis.js';
 import { tracksToCsv, tracksToJson, tracksToTable } from '../../src/report/fronts.js';
 import type { StationMeta } from '../../src/ingest/types.js';
 import { ArgumentError, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
@@ -76,8 +77,9 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   // Fronts across the network (needs three or more stations with coordinates); their speed gives the
   // zone depth and gradient unless --front-speed was given.
   const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const tracks = raw.network === false ? [] : trackFronts(all, metas);
-  if (dopts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, tracks);
+  const allTracks = raw.network === false ? [] : withFrontogenesis(trackFronts(all, metas), result.series);
+  if (dopts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
+  const tracks = allTracks.filter((t) => !kinds || kinds.has(t.kind));
   const events = sortEvents(all.filter((e) => !kinds || kinds.has(e.kind)));
   const stations = result.series.map((s) => s.station);
   const outDir = raw.outDir as string | undefined;

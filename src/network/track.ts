@@ -39,6 +39,8 @@ export interface TrackMember {
   residualMin: number;
   /** Distance along the direction of motion from the network origin, km. */
   alongKm: number;
+  /** Petterssen frontogenesis at this passage, K per 100 km per 3 h (see frontogenesis.ts; NaN until computed). */
+  frontogenesisKPer100kmPer3h?: number;
 }
 
 export type StrengthTrend = 'strengthening' | 'weakening' | 'steady' | 'unknown';
@@ -60,6 +62,8 @@ export interface FrontTrack {
   /** Along-track change of the zone depth, km per 100 km (positive = widening). */
   zoneSlopeKmPer100km: number;
   trend: StrengthTrend;
+  /** Median Petterssen frontogenesis over the passages, K per 100 km per 3 h (NaN until computed). */
+  frontogenesisKPer100kmPer3h?: number;
   /** Stations of the same network without a passage in this track: when the fit says it passed or will pass. */
   expected: { station: string; timeMs: number }[];
   /** Origin of the local projection. */

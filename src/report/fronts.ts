@@ -17,6 +17,7 @@ export const FRONT_COLUMNS = [
   'trend',
   'strength_change_c_per_100km',
   'zone_change_km_per_100km',
+  'frontogenesis_k_per_100km_per_3h',
   'passages',
   'expected',
 ] as const;
@@ -36,6 +37,7 @@ export function trackToRecord(t: FrontTrack): Record<FrontColumn, RecordValue> {
     trend: t.trend,
     strength_change_c_per_100km: roundOrNull(t.strengthSlopeCPer100km, 2),
     zone_change_km_per_100km: roundOrNull(t.zoneSlopeKmPer100km, 1),
+    frontogenesis_k_per_100km_per_3h: roundOrNull(t.frontogenesisKPer100kmPer3h ?? NaN, 2),
     passages: t.members.map((m) => `${m.station}@${isoUtc(m.event.timeMs)}`),
     expected: t.expected.map((x) => `${x.station}@${isoUtc(x.timeMs)}`),
   };
@@ -55,12 +57,13 @@ export function tracksToJson(tracks: readonly FrontTrack[]): string {
   return '[\n' + tracks.map((t) => '  ' + JSON.stringify(trackToRecord(t))).join(',\n') + '\n]\n';
 }
 
+const signed = (x: number) => (Number.isFinite(x) ? (x >= 0 ? '+' : '') + x.toFixed(2) : '-');
 const compass = (deg: number) => ['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW'][Math.round((((deg % 360) + 360) % 360) / 45) % 8]!;
 
 /** A table of the fronts for people, with a heading line. Empty string when there are none. */
 export function tracksToTable(tracks: readonly FrontTrack[]): string {
   if (tracks.length === 0) return '';
-  const header = ['front', 'stations', 'first (UTC)', 'last (UTC)', 'speed km/h', 'toward', 'fit ± min', 'trend', 'ΔT °C/100 km'];
+  const header = ['front', 'stations', 'first (UTC)', 'last (UTC)', 'speed km/h', 'toward', 'fit ± min', 'trend', 'ΔT °C/100 km', 'F K/100 km/3 h'];
   const rows = tracks.map((t) => [
     t.id,
     String(t.members.length),
@@ -70,8 +73,9 @@ export function tracksToTable(tracks: readonly FrontTrack[]): string {
     `${t.directionDeg.toFixed(0)}° ${compass(t.directionDeg)}`,
     t.rmsResidualMin.toFixed(0),
     t.trend,
-    Number.isFinite(t.strengthSlopeCPer100km) ? (t.strengthSlopeCPer100km >= 0 ? '+' : '') + t.strengthSlopeCPer100km.toFixed(2) : '-',
+    signed(t.strengthSlopeCPer100km),
+    signed(t.frontogenesisKPer100kmPer3h ?? NaN),
   ]);
-  const right = [false, true, false, false, true, false, true, false, true];
+  const right = [false, true, false, false, true, false, true, false, true, true];
   return ['Fronts across the network (passage times fitted as a moving straight front):', ...alignColumns(header, rows, right)].join('\n') + '\n';
 }
