@@ -228,8 +228,13 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
  * detect: FMH-1 remarks are labels for validation.
  */
 function attachRemarks(s: StationSeries, events: PassageEvent[]): void {
+  // A remark is repeated in later reports (FMH-1 keeps it until the next routine report): once is enough.
+  const seen = new Set<string>();
   for (const r of s.remarks) {
     const t = Number.isNaN(r.shiftTimeMs) ? r.reportTimeMs : r.shiftTimeMs;
+    const key = `${r.label}@${t}`;
+    if (seen.has(key)) continue;
+    seen.add(key);
     let best: PassageEvent | undefined;
     for (const e of events) if (Math.abs(e.timeMs - t) <= 3 * HOUR && (!best || Math.abs(e.timeMs - t) < Math.abs(best.timeMs - t))) best = e;
     if (!best) continue;
