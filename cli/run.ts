@@ -42,7 +42,7 @@ function wrapWords(text: string, width = 96): string {
 const EPILOGUE = 'Exit status: 0 success, 1 no usable data or a failure while running, 2 usage error.\n\n' + wrapWords(CAUTION);
 
 interface Selected {
-  command: 'inspect' | 'detect';
+  command: 'inspect' | 'detect' | 'verify';
   args: Record<string, unknown>;
 }
 
@@ -85,12 +85,29 @@ function parser(onSelect: (s: Selected) => void) {
           .epilogue(EPILOGUE),
       (a) => onSelect({ command: 'detect', args: a as Record<string, unknown> }),
     )
+    .command(
+      'verify <paths...>',
+      'Verify forecast passage times against the passages found in the observations',
+      (y) =>
+        withInputOptions(y)
+          .option('forecasts', { type: 'string', demandOption: 'name the forecast file: --forecasts FILE (CSV: station, kind, forecast_time, issued_time)', describe: 'Forecast passages, CSV: station, kind, forecast_time, issued_time (kind and issued_time optional)', group: 'Verification:' })
+          .option('window-hours', { type: 'number', default: 6, describe: 'A forecast and an observed passage match when within this many hours', group: 'Verification:' })
+          .option('kinds', { type: 'string', describe: `Verify only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Verification:' })
+          .option('min-confidence', { type: 'number', describe: 'Observed passages: drop those below this confidence, 0 to 1 (detector default 0.4)', group: 'Verification:' })
+          .option('format', { choices: ['table', 'csv', 'json'] as const, default: 'table', describe: 'Output format (CSV/JSON: one record per forecast, plus the misses)', group: 'Output:' })
+          .example('$0 verify stations-demo --forecasts stations-demo/forecasts/forecast_passages.csv', 'Demo forecasts against the demo observations: scores per station and lead time')
+          .example('$0 verify obs/ --stations stations.csv --forecasts fc.csv --kinds cold-front --window-hours 3', 'Cold fronts only, matched within ±3 h')
+          .example('$0 verify obs/ --forecasts fc.csv --format csv --out verification.csv', 'One row per forecast (hit or false alarm) and per miss')
+          .epilogue('Timing error = forecast − observed, minutes: positive = forecast late. Kinds are strict: a cold-front forecast never matches an observed occluded front (such near misses are listed).\n\n' + EPILOGUE),
+      (a) => onSelect({ command: 'verify', args: a as Record<string, unknown> }),
+    )
     .option('verbose', { type: 'boolean', describe: 'Show stack traces of failures', global: true })
     .option('quiet', { type: 'boolean', describe: 'No notes on standard error', global: true })
     .example('$0 inspect stations-demo', 'How each demo file was read')
     .example('$0 detect stations-demo', 'Passages found in the demo files')
     .example('$0 detect obs/KXYZ_2026-03.txt --format json', 'Passages as JSON')
-    .demandCommand(1, 'Name a command: inspect or detect.')
+    .example('$0 verify stations-demo --forecasts stations-demo/forecasts/forecast_passages.csv', 'Forecast passage times against the demo observations')
+    .demandCommand(1, 'Name a command: inspect, detect or verify.')
     .recommendCommands()
     .strict()
     .exitProcess(false)
@@ -124,7 +141,12 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     if (output) io.stdout(output.endsWith('\n') ? output : output + '\n');
     if (!selected) return 0; // --help or --version
     const sel = selected as Selected;
-    const mod = sel.command === 'inspect' ? await import('./commands/inspect.js') : await import('./commands/detect.js');
+    const mod =
+      sel.command === 'inspect'
+        ? await import('./commands/inspect.js')
+        : sel.command === 'detect'
+          ? await import('./commands/detect.js')
+          : await import('./commands/verify.js');
     return await mod.run(sel.args, io);
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));
