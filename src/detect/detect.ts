@@ -228,7 +228,7 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
  * detect: FMH-1 remarks are labels for validation.
  */
 function attachRemarks(s: StationSeries, events: PassageEvent[]): void {
-  // A remark is repeated in later reports (FMH-1 keeps it until the next routine report): once is enough.
+  // The same remark often repeats in the next report or two (seen in real archives): once is enough.
   const seen = new Set<string>();
   for (const r of s.remarks) {
     const t = Number.isNaN(r.shiftTimeMs) ? r.reportTimeMs : r.shiftTimeMs;
