@@ -149,14 +149,14 @@ export function readForecastsText(text: string, file: string, opts: ForecastRead
     }
     const ft = parseTime(row[col.forecast!]!.trim(), opts);
     if (!('ms' in ft)) {
-      reject('bad-forecast-time', `forecast_time: ${ft.message}; write ISO 8601 UTC like 2026-03-02T14:07Z`, row[col.forecast!]!.trim(), col.forecast);
+      reject('bad-forecast-time', `forecast_time: ${ft.message}`, row[col.forecast!]!.trim(), col.forecast);
       continue;
     }
     let issuedMs = NaN;
     if (col.issued !== undefined && row[col.issued]!.trim() !== '') {
       const it = parseTime(row[col.issued]!.trim(), opts);
       if (!('ms' in it)) {
-        reject('bad-issued-time', `issued_time: ${it.message}; write ISO 8601 UTC like 2026-03-01T09:00Z, or leave it empty`, row[col.issued]!.trim(), col.issued);
+        reject('bad-issued-time', `issued_time: ${it.message}; or leave the cell empty`, row[col.issued]!.trim(), col.issued);
         continue;
       }
       if (it.ms > ft.ms) {
