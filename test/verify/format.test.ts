@@ -1,0 +1,48 @@
+/** Verification writers: record contract, outcomes, empty cells, table header and caution. Constructed example (invented times). */
+import { test } from 'uvu';
+import * as assert from 'uvu/assert';
+import type { PassageEvent } from '../../src/detect/types.js';
+import type { ForecastPassage } from '../../src/verify/forecasts.js';
+import { verifyForecasts } from '../../src/verify/verify.js';
+import { verificationToCsv, verificationToJson, verificationToTable, VERIFY_COLUMNS } from '../../src/verify/format.js';
+import { CAUTION } from '../../src/report/caution.js';
+
+const H = 3_600_000;
+const T0 = Date.UTC(2026, 2, 2, 12);
+const ev = (station: string, kind: PassageEvent['kind'], timeMs: number) => ({ station, kind, timeMs }) as PassageEvent;
+const fc = (station: string, kind: ForecastPassage['kind'], forecastMs: number, issuedMs: number): ForecastPassage => ({ station, kind, forecastMs, issuedMs, file: 'f.csv', line: 2 });
+
+const r = verifyForecasts(
+  [fc('A', 'cold-front', T0 + 0.5 * H, T0 - 18 * H), fc('A', null, T0 + 40 * H, NaN), fc('B', 'cold-front', T0, T0 - 30 * H)],
+  [ev('A', 'cold-front', T0), ev('A', 'cold-front', T0 + 20 * H), ev('B', 'occluded-front', T0 + H)],
+);
+
+test('verificationToCsv: contract header, one row per forecast and per miss, in station then time order', () => {
+  const rows = verificationToCsv(r).trimEnd().split('\n');
+  assert.is(rows[0], VERIFY_COLUMNS.join(','));
+  assert.equal(rows.slice(1), [
+    'A,cold-front,2026-03-02T12:30:00Z,2026-03-01T18:00:00Z,18.5,2026-03-02T12:00:00Z,cold-front,30,hit',
+    'A,cold-front,,,,2026-03-03T08:00:00Z,cold-front,,miss',
+    'A,,2026-03-04T04:00:00Z,,,,,,false-alarm',
+    'B,cold-front,2026-03-02T12:00:00Z,2026-03-01T06:00:00Z,30,,,,false-alarm',
+    // the forecast of any front makes occluded fronts a verified kind, so B's occluded front is a miss
+    'B,occluded-front,,,,2026-03-02T13:00:00Z,occluded-front,,miss',
+  ]);
+});
+
+test('verificationToJson: same records, null for missing', () => {
+  const recs = JSON.parse(verificationToJson(r)) as Record<string, unknown>[];
+  assert.is(recs.length, 5);
+  assert.equal(Object.keys(recs[0]!), [...VERIFY_COLUMNS]);
+  assert.is(recs[0]!.error_min, 30);
+  assert.is(recs[1]!.forecast_time, null);
+});
+
+test('verificationToTable: sign convention stated, kind mismatch listed, caution last', () => {
+  const lines = verificationToTable(r).trimEnd().split('\n');
+  assert.match(lines[1]!, /forecast − observed.*positive = forecast late/);
+  assert.ok(lines.some((l) => /B cold-front forecast .*observed occluded-front/.test(l)));
+  assert.is(lines[lines.length - 1], CAUTION);
+});
+
+test.run();
