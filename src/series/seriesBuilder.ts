@@ -1,9 +1,10 @@
 /**
- * Columnar sink for observations: readers hand each Observation to `SeriesBuilder.add`, which copies its
- * fields into per-station growable typed arrays (capacity doubling) and keeps nothing else, so the object
- * may be reused by the caller right after the call. `build` turns one station's columns into a
- * StationSeries with exactly the rules of `buildSeries` (stable time sort, duplicate resolution, notes).
- * Station ids can be resolved (aliases) as rows arrive, once per distinct id.
+ * Typed sink for observations: readers hand each Observation to `SeriesBuilder.add`, which copies its
+ * fields into the station's record chunks (Float64Array, one row of STRIDE values per report; chunks grow
+ * without copying) and keeps nothing else, so the object may be reused by the caller right after the call.
+ * `build` transposes one station's rows into the columns of a StationSeries with exactly the rules of
+ * `buildSeries` (stable time sort, duplicate resolution, notes). Station ids can be resolved (aliases) as
+ * rows arrive, once per distinct id.
  */
 import type { Observation, ObserverRemark, StationMeta } from '../ingest/types.js';
 import { allocSeries, type DuplicateNote, type StationSeries } from './series.js';
@@ -246,7 +247,7 @@ export class SeriesBuilder {
     return [...this.byStation.keys()];
   }
 
-  /** The raw columns of a station (input order), or undefined. */
+  /** The rows of a station as added (input order; `.columns()` gives them column by column), or undefined. */
   columns(station: string): StationColumns | undefined {
     return this.byStation.get(station);
   }
