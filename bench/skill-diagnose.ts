@@ -11,7 +11,8 @@ import { loadPaths } from '../src/ingest/load.js';
 import { detectStation } from '../src/detect/detect.js';
 import type { TruthEvent } from '../src/synth/types.js';
 import { writeBenchNetwork } from './skill-data.js';
-import { matchOneToOne, quantile } from './score.js';
+import { matchOneToOne } from '../src/verify/contingency.js';
+import { quantile } from '../src/verify/quantile.js';
 
 const HOUR = 3_600_000;
 const args = process.argv.slice(2);

@@ -10,7 +10,7 @@ import { fileURLToPath } from 'node:url';
 import { loadPaths } from '../../src/ingest/load.js';
 import { detectStation } from '../../src/detect/detect.js';
 import type { PassageEvent } from '../../src/detect/types.js';
-import { matchOneToOne, pod, far, contingencyForKind } from '../../bench/score.js';
+import { matchOneToOne, pod, far, contingencyForKind } from '../../src/verify/contingency.js';
 
 const demo = fileURLToPath(new URL('../../stations-demo/', import.meta.url));
 const truth = JSON.parse(readFileSync(demo + 'truth.json', 'utf8')) as { passages: { station: string; kind: string; time: string }[] };
