@@ -1,5 +1,5 @@
 /** Test helpers for the CLI: an in-memory CliIo, temp files, and the no-stack-trace check. */
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import * as assert from 'uvu/assert';
@@ -24,9 +24,11 @@ export async function cli(argv: string[], stdin = ''): Promise<CliResult> {
   return { code, stdout, stderr };
 }
 
-/** A fresh temp folder for one test file. */
+/** A fresh temp folder for one test file, removed when the test process exits. */
 export function tempDir(prefix = 'fropa-cli-'): string {
-  return mkdtempSync(join(tmpdir(), prefix));
+  const dir = mkdtempSync(join(tmpdir(), prefix));
+  process.on('exit', () => rmSync(dir, { recursive: true, force: true }));
+  return dir;
 }
 
 /** Write a file into `dir` and return its path. */
