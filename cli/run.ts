@@ -42,7 +42,7 @@ function wrapWords(text: string, width = 96): string {
 const EPILOGUE = 'Exit status: 0 success, 1 no usable data or a failure while running, 2 usage error.\n\n' + wrapWords(CAUTION);
 
 interface Selected {
-  command: 'inspect' | 'detect' | 'verify';
+  command: 'inspect' | 'detect' | 'verify' | 'report';
   args: Record<string, unknown>;
 }
 
@@ -101,13 +101,32 @@ function parser(onSelect: (s: Selected) => void) {
           .epilogue('Timing error = forecast − observed, minutes: positive = forecast late. Kinds are strict: a cold-front forecast never matches an observed occluded front (such near misses are listed).\n\n' + EPILOGUE),
       (a) => onSelect({ command: 'verify', args: a as Record<string, unknown> }),
     )
+    .command(
+      'report <paths...>',
+      'Write one self-contained HTML page with charts of each station around its passages, the fronts and a map',
+      (y) =>
+        withInputOptions(y)
+          .option('from', { type: 'string', describe: 'Start of the period shown, ISO 8601 (UTC unless an offset is given), e.g. 2026-03-02 or 2026-03-02T06:00Z', group: 'Report:' })
+          .option('to', { type: 'string', describe: 'End of the period shown (a date alone means the end of that day)', group: 'Report:' })
+          .option('station', { type: 'string', describe: 'Show only this station; repeatable or comma-separated', group: 'Report:' })
+          .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
+          .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.4)', group: 'Detection:' })
+          .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h (default: the speed fitted across the network)', group: 'Detection:' })
+          .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' })
+          .example('$0 report stations-demo --out report.html', 'The demo network: overview, fronts with maps, a chart per passage')
+          .example('$0 report stations-demo --from 2026-03-02 --to 2026-03-03 --out march2.html', 'Two days, one chart per station covering them')
+          .example('$0 report obs/ --stations stations.csv --station KORD --kinds cold-front', 'One station, cold fronts only')
+          .epilogue('The page needs no network connection: inline SVG and CSS, no scripts. Without --out it is written to report.html; --out - writes it to standard output.\n\n' + EPILOGUE),
+      (a) => onSelect({ command: 'report', args: a as Record<string, unknown> }),
+    )
     .option('verbose', { type: 'boolean', describe: 'Show stack traces of failures', global: true })
     .option('quiet', { type: 'boolean', describe: 'No notes on standard error', global: true })
     .example('$0 inspect stations-demo', 'How each demo file was read')
     .example('$0 detect stations-demo', 'Passages found in the demo files')
     .example('$0 detect obs/KXYZ_2026-03.txt --format json', 'Passages as JSON')
     .example('$0 verify stations-demo --forecasts stations-demo/forecasts/forecast_passages.csv', 'Forecast passage times against the demo observations')
-    .demandCommand(1, 'Name a command: inspect, detect or verify.')
+    .example('$0 report stations-demo --out report.html', 'A page of charts, fronts and maps to open in a browser')
+    .demandCommand(1, 'Name a command: inspect, detect, verify or report.')
     .recommendCommands()
     .strict()
     .exitProcess(false)
@@ -146,7 +165,9 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
         ? await import('./commands/inspect.js')
         : sel.command === 'detect'
           ? await import('./commands/detect.js')
-          : await import('./commands/verify.js');
+          : sel.command === 'verify'
+            ? await import('./commands/verify.js')
+            : await import('./commands/report.js');
     return await mod.run(sel.args, io);
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));
