@@ -7,7 +7,8 @@ import { trackFronts, withTrackSpeeds } from '../../src/network/track.js';
 import { withFrontogenesis } from '../../src/network/frontogenesis.js';
 import { CAUTION } from '../../src/report/caution.js';
 import { reportHtml } from '../../src/report/html/reportHtml.js';
-import { ArgumentError, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { ArgumentError, STDIN_TOKEN, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { utcMinute } from '../../src/report/html/timeAxis.js';
 import { detectOptions, parseKinds, sortEvents } from './detect.js';
 import { noDataMessage } from './inspect.js';
 
@@ -63,6 +64,13 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     const unknown = [...wanted].filter((id) => !known.has(id));
     if (unknown.length) throw new ArgumentError(`--station: no data for ${unknown.join(', ')}; stations read: ${[...known].sort().join(', ')}`);
   }
+  const shownSeries = result.series.filter((s) => (!wanted || wanted.has(s.station)) && s.length > 0);
+  const first = Math.min(...shownSeries.map((s) => s.timeMs[0]!));
+  const last = Math.max(...shownSeries.map((s) => s.timeMs[s.length - 1]!));
+  if ((fromMs !== undefined && fromMs > last) || (toMs !== undefined && toMs < first)) {
+    io.stderr(`fropa: no observations between ${fromMs !== undefined ? utcMinute(fromMs) : 'the start'} and ${toMs !== undefined ? utcMinute(toMs) : 'the end'} UTC; the data run from ${utcMinute(first)} to ${utcMinute(last)} UTC\n`);
+    return 1;
+  }
   // Detection and tracking on all the data (context outside the period helps), as in `fropa detect`.
   let all: PassageEvent[] = [];
   for (const s of result.series) {
@@ -82,7 +90,9 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     .filter((f) => f.format !== 'skipped' && f.format !== 'stations')
     .map((f) => ({ file: f.file, format: f.format, parsed: f.parsed, rejected: f.rejected }));
   const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION });
-  const out = (raw.out as string | undefined) ?? 'report.html';
+  // runCli turns every lone `-` into STDIN_TOKEN; for --out it means standard output.
+  const rawOut = raw.out as string | undefined;
+  const out = rawOut === undefined ? 'report.html' : rawOut === STDIN_TOKEN ? '-' : rawOut;
   await writeOutput(html, out, io);
   if (out !== '-') {
     const n = events.filter((e) => series.some((s) => s.station === e.station) && (fromMs === undefined || e.timeMs >= fromMs) && (toMs === undefined || e.timeMs <= toMs)).length;

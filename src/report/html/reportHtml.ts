@@ -225,7 +225,7 @@ export function reportHtml(r: ReportInput): string {
   const title = `fropa report: ${plural(r.series.length, 'station')}, ${period}`;
 
   const counts = countsByKind(events);
-  const countText = counts.size ? [...counts].map(([k, n]) => `<li><span class="kind-${k}">&nbsp;</span> ${n} ${escapeXml(k)}</li>`).join('') : '<li>no passages</li>';
+  const countText = counts.size ? [...counts].map(([k, n]) => `<li><span class="kind-${k}" aria-hidden="true">&nbsp;</span> ${n} ${escapeXml(k)}</li>`).join('') : '<li>no passages</li>';
   const fileRows = r.files
     .map((f) => `<tr><td>${escapeXml(f.file)}</td><td>${escapeXml(f.format)}</td><td class="n">${f.parsed}</td><td class="n">${f.rejected}</td></tr>`)
     .join('');

@@ -65,6 +65,16 @@ test('fropa report: usage errors exit 2 without a stack trace', async () => {
   assert.not.ok(readdirSync(dir).includes('x.html'));
 });
 
+test('fropa report --out - writes the page to standard output; a period without data exits 1 with the data period', async () => {
+  const r = await cli(['report', demo, '--station', 'XAVN', '--from', '2026-03-02', '--to', '2026-03-02T12:00Z', '--out', '-', '--quiet']);
+  assert.is(r.code, 0, r.stderr);
+  assert.ok(r.stdout.startsWith('<!DOCTYPE html>'));
+  const none = await cli(['report', demo, '--from', '2027-01-01', '--out', join(dir, 'none.html'), '--quiet']);
+  assert.is(none.code, 1);
+  assert.match(none.stderr, 'no observations between 2027-01-01 00:00 and the end UTC; the data run from 2026-03-01');
+  assertNoStack(none.stderr);
+});
+
 test('parseReportTime: ISO dates and times, UTC unless an offset is given; a date alone ends at 23:59 for --to', () => {
   assert.is(parseReportTime('2026-03-02', '--from'), Date.UTC(2026, 2, 2));
   assert.is(parseReportTime('2026-03-02', '--to', true), Date.UTC(2026, 2, 2, 23, 59));
