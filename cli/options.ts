@@ -136,7 +136,8 @@ export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<Lo
 
 /** Deliver command output: to `--out FILE` or standard output. A write failure is a runtime error (exit 1). */
 export async function writeOutput(text: string, out: string | undefined, io: CliIo): Promise<void> {
-  if (out === undefined || out === '-') {
+  // runCli carries every lone `-` as STDIN_TOKEN; after --out it means standard output.
+  if (out === undefined || out === '-' || out === STDIN_TOKEN) {
     io.stdout(text);
     return;
   }

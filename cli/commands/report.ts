@@ -90,11 +90,10 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     .filter((f) => f.format !== 'skipped' && f.format !== 'stations')
     .map((f) => ({ file: f.file, format: f.format, parsed: f.parsed, rejected: f.rejected }));
   const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION });
-  // runCli turns every lone `-` into STDIN_TOKEN; for --out it means standard output.
   const rawOut = raw.out as string | undefined;
-  const out = rawOut === undefined ? 'report.html' : rawOut === STDIN_TOKEN ? '-' : rawOut;
+  const out = rawOut === undefined ? 'report.html' : rawOut;
   await writeOutput(html, out, io);
-  if (out !== '-') {
+  if (out !== '-' && out !== STDIN_TOKEN) {
     const n = events.filter((e) => series.some((s) => s.station === e.station) && (fromMs === undefined || e.timeMs >= fromMs) && (toMs === undefined || e.timeMs <= toMs)).length;
     io.stdout(`wrote ${out} (${(Buffer.byteLength(html) / 1024).toFixed(0)} KiB): ${series.length} station${series.length === 1 ? '' : 's'}, ${n} passage${n === 1 ? '' : 's'}\n${CAUTION}\n`);
   }

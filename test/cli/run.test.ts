@@ -287,4 +287,11 @@ test('unreadable data file: exit 1 naming the file; unreadable stations file: ex
   chmodSync(locked, 0o644);
 });
 
+test('detect --out - writes to standard output (a lone - after --out is not standard input)', async () => {
+  const r = await cli(['detect', multi, '--format', 'csv', '--out', '-']);
+  assert.is(r.code, 0, r.stderr);
+  assert.ok(r.stdout.startsWith('station,kind,time,'), r.stdout.slice(0, 80));
+  assertNoStack(r.stderr);
+});
+
 test.run();
