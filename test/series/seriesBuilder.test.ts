@@ -120,6 +120,35 @@ test('SeriesBuilder.build() equals the object-based reference on random reports 
   );
 });
 
+test('SeriesBuilder.build() equals the reference when rows of many stations interleave across chunk and slab boundaries', () => {
+  // invented reports: 40 stations × 1,500 rows each, round-robin (60,000 rows: several record chunks per
+  // station and several shared slabs), with repeats and unsorted stretches
+  let seed = 12345;
+  const rnd = () => ((seed = (seed * 1103515245 + 12345) & 0x7fffffff) / 0x7fffffff);
+  const ids = Array.from({ length: 40 }, (_, i) => `K${String.fromCharCode(65 + (i % 26))}${String.fromCharCode(65 + Math.floor(i / 26))}X`);
+  const perStation = new Map<string, Observation[]>(ids.map((id) => [id, []]));
+  const b = new SeriesBuilder();
+  const scratch = emptyObservation('', NaN, '', 0);
+  for (let row = 0; row < 1500; row++) {
+    for (const id of ids) {
+      const t = (row + (rnd() < 0.05 ? -3 : 0)) * 3_600_000;
+      const o = emptyObservation(id, t, rnd() < 0.5 ? 'a.txt' : 'b.txt', row + 1);
+      o.temperatureC = rnd() < 0.1 ? NaN : Math.round(rnd() * 400) / 10 - 10;
+      o.dewpointC = rnd() < 0.1 ? NaN : -5;
+      o.windSpeedMs = rnd() * 20;
+      o.seaLevelPressureHpa = 1000 + rnd() * 30;
+      o.weather = rnd() < 0.2 ? 5 : 0;
+      o.corrected = rnd() < 0.02;
+      o.source = 'METAR';
+      perStation.get(id)!.push(o);
+      Object.assign(scratch, o);
+      scratch.remarks = undefined;
+      b.add(scratch);
+    }
+  }
+  for (const id of ids) assert.equal(plain(b.build(id)), plain(referenceSeries(id, perStation.get(id)!)), id);
+});
+
 test('SeriesBuilder resolves raw ids once each and groups aliases under one station', () => {
   const calls: string[] = [];
   const b = new SeriesBuilder((id) => (calls.push(id), id === 'JFK' ? 'KJFK' : id));
