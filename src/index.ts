@@ -17,3 +17,4 @@ export * from './verify/contingency.js';
 export { verifyForecasts } from './verify/verify.js';
 export { readForecastsText } from './verify/forecasts.js';
 export * as physics from './physics/index.js';
+export { analyseSeries, sortEvents, type AnalyseOptions, type Analysis } from './analyse.js';

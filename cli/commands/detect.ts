@@ -2,14 +2,11 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { loadPaths } from '../../src/ingest/load.js';
-import { detectStation } from '../../src/detect/detect.js';
-import { BOUNDARY_KINDS, type BoundaryKind, type DetectOptions, type PassageEvent } from '../../src/detect/types.js';
+import { analyseSeries } from '../../src/analyse.js';
+import { BOUNDARY_KINDS, type BoundaryKind, type DetectOptions } from '../../src/detect/types.js';
 import { eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, summaryLines } from '../../src/report/format.js';
 import { CAUTION } from '../../src/report/caution.js';
-import { trackFronts, withTrackSpeeds } from '../../src/network/track.js';
-import { withFrontogenesis } from '../../src/network/frontogenesis.js';
 import { tracksToCsv, tracksToJson, tracksToTable } from '../../src/report/fronts.js';
-import type { StationMeta } from '../../src/ingest/types.js';
 import { ArgumentError, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { noDataMessage } from './inspect.js';
 
@@ -48,10 +45,7 @@ function lastNumber(v: unknown): number | undefined {
   return typeof x === 'number' ? x : Number(x);
 }
 
-/** Stable order: station, then time, then kind. */
-export function sortEvents(events: PassageEvent[]): PassageEvent[] {
-  return events.sort((a, b) => (a.station < b.station ? -1 : a.station > b.station ? 1 : a.timeMs - b.timeMs || (a.kind < b.kind ? -1 : a.kind > b.kind ? 1 : 0)));
-}
+export { sortEvents } from '../../src/analyse.js';
 
 /** Run detect; returns the exit code (1 when no station has data). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
@@ -66,21 +60,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
-  let all: PassageEvent[] = [];
-  for (const s of result.series) {
-    try {
-      all.push(...detectStation(s, dopts));
-    } catch (e) {
-      throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
-    }
-  }
-  // Fronts across the network (needs three or more stations with coordinates); their speed gives the
-  // zone depth and gradient unless --front-speed was given.
-  const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const allTracks = raw.network === false ? [] : withFrontogenesis(trackFronts(all, metas), result.series);
-  if (dopts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
-  const tracks = allTracks.filter((t) => !kinds || kinds.has(t.kind));
-  const events = sortEvents(all.filter((e) => !kinds || kinds.has(e.kind)));
+  const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds });
   const stations = result.series.map((s) => s.station);
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {

@@ -1,15 +1,12 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
 import { loadPaths } from '../../src/ingest/load.js';
-import { detectStation } from '../../src/detect/detect.js';
-import type { PassageEvent } from '../../src/detect/types.js';
 import type { StationMeta } from '../../src/ingest/types.js';
-import { trackFronts, withTrackSpeeds } from '../../src/network/track.js';
-import { withFrontogenesis } from '../../src/network/frontogenesis.js';
+import { analyseSeries } from '../../src/analyse.js';
 import { CAUTION } from '../../src/report/caution.js';
 import { reportHtml } from '../../src/report/html/reportHtml.js';
 import { ArgumentError, STDIN_TOKEN, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { utcMinute } from '../../src/report/html/timeAxis.js';
-import { detectOptions, parseKinds, sortEvents } from './detect.js';
+import { detectOptions, parseKinds } from './detect.js';
 import { noDataMessage } from './inspect.js';
 
 /**
@@ -72,23 +69,12 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     return 1;
   }
   // Detection and tracking on all the data (context outside the period helps), as in `fropa detect`.
-  let all: PassageEvent[] = [];
-  for (const s of result.series) {
-    try {
-      all.push(...detectStation(s, dopts));
-    } catch (e) {
-      throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
-    }
-  }
-  const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const allTracks = raw.network === false ? [] : withFrontogenesis(trackFronts(all, metas), result.series);
-  if (dopts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
-  const tracks = allTracks.filter((t) => !kinds || kinds.has(t.kind));
-  const events = sortEvents(all.filter((e) => !kinds || kinds.has(e.kind)));
+  const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds });
   const series = [...result.series].filter((s) => !wanted || wanted.has(s.station)).sort((a, b) => (a.station < b.station ? -1 : a.station > b.station ? 1 : 0));
   const files = result.reports
     .filter((f) => f.format !== 'skipped' && f.format !== 'stations')
     .map((f) => ({ file: f.file, format: f.format, parsed: f.parsed, rejected: f.rejected }));
+  const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
   const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION });
   const rawOut = raw.out as string | undefined;
   const out = rawOut === undefined ? 'report.html' : rawOut;

@@ -3,8 +3,7 @@ import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import { loadPaths } from '../../src/ingest/load.js';
 import { buildStationIndex } from '../../src/ingest/stations.js';
-import { detectStation } from '../../src/detect/detect.js';
-import type { PassageEvent } from '../../src/detect/types.js';
+import { analyseSeries } from '../../src/analyse.js';
 import { readForecastsText } from '../../src/verify/forecasts.js';
 import { verifyForecasts } from '../../src/verify/verify.js';
 import { verificationToCsv, verificationToJson, verificationToTable } from '../../src/verify/format.js';
@@ -37,14 +36,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
-  const events: PassageEvent[] = [];
-  for (const s of result.series) {
-    try {
-      events.push(...detectStation(s, dopts));
-    } catch (e) {
-      throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
-    }
-  }
+  const { events } = analyseSeries(result.series, { ...dopts, network: false });
   const { forecasts, report } = readForecastsText(text, forecastFile, {
     stations: buildStationIndex(result.stations),
     observedStations: new Set(result.series.map((s) => s.station)),
