@@ -127,11 +127,14 @@ function tokenize(s: string, start: number, end: number): number {
   let ts = tokStart;
   let te = tokEnd;
   while (p < end) {
-    let c = s.charCodeAt(p);
-    while (c <= 32 && p < end) c = s.charCodeAt(++p);
-    if (p >= end) break;
+    if (s.charCodeAt(p) <= 32) {
+      p++;
+      continue;
+    }
     const a = p;
-    while (p < end && s.charCodeAt(p) > 32) p++;
+    // to the next blank or the end of the string (charCodeAt is NaN there), then clamp to `end`
+    while (s.charCodeAt(++p) > 32);
+    if (p > end) p = end;
     let b = p;
     let last = false;
     if (s.charCodeAt(b - 1) === 61 /* = */) {
