@@ -342,6 +342,15 @@ export function renderStation(s: StationSchedule, group: GroupPlan, startMs: num
     nTd = arTd * nTd + Math.sqrt(1 - arTd * arTd) * 0.3 * noise.normal();
     let temp = base + amT + rangeNow * shape + nT;
     let dew = base - depression + amTd + 0.08 * rangeNow * shape + nTd;
+    // A dryline separates warm, moist air from dry air (Schaefer1986): on its day the moist side is lifted to
+    // a warm-sector dew point of about 13 °C before the dry air arrives (no random draws, so nothing else moves).
+    let moistW = 0;
+    for (const d of s.drylines) moistW = Math.max(moistW, trapezoid(t, d.timeMs - 18 * HOUR, d.timeMs - 10 * HOUR, d.retreatMs + 2 * HOUR, d.retreatMs + 8 * HOUR));
+    if (moistW > 0) {
+      temp += 6 * moistW;
+      dew += Math.max(0, 13 - dew) * moistW;
+      dew = Math.min(dew, temp - 1);
+    }
     if (dryW > 0 && dryD) {
       temp += dryD.dT * dryW;
       dew += dryD.dTd * dryW;
