@@ -34,13 +34,19 @@ test('the demo loads every station, with stations files found in the folders', (
 test('detectStation() finds the planted cold fronts of the demo', () => {
   const s = scores('cold-front');
   assert.ok(s.n >= 100);
-  assert.ok(s.pod >= 0.85, `POD ${s.pod}`);
-  assert.ok(s.far <= 0.35, `FAR ${s.far}`);
+  assert.ok(s.pod >= 0.9, `POD ${s.pod}`);
+  assert.ok(s.far <= 0.1, `FAR ${s.far}`);
 });
 
 test('detectStation() finds most planted warm fronts of the demo', () => {
   const s = scores('warm-front');
-  assert.ok(s.pod >= 0.4, `POD ${s.pod}`);
+  assert.ok(s.pod >= 0.8, `POD ${s.pod}`);
+});
+
+test('detectStation() finds the planted dryline at each of its stations', () => {
+  const s = scores('dryline');
+  assert.is(s.n, 3);
+  assert.is(s.pod, 1);
 });
 
 test.run();
