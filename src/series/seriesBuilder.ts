@@ -59,32 +59,6 @@ export interface Columns {
   remarkLists: readonly ObserverRemark[][];
 }
 
-/** Largest slab, doubles: 16 full chunks (4 MiB). */
-const SLAB_DOUBLES = 16 * MAX_CHUNK_ROWS * STRIDE;
-
-/**
- * Hands out record chunks as views on large shared buffers, so that a builder with many stations makes
- * a few big allocations instead of one per chunk (fewer external-memory GCs).
- */
-export class RecordSlab {
-  private buf: ArrayBuffer | null = null;
-  private used = 0;
-  private size = 0;
-
-  /** A zero-filled view of `n` doubles. */
-  take(n: number): Float64Array {
-    if (this.buf === null || this.size - this.used < n) {
-      // small first (builders of a few rows stay small), then doubling up to SLAB_DOUBLES
-      this.size = Math.max(n, Math.min(SLAB_DOUBLES, this.size === 0 ? 8192 : this.size * 2));
-      this.buf = new ArrayBuffer(this.size * 8);
-      this.used = 0;
-    }
-    const v = new Float64Array(this.buf, this.used * 8, n);
-    this.used += n;
-    return v;
-  }
-}
-
 /** One station's rows as they arrived (input order), one record of STRIDE doubles per row, in chunks (no copying on growth). */
 export class StationColumns {
   readonly station: string;
@@ -99,17 +73,13 @@ export class StationColumns {
   remarkRows: number[] = [];
   remarkLists: ObserverRemark[][] = [];
 
-  private readonly slab: RecordSlab | undefined;
-
-  /** `slab`: where chunks are carved from (shared by a builder's stations); own arrays when absent. */
-  constructor(station: string, slab?: RecordSlab) {
+  constructor(station: string) {
     this.station = station;
-    this.slab = slab;
   }
 
   private grow(): void {
     const rows = this.rows === 0 ? INITIAL_CAPACITY : Math.min(this.rows * 2, MAX_CHUNK_ROWS);
-    this.cur = this.slab !== undefined ? this.slab.take(rows * STRIDE) : new Float64Array(rows * STRIDE);
+    this.cur = new Float64Array(rows * STRIDE);
     this.chunks.push(this.cur);
     this.rows = rows;
     this.used = 0;
@@ -224,7 +194,6 @@ export class SeriesBuilder {
   private lastRawId: string | null = null;
   private lastColumns: StationColumns | null = null;
   private readonly resolve: ((id: string) => string) | undefined;
-  private readonly slab = new RecordSlab();
 
   /** `resolve` maps a raw station id to the id the series is kept under (alias resolution); called once per distinct raw id. */
   constructor(resolve?: (id: string) => string) {
@@ -258,7 +227,7 @@ export class SeriesBuilder {
       const id = this.resolve ? this.resolve(rawId) : rawId;
       c = this.byStation.get(id);
       if (c === undefined) {
-        c = new StationColumns(id, this.slab);
+        c = new StationColumns(id);
         this.byStation.set(id, c);
       }
       this.byRawId.set(rawId, c);
