@@ -48,6 +48,9 @@ export function metarToObservation(r: MetarReport, file: string, line: number): 
   return o;
 }
 
+/** Characters below 32 other than LF (a global regex used as a cursor). */
+const CONTROL = /[\x00-\x09\x0b-\x1f]/g;
+
 /** True when a line (after an optional archive stamp) begins like a METAR/SPECI report. */
 function lineLooksLikeReport(s: string, start: number, end: number): boolean {
   const st = archiveStamp(s, start, end);
@@ -176,6 +179,8 @@ function scanMetar(text: string, file: string, month: string | undefined, emit: 
   let lineNo = 0;
   let p = 0;
   const len = text.length;
+  /** Index of the next control character other than LF at or after the current line (-1: none left, -2: not searched yet). */
+  let ctlAt = -2;
   while (p <= len) {
     let e = text.indexOf('\n', p);
     if (e < 0) e = len;
@@ -226,9 +231,14 @@ function scanMetar(text: string, file: string, month: string | undefined, emit: 
       });
       continue;
     }
-    // The general tokenizer (any character <= 32 separates groups): measured as fast as the space-only
-    // one, so no pre-scan of the text for control characters is needed.
-    const is: ParseIssue | null = decodeInto(r, text, start, b, ref, true);
+    // Lines without control characters (tabs, CR, ...) between their first and last group take the
+    // faster tokenizer; the next such character is searched once per stretch of text.
+    if (ctlAt === -2 || (ctlAt >= 0 && ctlAt < start)) {
+      CONTROL.lastIndex = start;
+      const m = CONTROL.exec(text);
+      ctlAt = m ? m.index : -1;
+    }
+    const is: ParseIssue | null = decodeInto(r, text, start, b, ref, true, ctlAt < 0 || ctlAt >= b);
     if (is) {
       addIssue(report, is);
       continue;

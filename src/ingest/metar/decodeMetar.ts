@@ -127,14 +127,11 @@ function tokenize(s: string, start: number, end: number): number {
   let ts = tokStart;
   let te = tokEnd;
   while (p < end) {
-    if (s.charCodeAt(p) <= 32) {
-      p++;
-      continue;
-    }
+    let c = s.charCodeAt(p);
+    while (c <= 32 && p < end) c = s.charCodeAt(++p);
+    if (p >= end) break;
     const a = p;
-    // to the next blank or the end of the string (charCodeAt is NaN there), then clamp to `end`
-    while (s.charCodeAt(++p) > 32);
-    if (p > end) p = end;
+    while (p < end && s.charCodeAt(p) > 32) p++;
     let b = p;
     let last = false;
     if (s.charCodeAt(b - 1) === 61 /* = */) {
