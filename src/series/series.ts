@@ -38,21 +38,14 @@ export interface DuplicateNote {
   file: string;
 }
 
-export interface StationSeries {
+/** One Float64Array per numeric variable (canonical units, NaN = missing). */
+export type FieldColumns = { [F in SeriesField]: Float64Array };
+
+export interface StationSeries extends FieldColumns {
   station: string;
   meta?: StationMeta;
   length: number;
   timeMs: Float64Array;
-  temperatureC: Float64Array;
-  dewpointC: Float64Array;
-  windDirDeg: Float64Array;
-  windSpeedMs: Float64Array;
-  gustMs: Float64Array;
-  stationPressureHpa: Float64Array;
-  seaLevelPressureHpa: Float64Array;
-  altimeterHpa: Float64Array;
-  precipMm: Float64Array;
-  peakWindMs: Float64Array;
   /** WX bit flags per report. */
   weather: Uint16Array;
   /** PRESRR +1 / PRESFR −1 / 0. */

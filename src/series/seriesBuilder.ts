@@ -7,7 +7,7 @@
  * rows arrive, once per distinct id.
  */
 import type { Observation, ObserverRemark, StationMeta } from '../ingest/types.js';
-import { allocSeries, type DuplicateNote, type StationSeries } from './series.js';
+import { allocSeries, type DuplicateNote, type FieldColumns, type StationSeries } from './series.js';
 
 const INITIAL_CAPACITY = 32;
 const MAX_CHUNK_ROWS = 2048;
@@ -33,19 +33,9 @@ const R_LINE = 14;
 const R_FILE = 15;
 
 /** One station's rows column by column (exact length), in input order. */
-export interface Columns {
+export interface Columns extends FieldColumns {
   length: number;
   timeMs: Float64Array;
-  temperatureC: Float64Array;
-  dewpointC: Float64Array;
-  windDirDeg: Float64Array;
-  windSpeedMs: Float64Array;
-  gustMs: Float64Array;
-  stationPressureHpa: Float64Array;
-  seaLevelPressureHpa: Float64Array;
-  altimeterHpa: Float64Array;
-  precipMm: Float64Array;
-  peakWindMs: Float64Array;
   /** WX flags as the Observation held them (32-bit, stored 16-bit in the series). */
   weather: Int32Array;
   pressureTrend: Int8Array;

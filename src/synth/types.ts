@@ -1,6 +1,7 @@
 /** Types of the synthetic weather generator: configuration, columnar output, planted truth. */
 import type { BoundaryKind } from '../detect/types.js';
 import type { StationMeta } from '../ingest/types.js';
+import type { FieldColumns } from '../series/series.js';
 
 /** Decoy kinds: things that look a little like fronts but are not synoptic fronts. */
 export const DECOY_KINDS = ['night-cooling', 'outflow-boundary', 'sea-breeze-front', 'prefrontal-trough', 'dryline-retreat'] as const;
@@ -38,22 +39,16 @@ export interface FaultRecord {
   field?: string;
 }
 
-/** Columnar 5-minute series (canonical units; NaN = missing). */
-export interface SynthSeries {
+/**
+ * Columnar 5-minute series (canonical units; NaN = missing), the columns of a StationSeries that the
+ * generator makes: wind direction 0 when calm; gust = highest 3-s gust within the 5 min; precipitation in
+ * the 5 min ending at timeMs, mm.
+ */
+export interface SynthSeries
+  extends Pick<FieldColumns, 'temperatureC' | 'dewpointC' | 'windDirDeg' | 'windSpeedMs' | 'gustMs' | 'stationPressureHpa' | 'seaLevelPressureHpa' | 'precipMm'> {
   station: string;
   length: number;
   timeMs: Float64Array;
-  temperatureC: Float64Array;
-  dewpointC: Float64Array;
-  /** Direction the wind blows from, degrees true; 0 when calm. */
-  windDirDeg: Float64Array;
-  windSpeedMs: Float64Array;
-  /** Highest 3-s gust within the 5-min interval, m/s. */
-  gustMs: Float64Array;
-  stationPressureHpa: Float64Array;
-  seaLevelPressureHpa: Float64Array;
-  /** Precipitation in the 5-min interval ending at timeMs, mm. */
-  precipMm: Float64Array;
   /** WX bit flags (src/ingest/types.ts). */
   weather: Uint16Array;
   /** Cloud cover fraction 0–1 (for encoders' sky groups). */
