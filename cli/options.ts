@@ -47,7 +47,7 @@ export interface InputArgs {
 export function withInputOptions<T>(y: Argv<T>) {
   return y
     .positional('paths', { type: 'string', array: true, describe: 'Files or folders to read (folders recursively); - reads standard input', demandOption: true })
-    .option('stations', { type: 'string', coerce: last, describe: 'Stations file (CSV: id, aliases, name, lat, lon, elevation_m, coastal)', group: 'Input:' })
+    .option('stations', { type: 'string', coerce: last, describe: 'Stations file (CSV: id, alias, name, lat, lon, elevation_m; optional coastal, sea_bearing_deg)', group: 'Input:' })
     .option('month', { type: 'string', coerce: last, describe: 'YYYY-MM for METAR lines that carry no date stamp and files with no date in their name', group: 'Input:' })
     .option('tz', { type: 'string', coerce: last, describe: 'IANA time zone of CSV times written without an offset (e.g. America/Chicago)', group: 'Input:' })
     .option('standard-time', { type: 'boolean', describe: 'With --tz: times are local standard time all year (no DST)', group: 'Input:' })

@@ -5,7 +5,7 @@
  * Errors never show a stack trace unless `--verbose`.
  */
 import { readFileSync } from 'node:fs';
-import yargs from 'yargs';
+import yargs, { type Argv } from 'yargs';
 import { BOUNDARY_KINDS } from '../src/detect/types.js';
 import { CAUTION } from '../src/report/caution.js';
 import { STDIN_TOKEN, withInputOptions, type CliIo } from './options.js';
@@ -46,6 +46,15 @@ interface Selected {
   args: Record<string, unknown>;
 }
 
+/** Options that steer detection and tracking, shared by `detect` and `report`. */
+function withDetectionOptions<T>(y: Argv<T>) {
+  return y
+    .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
+    .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.4)', group: 'Detection:' })
+    .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h, for zone depth and gradient (default: the speed fitted across the network)', group: 'Detection:' })
+    .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' });
+}
+
 /** Build the parser; the command handlers only record which command was chosen. */
 function parser(onSelect: (s: Selected) => void) {
   return yargs()
@@ -68,14 +77,10 @@ function parser(onSelect: (s: Selected) => void) {
       'detect <paths...>',
       'Find frontal and other boundary passages at each station',
       (y) =>
-        withInputOptions(y)
+        withDetectionOptions(withInputOptions(y))
           .option('format', { choices: ['table', 'csv', 'json', 'ndjson'] as const, default: 'table', describe: 'Output format', group: 'Output:' })
           .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json and summary.txt into DIR', group: 'Output:' })
           .option('local', { type: 'boolean', describe: 'Table times in the --tz zone instead of UTC (needs --tz; CSV/JSON stay UTC)', group: 'Output:' })
-          .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
-          .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.4)', group: 'Detection:' })
-          .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h, for zone depth and gradient (default: the speed fitted across the network)', group: 'Detection:' })
-          .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' })
           .conflicts('out', 'out-dir')
           .example('$0 detect stations-demo', 'Passages in the demo folder, as a table')
           .example('$0 detect stations-demo --out-dir fropa-out', 'Write events and fronts (CSV, JSON) and a summary')
@@ -105,14 +110,10 @@ function parser(onSelect: (s: Selected) => void) {
       'report <paths...>',
       'Write one self-contained HTML page with charts of each station around its passages, the fronts and a map',
       (y) =>
-        withInputOptions(y)
+        withDetectionOptions(withInputOptions(y))
           .option('from', { type: 'string', describe: 'Start of the period shown, ISO 8601 (UTC unless an offset is given), e.g. 2026-03-02 or 2026-03-02T06:00Z', group: 'Report:' })
           .option('to', { type: 'string', describe: 'End of the period shown (a date alone means the end of that day)', group: 'Report:' })
           .option('station', { type: 'string', describe: 'Show only this station; repeatable or comma-separated', group: 'Report:' })
-          .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
-          .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.4)', group: 'Detection:' })
-          .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h (default: the speed fitted across the network)', group: 'Detection:' })
-          .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' })
           .example('$0 report stations-demo --out report.html', 'The demo network: overview, fronts with maps, a chart per passage')
           .example('$0 report stations-demo --from 2026-03-02 --to 2026-03-03 --out march2.html', 'Two days, one chart per station covering them')
           .example('$0 report obs/ --stations stations.csv --station KORD --kinds cold-front', 'One station, cold fronts only')
