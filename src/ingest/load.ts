@@ -7,7 +7,7 @@ import { closeSync, openSync, readSync, readdirSync, readFileSync, statSync } fr
 import { basename, extname, join } from 'node:path';
 import type { FileReport, Observation, StationMeta } from './types.js';
 import { newFileReport } from './types.js';
-import { decodeMetarAt, isParseIssue, looksLikeMetar, readMetarText } from './metar.js';
+import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarText } from './metar.js';
 import { readCsvText, type CsvOptions, type RawReportDecoded } from './csv.js';
 import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, type StationIndex } from './stations.js';
 import type { ColumnOverride } from './columns.js';
@@ -114,23 +114,7 @@ export function sniffFormat(name: string, sample: string, binary: boolean): Snif
 function decodeRawReport(text: string, timeMs: number, file: string, line: number): RawReportDecoded | null {
   const r = decodeMetarAt(text, timeMs, file, line);
   if (isParseIssue(r)) return null;
-  return {
-    temperatureC: r.temperatureC,
-    dewpointC: r.dewpointC,
-    tempFromRemarks: r.tempFromRemarks,
-    windDirDeg: r.windDirDeg,
-    windSpeedMs: r.windSpeedMs,
-    gustMs: r.gustMs,
-    seaLevelPressureHpa: r.seaLevelPressureHpa,
-    altimeterHpa: Number.isNaN(r.altimeterHpa) ? r.qnhHpa : r.altimeterHpa,
-    precipMm: r.precip1hMm,
-    weather: r.weather,
-    peakWindMs: r.peakWindMs,
-    pressureTrend: r.pressureTrend,
-    corrected: r.corrected,
-    source: r.type,
-    remarks: r.remarks,
-  };
+  return { ...metarToObservation(r, file, line), tempFromRemarks: r.tempFromRemarks };
 }
 
 /**
