@@ -1,7 +1,7 @@
 /**
  * CSV / TSV station time series → Observations in canonical units, with a FileReport accounting for every
- * line. Parsing is papaparse in step mode (one row at a time), over a string or a Node readable stream;
- * both entry points share one row handler (`CsvCore`).
+ * line. Parsing is papaparse in chunk mode (blocks of rows, still streaming), over a string or a Node readable
+ * stream; both entry points share one row handler (`CsvCore`).
  *
  * Rules (decided here; tests pin them):
  * - The first non-blank row is the header (see columns.ts for names). Blank lines are skipped, not counted.
@@ -302,6 +302,34 @@ export class CsvCore {
 
   /** Handle one parsed row. Returns false when the rest of the input should not be read. */
   row(fields: string[], errors?: readonly { code?: string; message?: string }[]): boolean {
+    return this.handle(fields, errors && errors.length ? errors[0] : undefined);
+  }
+
+  /**
+   * Handle a block of parsed rows (papaparse chunk mode). `errors` are papaparse's for the block: `row` is
+   * the index in `rows` (errors for a row not in the block, i.e. the unfinished last line papaparse carries
+   * to the next block, are dropped: it reports them again then); an error without `row` (papaparse's
+   * delimiter-guess error) belongs to the block's first row, after that row's own errors, which is where
+   * step mode puts it. Each row is handled as `row()` would with its first error. Returns false when the
+   * rest of the input should not be read.
+   */
+  rows(rows: readonly string[][], errors: readonly { code?: string; message?: string; row?: number }[]): boolean {
+    const n = rows.length;
+    let first: ({ code?: string; message?: string } | undefined)[] | null = null;
+    if (errors.length !== 0) {
+      first = new Array(n).fill(undefined);
+      for (const e of errors) {
+        const r = e.row ?? 0;
+        if (r >= 0 && r < n && first[r] === undefined) first[r] = e;
+      }
+    }
+    if (first === null) {
+      for (let i = 0; i < n; i++) if (!this.handle(rows[i]!, undefined)) return false;
+    } else for (let i = 0; i < n; i++) if (!this.handle(rows[i]!, first[i])) return false;
+    return true;
+  }
+
+  private handle(fields: string[], err: { code?: string; message?: string } | undefined): boolean {
     const line = ++this.line;
     if (fields.length === 1 && fields[0]!.trim() === '') return true;
     this.report.lines++;
@@ -310,12 +338,9 @@ export class CsvCore {
       this.reject(line, this.fatal.reason, this.fatal.message);
       return true;
     }
-    if (errors && errors.length) {
-      const e = errors[0]!;
-      if (e.code === 'MissingQuotes' || e.code === 'InvalidQuotes') {
-        this.reject(line, 'bad-quotes', `unbalanced quotes (${e.message ?? e.code}); fix the quoting in the file`);
-        return true;
-      }
+    if (err !== undefined && (err.code === 'MissingQuotes' || err.code === 'InvalidQuotes')) {
+      this.reject(line, 'bad-quotes', `unbalanced quotes (${err.message ?? err.code}); fix the quoting in the file`);
+      return true;
     }
     if (this.pending) {
       this.pending.push({ fields, line });
@@ -762,18 +787,27 @@ const VALUE_NOTE: Record<string, string> = {
   'raw-report-error': '; raw report decoder failed',
 };
 
-function papaConfig(opts: CsvOptions, core: CsvCore): Papa.ParseConfig<string[]> {
+/** papaparse options in chunk mode (`chunk` and `chunkSize` are not in the synchronous `ParseConfig` type). */
+type ChunkConfig = Papa.ParseConfig<string[]> & {
+  chunk: (results: Papa.ParseResult<string[]>, parser: Papa.Parser) => void;
+  chunkSize?: number;
+};
+
+function papaConfig(opts: CsvOptions, core: CsvCore): ChunkConfig {
   return {
     delimiter: opts.delimiter ?? '',
     delimitersToGuess: [',', '\t', ';', '|'],
     skipEmptyLines: false,
     header: false,
     dynamicTyping: false,
-    step: (results: Papa.ParseStepResult<string[]>, parser: Papa.Parser) => {
-      if (!core.row(results.data, results.errors)) parser.abort();
+    chunk: (results: Papa.ParseResult<string[]>, parser: Papa.Parser) => {
+      if (!core.rows(results.data, results.errors)) parser.abort();
     },
   };
 }
+
+/** Characters per papaparse block when reading a text (bounds the rows held at once). */
+const TEXT_CHUNK = 1 << 20;
 
 /**
  * Read a whole CSV text. See the module comment for the rules. With `onObservation`, rows go to it
@@ -793,7 +827,18 @@ export function readCsvText(
     core.row(['\u0000']);
     return { ...core.finish(), observations };
   }
-  if (text.trim() !== '') Papa.parse<string[]>(text, papaConfig(opts, core));
+  if (text.trim() !== '') {
+    const config = papaConfig(opts, core);
+    if (text.length > TEXT_CHUNK) {
+      // Read in blocks, with the line ending and delimiter papaparse guesses from the whole text (as it does
+      // when the text is one block), not from the first block only.
+      const guess = Papa.parse<string[]>(text, { delimiter: config.delimiter, delimitersToGuess: config.delimitersToGuess, preview: 1 });
+      config.delimiter = guess.meta.delimiter;
+      config.newline = guess.meta.linebreak as Papa.ParseConfig['newline'];
+      config.chunkSize = TEXT_CHUNK;
+    }
+    Papa.parse<string[]>(text, config as Papa.ParseConfig<string[]>);
+  }
   return { ...core.finish(), observations };
 }
 

@@ -5,7 +5,7 @@ import { Readable } from 'node:stream';
 import { fileURLToPath } from 'node:url';
 import { assertClose } from '../helpers/assert.js';
 import fc from 'fast-check';
-import { decimalValue, readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
+import { CsvCore, decimalValue, readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
 import { parseColumnOverride } from '../../src/ingest/columns.js';
 import { WX, type Observation } from '../../src/ingest/types.js';
 
@@ -256,6 +256,57 @@ test('readCsvStream() reports empty and binary streams', async () => {
   assert.equal(empty.report.rejectedByReason, { empty: 1 });
   const bin = await readCsvStream(Readable.from(['abc\u0000def,x\n1,2\n']), 'b.csv', {}, () => {});
   assert.equal(bin.report.rejectedByReason, { binary: 1 });
+});
+
+// Line accounting is this module's own rule (module comment: row numbers, a quoted line break shifts later
+// numbers, bad quotes reject the row); common practice, no source. Invented rows.
+test('readCsvText() over 1 MiB reads in blocks: row numbers and issues as a stream read in small pieces gives', async () => {
+  const rows: string[] = [];
+  let len = 'station,valid,tmpc\n'.length;
+  let quoted = -1;
+  for (let i = 0; len < 1.1 * (1 << 20); i++) {
+    const time = new Date(Date.UTC(2024, 0, 1) + i * 60000).toISOString().slice(0, 16).replace('T', ' ');
+    // one quoted station holding a line break, straddling the 1 MiB block edge
+    const st = quoted < 0 && len > (1 << 20) - 8 ? ((quoted = i), '"A\nA"') : 'A';
+    rows.push(`${st},${time},1.5`);
+    len += rows[i]!.length + 1;
+  }
+  rows.push('A,2024-02-01 00:00,"1"x'); // malformed quotes to the end of the text
+  const text = 'station,valid,tmpc\n' + rows.join('\n') + '\n';
+  const r = readCsvText(text, 'big.csv', {});
+  assert.ok(quoted > 0);
+  assert.is(r.report.lines, rows.length + 1);
+  assert.is(r.report.parsed, rows.length - 1);
+  assert.equal(r.report.rejectedByReason, { 'bad-quotes': 1 });
+  assert.is(r.report.issues[0]!.line, rows.length + 1);
+  assert.is(r.observations[quoted]!.station, 'A\nA');
+  assert.is(r.observations[quoted + 1]!.line, quoted + 3);
+  assert.is(r.observations.at(-1)!.line, rows.length);
+  const got: Observation[] = [];
+  const parts: string[] = [];
+  for (let i = 0; i < text.length; i += 4099) parts.push(text.slice(i, i + 4099));
+  const s = await readCsvStream(Readable.from(parts), 'big.csv', {}, (o) => got.push(o));
+  assert.equal(s.report, r.report);
+  assert.equal(got, r.observations);
+});
+
+// papaparse chunk-mode results (papaparse 5 source, Parser: errors carry `row`, the index in the block's rows;
+// the delimiter-guess error has none): a row's first error decides, errors of the carried-over partial row are dropped.
+test('CsvCore.rows() takes a block of rows with its errors as papaparse reports them', () => {
+  const got: Observation[] = [];
+  const core = new CsvCore('c.csv', {}, (o) => got.push(o));
+  const rows = [['valid', 'tmpc'], ['2024-01-01T00:00Z', '1'], ['2024-01-01T01:00Z', '2'], ['2024-01-01T02:00Z', '3']];
+  const errors = [
+    { code: 'InvalidQuotes', message: 'Trailing quote on quoted field is malformed', row: 2 },
+    { code: 'MissingQuotes', message: 'Quoted field unterminated', row: 4 },
+    { code: 'UndetectableDelimiter', message: "defaulted to ','" },
+  ];
+  assert.ok(core.rows(rows, errors));
+  const res = core.finish();
+  assert.is(res.report.lines, 4);
+  assert.equal(res.report.rejectedByReason, { 'bad-quotes': 1 });
+  assert.is(res.report.issues[0]!.line, 3);
+  assert.equal(got.map((o) => o.line), [2, 4]);
 });
 
 // Real files (see the realdata README beside the repository): every line parsed, counts as observed.
