@@ -7,6 +7,7 @@ import type { FileReport, Observation, ParseIssue } from './types.js';
 import { addIssue, emptyObservation, newFileReport } from './types.js';
 import { archiveStamp, archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
+import { fastDecodeInto } from './metar/fastMetar.js';
 
 export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';
 export type { MetarReport, SkyLayer } from './metar/decodeMetar.js';
@@ -238,7 +239,9 @@ function scanMetar(text: string, file: string, month: string | undefined, emit: 
       const m = CONTROL.exec(text);
       ctlAt = m ? m.index : -1;
     }
-    const is: ParseIssue | null = decodeInto(r, text, start, b, ref, true, ctlAt < 0 || ctlAt >= b);
+    // Common lines take the single-pass decoder; it gives up on anything unusual (same results either way).
+    const spacesOnly = ctlAt < 0 || ctlAt >= b;
+    const is: ParseIssue | null = spacesOnly && fastDecodeInto(r, text, start, b, ref) ? null : decodeInto(r, text, start, b, ref, true, spacesOnly);
     if (is) {
       addIssue(report, is);
       continue;

@@ -103,7 +103,7 @@ export function newMetarReport(): MetarReport {
 }
 
 /** Reset a report for reuse (keeps arrays unless they were handed out). */
-function resetReport(r: MetarReport): void {
+export function resetReport(r: MetarReport): void {
   r.type = 'METAR'; r.station = ''; r.timeMs = NaN; r.auto = false; r.corrected = false; r.nil = false;
   r.windDirDeg = NaN; r.windSpeedMs = NaN; r.gustMs = NaN; r.windVariable = false; r.windVarFromDeg = NaN; r.windVarToDeg = NaN;
   r.visibilityM = NaN; if (r.weatherCodes.length) r.weatherCodes.length = 0; r.weather = 0; if (r.sky.length) r.sky.length = 0; r.temperatureC = NaN; r.dewpointC = NaN;
@@ -257,7 +257,7 @@ export function isWord(s: string, a: number, b: number, w: string): boolean {
  * `00000KT` calm, `P99KT`/`P49MPS` (≥ 100 kt / 50 m/s → stored as 100 kt / 50 m/s, the bound),
  * 3-digit US speeds (`210103G130KT`, AIM). Returns false when s[a, b) is not a wind group.
  */
-function windGroup(s: string, a: number, b: number, r: MetarReport): boolean {
+export function windGroup(s: string, a: number, b: number, r: MetarReport): boolean {
   const len = b - a;
   if (len < 7) return false;
   let e: number;
@@ -326,7 +326,7 @@ function windGroup(s: string, a: number, b: number, r: MetarReport): boolean {
 }
 
 /** Visibility in statute miles ending in `SM` (FMH-1 §12.6.6): `10SM`, `1/2SM`, `M1/4SM`, `P6SM`, `11/2SM` (= 1 1/2). NaN when malformed. */
-function statuteMiles(s: string, a: number, b: number): number {
+export function statuteMiles(s: string, a: number, b: number): number {
   let i = a;
   const c0 = s.charCodeAt(i);
   if (c0 === 77 /* M */ || c0 === 80 /* P */) i++;
@@ -375,7 +375,7 @@ function tempHalf(s: string, a: number, b: number): number | undefined {
 }
 
 /** Temperature / dew point `T'T'/T'dT'd` (FM 15 §15.11; FMH-1 §12.6.10): `M` minus, missing dew point `10/`, `10///`. */
-function tempGroup(s: string, a: number, b: number, r: MetarReport): boolean {
+export function tempGroup(s: string, a: number, b: number, r: MetarReport): boolean {
   let k = a;
   while (k < b && s.charCodeAt(k) !== 47) k++;
   if (k === a) {
@@ -397,7 +397,7 @@ function tempGroup(s: string, a: number, b: number, r: MetarReport): boolean {
 }
 
 /** Sky group: `FEW|SCT|BKN|OVC hhh [CB|TCU|///]`, `VVhhh`, `//////`, CLR SKC NSC NCD (FM 15 §15.9; FMH-1 §12.6.9). */
-function skyGroup(s: string, a: number, b: number, r: MetarReport, lite: boolean): boolean {
+export function skyGroup(s: string, a: number, b: number, r: MetarReport, lite: boolean): boolean {
   const len = b - a;
   let cover: string;
   let i: number;
@@ -445,7 +445,7 @@ function skyGroup(s: string, a: number, b: number, r: MetarReport, lite: boolean
 }
 
 /** `Qhhhh` (hPa) or `Ahhhh` (hundredths of inHg) — FM 15 §15.12; FMH-1 §12.6.11. `////` = missing. */
-function pressureGroup(s: string, a: number, b: number, r: MetarReport): boolean {
+export function pressureGroup(s: string, a: number, b: number, r: MetarReport): boolean {
   if (b - a !== 5) return false;
   const c0 = s.charCodeAt(a);
   const v = digits(s, a + 1, b);
@@ -464,6 +464,17 @@ function isTrend(s: string, a: number, b: number): boolean {
 
 /** Interned station ids by base-37 key (ids of 3–5 letters/digits are unique keys). */
 const STATION_IDS = new Map<number, string>();
+
+/** Interned station id for s[a, b) whose base-37 key is `key` (as decodeInto computes it). */
+export function internStation(s: string, a: number, b: number, key: number): string {
+  let id = STATION_IDS.get(key);
+  if (id === undefined) {
+    if (STATION_IDS.size > 200_000) STATION_IDS.clear();
+    id = s.slice(a, b);
+    STATION_IDS.set(key, id);
+  }
+  return id;
+}
 
 /** Where a report sits and how to date it. */
 export interface DecodeRef extends MonthRef {

@@ -44,7 +44,7 @@ function hhmm(s: string, a: number, b: number): [number, number] | null {
 }
 
 /** Signed tenths `snTTT` at s[a, a+4): sign digit 0 (+) or 1 (−), then tenths of °C; NaN when malformed. */
-function signedTenths(s: string, a: number): number {
+export function signedTenths(s: string, a: number): number {
   const sg = s.charCodeAt(a);
   const v = dg(s, a + 1) * 100 + dg(s, a + 2) * 10 + dg(s, a + 3);
   if (v < 0 || (sg !== 48 && sg !== 49)) return NaN;
@@ -55,7 +55,7 @@ function signedTenths(s: string, a: number): number {
  * Begin/end times of weather (FMH-1 §12.7.1(h)): `RAB07`, `RAE21B40`, `FZRAB1155E20`,
  * `RAE34TSE41GRB0157E08`, `RAEMM` (minutes missing). True when the whole token fits.
  */
-function beginEnd(s: string, a: number, b: number): boolean {
+export function beginEnd(s: string, a: number, b: number): boolean {
   let i = a;
   let parts = 0;
   while (i < b) {
@@ -359,7 +359,7 @@ export function decodeRemarks(
 }
 
 /** `dddff(f)/(hh)mm` after `PK WND` (FMH-1 §12.7.1(k)); keeps the strongest when several are given. */
-function peakWind(s: string, a: number, b: number, r: MetarReport): boolean {
+export function peakWind(s: string, a: number, b: number, r: MetarReport): boolean {
   const k = s.indexOf('/', a);
   if (k < 0 || k >= b) return false;
   const dir = digits(s, a, a + 3);
