@@ -351,6 +351,11 @@ export class CsvCore {
     return true;
   }
 
+  /** True once a row asked to stop reading (binary content). */
+  get stopped(): boolean {
+    return this.aborted;
+  }
+
   /** Finish: decide units if still pending, write notes. */
   finish(): CsvResult {
     if (this.header === null && !this.aborted) {
@@ -787,10 +792,9 @@ const VALUE_NOTE: Record<string, string> = {
   'raw-report-error': '; raw report decoder failed',
 };
 
-/** papaparse options in chunk mode (`chunk` and `chunkSize` are not in the synchronous `ParseConfig` type). */
+/** papaparse options in chunk mode (`chunk` is not in the synchronous `ParseConfig` type). */
 type ChunkConfig = Papa.ParseConfig<string[]> & {
   chunk: (results: Papa.ParseResult<string[]>, parser: Papa.Parser) => void;
-  chunkSize?: number;
 };
 
 function papaConfig(opts: CsvOptions, core: CsvCore): ChunkConfig {
@@ -806,8 +810,60 @@ function papaConfig(opts: CsvOptions, core: CsvCore): ChunkConfig {
   };
 }
 
-/** Characters per papaparse block when reading a text (bounds the rows held at once). */
-const TEXT_CHUNK = 1 << 20;
+/** Characters per papaparse block when reading a text (as a 64 KiB file stream hands them over). */
+const TEXT_BLOCK = 1 << 16;
+/** papaparse guesses the line ending from the first 1 MiB of its first block. */
+const GUESS_PREFIX = 1 << 20;
+
+/**
+ * The delimiter and line ending papaparse guesses when the whole text is its first block: the line ending
+ * from the first 1 MiB, the delimiter from the first 10 rows. Guessed on the first 1 MiB alone when that
+ * gives the same answer for sure (it holds 11 whole lines and no quote character), else on the whole text.
+ */
+function guessFormat(text: string, config: ChunkConfig): { delimiter: string; newline: Papa.ParseConfig['newline'] } {
+  const probe = { delimiter: config.delimiter, delimitersToGuess: config.delimitersToGuess, preview: 1 } as Papa.ParseConfig<string[]>;
+  if (text.length > GUESS_PREFIX) {
+    const prefix = text.slice(0, GUESS_PREFIX);
+    const g = Papa.parse<string[]>(prefix, probe);
+    const nl = g.meta.linebreak;
+    let lines = 0;
+    for (let k = prefix.indexOf(nl); k >= 0 && lines < 11; k = prefix.indexOf(nl, k + nl.length)) lines++;
+    if (lines >= 11 && prefix.indexOf('"') < 0) return { delimiter: g.meta.delimiter, newline: nl as Papa.ParseConfig['newline'] };
+  }
+  const g = Papa.parse<string[]>(text, probe);
+  return { delimiter: g.meta.delimiter, newline: g.meta.linebreak as Papa.ParseConfig['newline'] };
+}
+
+/**
+ * Parse a text in TEXT_BLOCK pieces through papaparse's stream input, synchronously (a minimal source that
+ * hands the pieces to papaparse's listeners), so blocks of rows stay small. Errors thrown while handling rows
+ * are rethrown here (papaparse's stream input would pass them to `error`).
+ */
+function parseInBlocks(text: string, config: ChunkConfig, core: CsvCore): void {
+  const on: Record<string, ((x?: unknown) => void) | undefined> = {};
+  const source = {
+    readable: true,
+    read: () => null,
+    on(event: string, f: (x?: unknown) => void) {
+      on[event] = f;
+      return source;
+    },
+    removeListener(event: string) {
+      on[event] = undefined;
+      return source;
+    },
+  };
+  let failed = false;
+  let failure: unknown;
+  const onError = (e: unknown) => {
+    failed = true;
+    failure = e;
+  };
+  Papa.parse(source as unknown as string, { ...config, error: onError } as unknown as Papa.ParseConfig<string[]>);
+  for (let i = 0; i < text.length && on.data && !core.stopped; i += TEXT_BLOCK) on.data(text.slice(i, i + TEXT_BLOCK));
+  if (on.end && !core.stopped) on.end();
+  if (failed) throw failure;
+}
 
 /**
  * Read a whole CSV text. See the module comment for the rules. With `onObservation`, rows go to it
@@ -829,15 +885,16 @@ export function readCsvText(
   }
   if (text.trim() !== '') {
     const config = papaConfig(opts, core);
-    if (text.length > TEXT_CHUNK) {
-      // Read in blocks, with the line ending and delimiter papaparse guesses from the whole text (as it does
-      // when the text is one block), not from the first block only.
-      const guess = Papa.parse<string[]>(text, { delimiter: config.delimiter, delimitersToGuess: config.delimitersToGuess, preview: 1 });
-      config.delimiter = guess.meta.delimiter;
-      config.newline = guess.meta.linebreak as Papa.ParseConfig['newline'];
-      config.chunkSize = TEXT_CHUNK;
+    if (text.length <= TEXT_BLOCK) Papa.parse<string[]>(text, config as Papa.ParseConfig<string[]>);
+    else {
+      // In blocks, with the delimiter and line ending papaparse guesses when the text is one block (not from
+      // the first block only); papaparse drops a leading BOM from a string, not from a stream.
+      const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
+      const g = guessFormat(body, config);
+      config.delimiter = g.delimiter;
+      config.newline = g.newline;
+      parseInBlocks(body, config, core);
     }
-    Papa.parse<string[]>(text, config as Papa.ParseConfig<string[]>);
   }
   return { ...core.finish(), observations };
 }
