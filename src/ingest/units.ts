@@ -120,55 +120,33 @@ export function parseUnitName(text: string): UnitName | null {
   return ALIASES[t.toLowerCase()] ?? null;
 }
 
-function linear(factor: number, offset = 0): (v: number) => number {
-  return offset === 0 ? (v: number) => v * factor : (v: number) => (v - offset) * factor;
-}
-const identity = (v: number): number => v;
-
 /**
  * A fast function converting a value in `unit` to the canonical unit of its quantity.
  * °F: (t − 32)/1.8; K: t − 273.15; kt ×1852/3600; mph ×0.44704; km/h ÷3.6; inHg ×33.86389; kPa ×10; Pa ÷100;
- * in ×25.4 (to mm); ft ×0.3048 (to m). NaN stays NaN. Sources in the module comment.
+ * in ×25.4 (to mm); ft ×0.3048 (to m). NaN stays NaN. Sources in the module comment. Built from the one
+ * table in `conversionOf`.
  * @example converter('kt')(10) // 5.1444…
  */
 export function converter(unit: UnitName): (v: number) => number {
-  switch (unit) {
-    case 'degF':
+  if (!isUnitName(unit)) throw new TypeError(`converter: unknown unit ${JSON.stringify(unit)}`);
+  const { op, k } = conversionOf(unit);
+  switch (op) {
+    case 0:
+      return (v: number) => v;
+    case 1:
       return (v: number) => (v - 32) / 1.8;
-    case 'K':
-      return (v: number) => v - ZERO_CELSIUS_K;
-    case 'kt':
-      return linear(KNOT_MS);
-    case 'mph':
-      return linear(MPH_MS);
-    case 'km/h':
-      return (v: number) => v / 3.6;
-    case 'inHg':
-      return linear(INHG_HPA);
-    case 'kPa':
-      return linear(10);
-    case 'Pa':
-      return (v: number) => v / 100;
-    case 'in':
-      return linear(INCH_M * 1000);
-    case 'ft':
-      return linear(FOOT_M);
-    case 'degC':
-    case 'm/s':
-    case 'hPa':
-    case 'mm':
-    case 'm':
-    case 'deg':
-    case '%':
-      return identity;
-    default:
-      throw new TypeError(`converter: unknown unit ${JSON.stringify(unit)}`);
+    case 2:
+      return (v: number) => v - k;
+    case 3:
+      return (v: number) => v * k;
+    case 4:
+      return (v: number) => v / k;
   }
 }
 
 /**
- * The same conversion as `converter(unit)` as data, for hot loops that switch instead of calling a
- * closure: `op` 0 identity, 1 °F (v − 32)/1.8, 2 v − k, 3 v × k, 4 v / k. Gives bit-identical results.
+ * The unit conversions as data (the one table; `converter` builds its closures from it), for hot loops
+ * that switch instead of calling a closure: `op` 0 identity, 1 °F (v − 32)/1.8, 2 v − k, 3 v × k, 4 v / k. Gives bit-identical results.
  * @example conversionOf('kt') // { op: 3, k: 0.5144… }
  */
 export function conversionOf(unit: UnitName): { op: 0 | 1 | 2 | 3 | 4; k: number } {
