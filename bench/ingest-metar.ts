@@ -1,22 +1,25 @@
 /**
  * METAR decoding speed. Generates a seeded synthetic corpus (invented reports, ≥ 1,000,000 lines,
  * many stations, US and WMO styles, remarks, archive prefixes) in os.tmpdir(), then measures in one run:
- *   (a) read + split into lines (the floor any reader pays), lines/s;
- *   (b) read + readMetarText into a SeriesBuilder + one typed series per station (what loadPaths does,
- *       without QC), reports/s; (b1) read + readMetarText to an Observation array; (b0) the decoder alone;
+ *   (a) read the whole file as a string + String.split('\n') (the strictest floor: no per-line work at all);
+ *   (a2) streaming line splitting with node:readline over a file stream (how Node code usually splits a
+ *       file into lines), lines/s;
+ *   (b) read the bytes + readMetarBytes into a SeriesBuilder + one typed series per station (what
+ *       loadPaths does, without QC), reports/s; (b1) the same to an Observation array; (b0) the decoder alone;
  *   (c) metar-taf-parser's parseMetar on a 50,000-line subset, reports/s.
- * Prints the figures and the ratios ours/split (target ≥ 0.3) and ours/metar-taf-parser.
+ * Prints the figures and the ratios ours/split against both splitting references (target ≥ 0.3) and
+ * ours/metar-taf-parser.
  * Run: node --import tsx bench/ingest-metar.ts [lines]
  */
-import { readFileSync, writeFileSync, rmSync } from 'node:fs';
+import { createReadStream, readFileSync, writeFileSync, rmSync } from 'node:fs';
+import { createInterface } from 'node:readline';
 import { cpus, loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { parseMetar } from 'metar-taf-parser';
-import { readMetarText } from '../src/ingest/metar.js';
-import { archiveStampInto } from '../src/ingest/metar/calendar.js';
+import { readMetarBytes, readMetarText } from '../src/ingest/metar.js';
+import { decodeBytesInto, stampBytes } from '../src/ingest/metar/byteMetar.js';
 import { decodeInto, newMetarReport, type DecodeRef } from '../src/ingest/metar/decodeMetar.js';
-import { fastDecodeInto } from '../src/ingest/metar/fastMetar.js';
 import { SeriesBuilder } from '../src/series/seriesBuilder.js';
 
 /** mulberry32 PRNG (public-domain algorithm), seeded. */
@@ -142,6 +145,8 @@ export interface MetarBenchFigures {
   lines: number;
   bytes: number;
   splitLinesPerS: number;
+  /** node:readline streaming split, lines/s. */
+  streamSplitLinesPerS: number;
   oursReportsPerS: number;
   oursDecodeOnlyReportsPerS: number;
   /** Decoder alone (read + decode into one reused report, no records), reports/s. */
@@ -153,6 +158,8 @@ export interface MetarBenchFigures {
   referenceReportsPerS: number;
   referenceLines: number;
   ratioOursToSplit: number;
+  /** (b) against the streaming split (a2). */
+  ratioOursToStreamSplit: number;
   /** (read + decode to Observations) / split: the decoder's own target (≥ 0.3). */
   ratioDecodeOnlyToSplit: number;
   ratioOursToReference: number;
@@ -164,6 +171,7 @@ export interface MetarBenchFigures {
     bareDecoderReportsPerS: number;
     referenceReportsPerS: number;
     ratioOursToSplit: number;
+    ratioOursToStreamSplit: number;
     ratioDecodeOnlyToSplit: number;
     ratioOursToReference: number;
   };
@@ -202,15 +210,30 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
       split = Math.min(split, s);
       splitCpu = Math.min(splitCpu, c);
     }
-    // (b) read + readMetarText into a SeriesBuilder (no Observation per report) + one series per station; best of 3
+    // (a2) streaming split with node:readline; best of 3
+    let stream = Infinity;
+    let streamCpu = Infinity;
+    let nStream = 0;
+    for (let k = 0; k < 3; k++) {
+      const c0 = process.cpuUsage();
+      const t0 = process.hrtime.bigint();
+      let n = 0;
+      for await (const _line of createInterface({ input: createReadStream(file), crlfDelay: Infinity })) n++;
+      const s = Number(process.hrtime.bigint() - t0) / 1e9;
+      const u = process.cpuUsage(c0);
+      nStream = n;
+      stream = Math.min(stream, s);
+      streamCpu = Math.min(streamCpu, (u.user + u.system) / 1e6);
+    }
+    // (b) read + readMetarBytes into a SeriesBuilder (no Observation per report) + one series per station; best of 3
     let ours = Infinity;
     let oursCpu = Infinity;
-    let res!: { report: ReturnType<typeof readMetarText>['report'] };
+    let res!: { report: ReturnType<typeof readMetarBytes>['report'] };
     let nStations = 0;
     for (let k = 0; k < 3; k++) {
       const [, s, c] = time(() => {
         const b = new SeriesBuilder();
-        const r = readMetarText(readFileSync(file, 'utf8'), file, { onObservation: (o) => b.add(o) });
+        const r = readMetarBytes(readFileSync(file), file, { onObservation: (o) => b.add(o) });
         res = { report: r.report };
         nStations = 0;
         for (const id of b.stations()) {
@@ -221,38 +244,37 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
       ours = Math.min(ours, s);
       oursCpu = Math.min(oursCpu, c);
     }
-    // (b1) read + readMetarText to an array of Observation records (the array API), no series
+    // (b1) read + readMetarBytes to an array of Observation records (the array API), no series
     let decodeOnly = Infinity;
     let decodeOnlyCpu = Infinity;
     for (let k = 0; k < 3; k++) {
-      const [, sd, cd] = time(() => readMetarText(readFileSync(file, 'utf8'), file).observations.length);
+      const [, sd, cd] = time(() => readMetarBytes(readFileSync(file), file).observations.length);
       decodeOnly = Math.min(decodeOnly, sd);
       decodeOnlyCpu = Math.min(decodeOnlyCpu, cd);
     }
     // (b0) the decoder alone into one reused MetarReport (no Observation records): where the time goes;
-    // as in readMetarText, the single-pass decoder first, the general one for lines it gives up on
+    // as in readMetarBytes, the byte decoder first, the general one (on the line as text) for lines it gives up on
     let bare = Infinity;
     let bareCpu = Infinity;
     for (let k = 0; k < 3; k++) {
       const [, sb, cb] = time(() => {
-        const text = readFileSync(file, 'utf8');
-        const spacesOnly = !/[\x00-\x09\x0b-\x1f]/.test(text); // as readMetarText decides, once for the file
+        const u = readFileSync(file);
         const r = newMetarReport();
         const st = { year: 0, month: 0, day: 0, next: 0 };
         const ref: DecodeRef = { year: 2024, month: 1, refDay: 1, refMode: 'nearest', file, line: 0, column0: 0 };
         let p = 0;
-        while (p < text.length) {
-          let e = text.indexOf('\n', p);
-          if (e < 0) e = text.length;
+        while (p < u.length) {
+          let e = u.indexOf(10, p);
+          if (e < 0) e = u.length;
           let start = p;
-          if (archiveStampInto(text, p, e, st)) {
+          if (stampBytes(u, p, e, st)) {
             ref.year = st.year;
             ref.month = st.month;
             ref.refDay = st.day;
             ref.refMode = 'archive';
             start = st.next;
           } else ref.refMode = 'nearest';
-          if (!(spacesOnly && fastDecodeInto(r, text, start, e, ref))) decodeInto(r, text, start, e, ref, true, spacesOnly);
+          if (!decodeBytesInto(r, u, start, e, ref)) decodeInto(r, u.toString('utf8', start, e), 0, e - start, ref, true, false);
           p = e + 1;
         }
       });
@@ -278,6 +300,7 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
       lines: nSplit,
       bytes,
       splitLinesPerS: nSplit / split,
+      streamSplitLinesPerS: nStream / stream,
       oursReportsPerS: res.report.lines / ours,
       oursDecodeOnlyReportsPerS: res.report.lines / decodeOnly,
       bareDecoderReportsPerS: nSplit / bare,
@@ -288,6 +311,7 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
       referenceReportsPerS: subset.length / sRef,
       referenceLines: subset.length,
       ratioOursToSplit: split / ours,
+      ratioOursToStreamSplit: (res.report.lines / ours) / (nStream / stream),
       ratioDecodeOnlyToSplit: split / decodeOnly,
       ratioOursToReference: res.report.lines / ours / (subset.length / sRef),
       cpu: {
@@ -297,21 +321,23 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
         bareDecoderReportsPerS: nSplit / bareCpu,
         referenceReportsPerS: subset.length / cRef,
         ratioOursToSplit: splitCpu / oursCpu,
+        ratioOursToStreamSplit: (res.report.lines / oursCpu) / (nStream / streamCpu),
         ratioDecodeOnlyToSplit: splitCpu / decodeOnlyCpu,
         ratioOursToReference: res.report.lines / oursCpu / (subset.length / cRef),
       },
     };
     const k = (x: number) => Math.round(x / 1000).toLocaleString('en-US') + 'k';
     console.log(`METAR bench: ${fig.lines.toLocaleString('en-US')} lines, ${(bytes / 1e6).toFixed(1)} MB, ${fig.stations} stations (node ${process.version})`);
-    console.log(`  (a) read + split lines             ${k(fig.splitLinesPerS)} lines/s`);
+    console.log(`  (a) read + String.split (in memory) ${k(fig.splitLinesPerS)} lines/s`);
+    console.log(`  (a2) streaming split (node:readline) ${k(fig.streamSplitLinesPerS)} lines/s`);
     console.log(`  (b) read + decode to typed series  ${k(fig.oursReportsPerS)} reports/s  (parsed ${fig.parsed}, rejected ${fig.rejected}, unknown groups ${fig.unknownGroups})`);
     console.log(`  (b1) read + decode to Observation[] ${k(fig.oursDecodeOnlyReportsPerS)} reports/s  (the array API, no series)`);
     console.log(`  (b0) read + decoder alone, no records ${k(fig.bareDecoderReportsPerS)} reports/s  (split ratio ${(split / bare).toFixed(2)})`);
     console.log(`  (c) metar-taf-parser (50k subset)  ${k(fig.referenceReportsPerS)} reports/s  (${refFail} threw)`);
-    console.log(`  wall clock, best of 3: decode to series / split = ${fig.ratioOursToSplit.toFixed(2)} (target >= 0.30); Observation[] / split = ${fig.ratioDecodeOnlyToSplit.toFixed(2)}; ours / metar-taf-parser = ${fig.ratioOursToReference.toFixed(1)}x (target well over 50x)`);
+    console.log(`  wall clock, best of 3: decode to series / in-memory split = ${fig.ratioOursToSplit.toFixed(2)}, / streaming split = ${fig.ratioOursToStreamSplit.toFixed(2)} (target >= 0.30); Observation[] / split = ${fig.ratioDecodeOnlyToSplit.toFixed(2)}; ours / metar-taf-parser = ${fig.ratioOursToReference.toFixed(1)}x (target well over 50x)`);
     const c = fig.cpu;
-    console.log(`  CPU time: split ${k(c.splitLinesPerS)}/s, decoder alone ${k(c.bareDecoderReportsPerS)}/s, to series ${k(c.oursReportsPerS)}/s, to Observation[] ${k(c.oursDecodeOnlyReportsPerS)}/s, metar-taf-parser ${k(c.referenceReportsPerS)}/s`);
-    console.log(`            to series / split = ${c.ratioOursToSplit.toFixed(2)} (target >= 0.30), Observation[] / split = ${c.ratioDecodeOnlyToSplit.toFixed(2)}, ours / metar-taf-parser = ${c.ratioOursToReference.toFixed(1)}x`);
+    console.log(`  CPU time: split ${k(c.splitLinesPerS)}/s, streaming split ${k(nStream / streamCpu)}/s, decoder alone ${k(c.bareDecoderReportsPerS)}/s, to series ${k(c.oursReportsPerS)}/s, to Observation[] ${k(c.oursDecodeOnlyReportsPerS)}/s, metar-taf-parser ${k(c.referenceReportsPerS)}/s`);
+    console.log(`            to series / in-memory split = ${c.ratioOursToSplit.toFixed(2)}, / streaming split = ${c.ratioOursToStreamSplit.toFixed(2)} (target >= 0.30), Observation[] / split = ${c.ratioDecodeOnlyToSplit.toFixed(2)}, ours / metar-taf-parser = ${c.ratioOursToReference.toFixed(1)}x`);
     console.log(`  load average ${loadavg().map((x) => x.toFixed(1)).join(' ')} on ${cpus().length} cores`);
     return fig;
   } finally {

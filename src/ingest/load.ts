@@ -7,7 +7,7 @@ import { closeSync, openSync, readSync, readdirSync, readFileSync, statSync } fr
 import { basename, extname, join } from 'node:path';
 import type { FileReport, Observation, StationMeta } from './types.js';
 import { newFileReport } from './types.js';
-import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarText } from './metar.js';
+import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarBytes } from './metar.js';
 import { readCsvText, type CsvOptions, type RawReportDecoded } from './csv.js';
 import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, type StationIndex } from './stations.js';
 import type { ColumnOverride } from './columns.js';
@@ -147,14 +147,13 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
     offsetMinutes: opts.offsetMinutes,
     decodeRawReport,
   };
-  const dataFiles: { path: string; text: string; format: SniffedFormat; fromDir: boolean }[] = [];
+  const dataFiles: { path: string; bytes: Buffer; format: SniffedFormat; fromDir: boolean }[] = [];
   for (const c of files) {
-    let text: string;
+    let bytes: Buffer;
     let binary = false;
     const name = c.path === '-' ? '(stdin)' : c.path;
     if (c.path === '-') {
-      text = opts.stdinText ?? '';
-      binary = text.slice(0, 8192).includes('\u0000');
+      bytes = Buffer.from(opts.stdinText ?? '', 'utf8');
     } else {
       if (c.fromDir && NOT_OBSERVATIONS.has(extname(c.path).toLowerCase())) {
         note(`${c.path}: skipped (not an observation file)`);
@@ -164,7 +163,7 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
       try {
         const h = head(c.path);
         binary = h.binary;
-        text = binary ? h.text : readFileSync(c.path, 'utf8');
+        bytes = binary ? Buffer.from(h.text, 'utf8') : readFileSync(c.path);
       } catch {
         const r = newFileReport(c.path, 'unreadable');
         r.notes.push('cannot read the file (permissions?)');
@@ -173,19 +172,22 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
         continue;
       }
     }
-    const format = sniffFormat(basename(name), text.slice(0, 8192), binary);
+    // the first 8192 characters (at most 4 bytes each)
+    const sample = bytes.toString('utf8', 0, Math.min(bytes.length, 32_768)).slice(0, 8192);
+    if (c.path === '-') binary = sample.includes('\u0000');
+    const format = sniffFormat(basename(name), sample, binary);
     if (format === 'stations') {
       if (opts.stationsFile) {
         note(`${name}: stations file ignored (--stations given)`);
         reports.push({ ...newFileReport(name, 'stations'), notes: ['ignored: --stations given'] });
         continue;
       }
-      const r = readStationsText(text, name);
+      const r = readStationsText(bytes.toString('utf8'), name);
       stations.push(...r.stations);
       reports.push(r.report);
       continue;
     }
-    dataFiles.push({ path: name, text, format, fromDir: c.fromDir });
+    dataFiles.push({ path: name, bytes, format, fromDir: c.fromDir });
   }
   // Every observation goes straight into per-station columns; ids are resolved once per distinct id.
   const index = buildStationIndex(stations);
@@ -194,13 +196,13 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
   const csvSinkOpts: CsvOptions = { ...csvOpts, reuseObservation: true };
   for (const f of dataFiles) {
     if (f.format === 'metar') {
-      const r = readMetarText(f.text, f.path, { month: opts.month, onObservation: sink });
+      const r = readMetarBytes(f.bytes, f.path, { month: opts.month, onObservation: sink });
       reports.push(r.report);
       if (r.report.parsed === 0 && r.report.rejectedByReason['no-year-month']) {
         note(`${f.path}: no year and month for the reports; pass --month YYYY-MM or use a dated file name`);
       }
     } else if (f.format === 'csv') {
-      const r = readCsvText(f.text, f.path, csvSinkOpts, sink);
+      const r = readCsvText(f.bytes.toString('utf8'), f.path, csvSinkOpts, sink);
       // A CSV without a single observation inside a directory is most likely something else (a forecast list).
       if (r.report.parsed === 0 && f.fromDir) {
         note(`${f.path}: skipped (no observation columns recognised)`);

@@ -5,9 +5,9 @@
  */
 import type { FileReport, Observation, ParseIssue } from './types.js';
 import { addIssue, emptyObservation, newFileReport } from './types.js';
-import { archiveStamp, archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
+import { archiveStamp, civilFromDays, parseMonthOption, yearMonthFromFileName, type MonthRef } from './metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
-import { fastDecodeInto } from './metar/fastMetar.js';
+import { decodeBytesInto, stampBytes, type ByteStamp } from './metar/byteMetar.js';
 
 export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';
 export type { MetarReport, SkyLayer } from './metar/decodeMetar.js';
@@ -49,7 +49,7 @@ export function metarToObservation(r: MetarReport, file: string, line: number): 
   return o;
 }
 
-/** Characters below 32 other than LF (a global regex used as a cursor). */
+/** Characters below 32 other than LF (a global regex used as a cursor: set lastIndex, then test). */
 const CONTROL = /[\x00-\x09\x0b-\x1f]/g;
 
 /** True when a line (after an optional archive stamp) begins like a METAR/SPECI report. */
@@ -97,17 +97,26 @@ export function readMetarText(
   file: string,
   opts: MetarReadOptions = {},
 ): { observations: Observation[]; report: FileReport; reports?: never } {
+  return readMetarBytes(Buffer.from(text, 'utf8'), file, opts);
+}
+
+/** readMetarText on the file's bytes (UTF-8; the usual input: no decoding of the whole file to a string). */
+export function readMetarBytes(
+  bytes: Uint8Array,
+  file: string,
+  opts: MetarReadOptions = {},
+): { observations: Observation[]; report: FileReport; reports?: never } {
   const observations: Observation[] = [];
   const sink = opts.onObservation;
   let report: FileReport;
   if (sink) {
     const o = emptyObservation('', NaN, file, 0);
     o.remarks = undefined;
-    report = scanMetar(text, file, opts.month, (r, line) => {
+    report = scanMetar(bytes, file, opts.month, (r, line) => {
       fillObservation(r, line, o);
       sink(o);
     });
-  } else report = scanMetar(text, file, opts.month, (r, line) => observations.push(metarToObservation(r, file, line)));
+  } else report = scanMetar(bytes, file, opts.month, (r, line) => observations.push(metarToObservation(r, file, line)));
   return { observations, report };
 }
 
@@ -144,8 +153,8 @@ function fillObservation(r: MetarReport, line: number, o: Observation): void {
   o.line = line;
 }
 
-/** The line loop of readMetarText: calls `emit` with each usable report (r is reused). */
-function scanMetar(text: string, file: string, month: string | undefined, emit: (r: MetarReport, line: number) => void): FileReport {
+/** The line loop of readMetarBytes: calls `emit` with each usable report (r is reused). */
+function scanMetar(u: Uint8Array, file: string, month: string | undefined, emit: (r: MetarReport, line: number) => void): FileReport {
   const report = newFileReport(file, 'metar');
   let unknownGroups = 0;
   // Year/month sources other than archive stamps.
@@ -172,37 +181,36 @@ function scanMetar(text: string, file: string, month: string | undefined, emit: 
   }
   const r = newMetarReport();
   const ref: DecodeRef = { year: 0, month: 0, file, line: 0, refDay: undefined, refMode: undefined, column0: 0 };
-  const st: ArchiveStamp = { year: 0, month: 0, day: 0, next: 0 };
+  const st: ByteStamp = { year: 0, month: 0, day: 0, next: 0 };
   const civil: [number, number, number] = [0, 0, 0];
+  const buf = Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength);
   let lastDay = NaN;
   let stamped = 0;
   let noYearMonth = 0;
   let lineNo = 0;
   let p = 0;
-  const len = text.length;
-  /** Index of the next control character other than LF at or after the current line (-1: none left, -2: not searched yet). */
-  let ctlAt = -2;
+  const len = u.length;
   while (p <= len) {
-    let e = text.indexOf('\n', p);
+    let e = buf.indexOf(10, p);
     if (e < 0) e = len;
     lineNo++;
     let a = p;
     let b = e;
     p = e + 1;
-    while (a < b && text.charCodeAt(a) <= 32) a++;
-    while (b > a && text.charCodeAt(b - 1) <= 32) b--;
+    while (a < b && u[a]! <= 32) a++;
+    while (b > a && u[b - 1]! <= 32) b--;
     if (a === b) {
       if (e === len) break;
       continue;
     }
     report.lines++;
-    if (text.charCodeAt(a) === 35 /* # */) {
+    if (u[a] === 35 /* # */) {
       addIssue(report, { file, line: lineNo, reason: 'comment', message: 'comment line (#) skipped' });
       continue;
     }
     ref.line = lineNo;
     ref.column0 = 0;
-    const stamped1 = text.charCodeAt(a) <= 57 && archiveStampInto(text, a, b, st);
+    const stamped1 = u[a]! <= 57 && stampBytes(u, a, b, st);
     let start = a;
     if (stamped1) {
       ref.year = st.year;
@@ -232,16 +240,16 @@ function scanMetar(text: string, file: string, month: string | undefined, emit: 
       });
       continue;
     }
-    // Lines without control characters (tabs, CR, ...) between their first and last group take the
-    // faster tokenizer; the next such character is searched once per stretch of text.
-    if (ctlAt === -2 || (ctlAt >= 0 && ctlAt < start)) {
-      CONTROL.lastIndex = start;
-      const m = CONTROL.exec(text);
-      ctlAt = m ? m.index : -1;
+    // Common lines take the single-pass byte decoder; it gives up on anything unusual, and the line is
+    // then decoded as text by the general decoder (same results either way).
+    let is: ParseIssue | null = null;
+    if (!decodeBytesInto(r, u, start, b, ref)) {
+      const line = buf.toString('utf8', a, b);
+      const s0 = start - a; // the stamp and the blanks before it are ASCII: byte and character offsets agree
+      CONTROL.lastIndex = s0;
+      const spacesOnly = !CONTROL.test(line);
+      is = decodeInto(r, line, s0, line.length, ref, true, spacesOnly);
     }
-    // Common lines take the single-pass decoder; it gives up on anything unusual (same results either way).
-    const spacesOnly = ctlAt < 0 || ctlAt >= b;
-    const is: ParseIssue | null = spacesOnly && fastDecodeInto(r, text, start, b, ref) ? null : decodeInto(r, text, start, b, ref, true, spacesOnly);
     if (is) {
       addIssue(report, is);
       continue;

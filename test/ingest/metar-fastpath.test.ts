@@ -1,6 +1,6 @@
 /**
- * The single-pass decoder (fastDecodeInto) against the general decoder (decodeInto, lite mode, general
- * tokenizer): wherever the fast path accepts a line, the decoded report must be the same, field by
+ * The single-pass byte decoder (decodeBytesInto) against the general decoder (decodeInto on the line as
+ * text, lite mode, general tokenizer): wherever the fast path accepts a line, the decoded report must be the same, field by
  * field (NaN, -0 and array contents included). Lines: every line of test/fixtures/metar-corpus.txt
  * (real KJFK/KORD reports and constructed WMO-style ones, provenance in its header), the demo METAR
  * files, the real METAR files of the shared folder when present, the synthetic benchmark corpus, and
@@ -14,7 +14,7 @@ import * as assert from 'uvu/assert';
 import fc from 'fast-check';
 import { archiveStampInto } from '../../src/ingest/metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from '../../src/ingest/metar/decodeMetar.js';
-import { fastDecodeInto } from '../../src/ingest/metar/fastMetar.js';
+import { decodeBytesInto, stampBytes } from '../../src/ingest/metar/byteMetar.js';
 import { generateCorpus } from '../../bench/ingest-metar.js';
 
 const fast = newMetarReport();
@@ -25,26 +25,39 @@ function canon(r: MetarReport): string {
   return JSON.stringify(r, (_k, v) => (typeof v === 'number' && (Number.isNaN(v) || Object.is(v, -0)) ? String(v === 0 ? '-0' : v) : v));
 }
 
-/** Decode one line both ways as readMetarText would; returns [fast path used, mismatch text or ''] */
+/** Decode one line both ways as readMetarBytes would; returns [fast path used, mismatch text or ''] */
 function compareLine(line: string): [boolean, string] {
+  const u = Buffer.from(line, 'utf8');
   let a = 0;
   let b = line.length;
   while (a < b && line.charCodeAt(a) <= 32) a++;
   while (b > a && line.charCodeAt(b - 1) <= 32) b--;
   if (a === b || line.charCodeAt(a) === 35) return [false, ''];
-  for (let i = a; i < b; i++) if (line.charCodeAt(i) < 32) return [false, '']; // the fast path is only tried without control characters
+  // byte positions of the same trimmed line
+  let ua = 0;
+  let ub = u.length;
+  while (ua < ub && u[ua]! <= 32) ua++;
+  while (ub > ua && u[ub - 1]! <= 32) ub--;
   const ref: DecodeRef = { year: 2024, month: 2, refDay: 10, refMode: 'nearest', file: 'x', line: 1, column0: 0 };
   const st = { year: 0, month: 0, day: 0, next: 0 };
+  const bst = { year: 0, month: 0, day: 0, next: 0 };
   let start = a;
-  if (line.charCodeAt(a) <= 57 && archiveStampInto(line, a, b, st)) {
+  let ustart = ua;
+  const stamped = line.charCodeAt(a) <= 57 && archiveStampInto(line, a, b, st);
+  const ustamped = u[ua]! <= 57 && stampBytes(u, ua, ub, bst);
+  if (stamped !== ustamped || (stamped && (st.year !== bst.year || st.month !== bst.month || st.day !== bst.day || st.next - a !== bst.next - ua)))
+    return [true, `archive stamp read differently from bytes`];
+  if (stamped) {
     ref.year = st.year;
     ref.month = st.month;
     ref.refDay = st.day;
     ref.refMode = 'archive';
     ref.column0 = st.next - a;
     start = st.next;
+    ustart = bst.next;
   }
-  if (!fastDecodeInto(fast, line, start, b, { ...ref })) return [false, ''];
+  if (!decodeBytesInto(fast, u, ustart, ub, { ...ref })) return [false, ''];
+  for (let i = ustart; i < ub; i++) if (u[i]! < 32 || u[i]! > 126) return [true, 'fast path took a line with a control or non-ASCII byte'];
   const is = decodeInto(slow, line, start, b, { ...ref }, true, false);
   if (is) return [true, `general decoder refused: ${is.reason}`];
   const x = canon(fast);
@@ -100,6 +113,8 @@ const GROUPS = [
   'AO2', 'AO1', 'AO2A', 'SLP982', 'SLPNO', 'SLP12A', 'T01230045', 'T1012', 'T0123004', 'T2123', 'P0000', 'P0012', 'P////', 'PK', 'WND',
   '27030/45', '270030/1215', '27030/75', '58012', '50000', '5////', '59012', '10123', '21012', '1////', '30000', '4/005', '60012',
   'PRESRR', 'PRESFR', 'RAB07', 'RAE21B40', 'TSB05', 'WSHFT', '30', 'FROPA', 'LTG', 'LTGICCG', 'RWY27', 'VIS', 'CIG', 'SNINCR', 'DSNT', 'XYZ',
+  // bytes the fast path must leave to the general decoder: non-ASCII, tabs, carriage returns inside a line
+  'RÉ', 'Ré/1', 'A2992\t', '\t-RA', '+RA\r', 'SNIXXX', 'PRESXR',
 ];
 
 /** Groups the fast path takes (drawn more often, so that many random lines reach it). */

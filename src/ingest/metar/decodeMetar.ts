@@ -465,6 +465,11 @@ function isTrend(s: string, a: number, b: number): boolean {
 /** Interned station ids by base-37 key (ids of 3–5 letters/digits are unique keys). */
 const STATION_IDS = new Map<number, string>();
 
+/** The interned station id of a base-37 key, if seen before. */
+export function knownStation(key: number): string | undefined {
+  return STATION_IDS.get(key);
+}
+
 /** Interned station id for s[a, b) whose base-37 key is `key` (as decodeInto computes it). */
 export function internStation(s: string, a: number, b: number, key: number): string {
   let id = STATION_IDS.get(key);

@@ -16,7 +16,7 @@ const DAY_MS = 86_400_000;
  * Time of a remark given as `mm` (hh < 0: minutes past the report's hour) or `hhmm`, placed at or
  * before the report time (FMH-1 §12.7: peak wind and wind shift times lie within the last hour).
  */
-function remarkTimeMs(reportMs: number, hh: number, mm: number): number {
+export function remarkTimeMs(reportMs: number, hh: number, mm: number): number {
   if (!Number.isFinite(reportMs) || mm > 59 || hh > 23) return NaN;
   if (hh < 0) {
     let t = Math.floor(reportMs / HOUR_MS) * HOUR_MS + mm * 60_000;

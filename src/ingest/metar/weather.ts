@@ -12,6 +12,8 @@ function key(code: string): number {
 
 /** Flags of each two-letter code (0 = known code without a flag of its own). -1 = not a code. */
 const FLAGS = new Int32Array(32 * 32).fill(-1);
+/** Flags by two-letter code key `(c1 - 64) * 32 + (c2 - 64)` (read-only for other modules). */
+export const WX_CODE_FLAGS: Int32Array = FLAGS;
 const P = WX.PRECIP;
 const TABLE: Record<string, number> = {
   // descriptors (WMO-No. 306 code table 4678)
