@@ -1,7 +1,11 @@
 /**
  * CSV / TSV station time series → Observations in canonical units, with a FileReport accounting for every
  * line. Parsing is papaparse in chunk mode (blocks of rows, still streaming), over a string or a Node readable
- * stream; both entry points share one row handler (`CsvCore`).
+ * stream; both entry points share one row handler (`CsvCore`). A large file without any quote character,
+ * where CSV is nothing but a split on the line ending and on the delimiter (what papaparse itself does in
+ * its fast mode), is scanned in place instead, as UTF-8 bytes, with papaparse's guess of delimiter and line
+ * ending: cells are read where they stand, without a string per cell (same rows, values, issues and notes;
+ * `readCsvBytes`, which the loader uses).
  *
  * Rules (decided here; tests pin them):
  * - The first non-blank row is the header (see columns.ts for names). Blank lines are skipped, not counted.
@@ -67,6 +71,11 @@ export interface CsvOptions {
    * must copy what it keeps (e.g. `SeriesBuilder.add`). Remarks arrays are not reused.
    */
   reuseObservation?: boolean;
+  /**
+   * `papaparse` parses every text with papaparse; `auto` (default) scans a large text without quote
+   * characters in place (same results, faster; see the module comment).
+   */
+  parser?: 'auto' | 'papaparse';
 }
 
 export interface StationPosition {
@@ -215,27 +224,56 @@ const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12,
  * and the power of ten are exact doubles, so mantissa / 10^k is correctly rounded: the same value `Number()` gives.
  */
 export function decimalValue(raw: string): number {
-  const n = raw.length;
-  let i = 0;
+  return decimalValueAt(raw, 0, raw.length);
+}
+
+/** decimalValue of s[a, b) (b > a), without taking the substring unless the text needs Number(). */
+export function decimalValueAt(s: string, a: number, b: number): number {
+  let i = a;
   let neg = false;
-  let c = raw.charCodeAt(0);
+  let c = s.charCodeAt(a);
   if (c === 45) {
     neg = true;
-    i = 1;
+    i = a + 1;
   }
   let mant = 0;
   let digits = 0;
   let frac = -1;
-  for (; i < n; i++) {
-    c = raw.charCodeAt(i);
+  for (; i < b; i++) {
+    c = s.charCodeAt(i);
     if (c >= 48 && c <= 57) {
       mant = mant * 10 + (c - 48);
       digits++;
       if (frac >= 0) frac++;
     } else if (c === 46 && frac < 0) frac = 0;
-    else return +raw;
+    else return +s.slice(a, b);
   }
-  if (digits === 0 || digits > 15) return +raw;
+  if (digits === 0 || digits > 15) return +s.slice(a, b);
+  const v = frac > 0 ? mant / POW10[frac]! : mant;
+  return neg ? -v : v;
+}
+
+/** decimalValue of the bytes u[a, b) (b > a) when they are the plain `[-]digits[.digits]` form (≤ 15 digits), else NaN. */
+function decimalBytes(u: Uint8Array, a: number, b: number): number {
+  let i = a;
+  let neg = false;
+  if (u[a] === 45) {
+    neg = true;
+    i = a + 1;
+  }
+  let mant = 0;
+  let digits = 0;
+  let frac = -1;
+  for (; i < b; i++) {
+    const c = u[i]! - 48;
+    if (c >= 0 && c <= 9) {
+      mant = mant * 10 + c;
+      digits++;
+      if (frac >= 0) frac++;
+    } else if (c === -2 && frac < 0) frac = 0;
+    else return NaN;
+  }
+  if (digits === 0 || digits > 15) return NaN;
   const v = frac > 0 ? mant / POW10[frac]! : mant;
   return neg ? -v : v;
 }
@@ -268,6 +306,16 @@ export class CsvCore {
   private offsetParsers = new Map<number, TimeReader>();
   private lastStation = '';
   private lastStationTime = NaN;
+  /** The row being processed: its cells (papaparse), or (line mode, `rowFields` null) the bytes and cell bounds. */
+  private rowFields: string[] | null = null;
+  private rowBytes: Buffer = Buffer.alloc(0);
+  private cellStart = new Int32Array(64);
+  private cellEnd = new Int32Array(64);
+  private cellCount = 0;
+  /** Line mode: where the last station cell stood, and its id (consecutive rows usually share it). */
+  private stationAt = 0;
+  private stationLen = -1;
+  private stationTrimmed = '';
   private timeCol = NO_COL;
   private stationCol = NO_COL;
   private wxCol = NO_COL;
@@ -347,8 +395,84 @@ export class CsvCore {
       if (this.pending.length >= (this.opts.inferRows ?? 1000)) this.decideUnits();
       return true;
     }
-    this.process(fields, line);
+    this.rowFields = fields;
+    this.process(line);
     return true;
+  }
+
+  /**
+   * Handle the lines of UTF-8 bytes that hold no quote character, from `from` on, as papaparse would hand
+   * them over split on `newline` and then on `delimiter` (one ASCII character). Cells are read in place (no
+   * string per cell) once the header and the unit decision are behind; rows before that are split into cells.
+   */
+  scanBytes(u: Buffer, from: number, newline: string, delimiter: string): void {
+    const len = u.length;
+    const nl = Buffer.from(newline, 'utf8');
+    const nlLen = nl.length;
+    const nl0 = nl[0]!;
+    const d = delimiter.charCodeAt(0);
+    this.rowBytes = u;
+    this.stationLen = -1;
+    let p = from;
+    for (;;) {
+      let e = nlLen === 1 ? u.indexOf(nl0, p) : u.indexOf(nl, p);
+      if (e < 0) e = len;
+      if (this.header === null || this.fatal !== null || this.pending !== null) {
+        if (!this.handle(u.toString('utf8', p, e).split(delimiter), undefined)) return;
+      } else {
+        // cell bounds
+        let k = 0;
+        let a = p;
+        let cs = this.cellStart;
+        let ce = this.cellEnd;
+        for (let i = p; i < e; i++) {
+          if (u[i] !== d) continue;
+          if (k === cs.length - 1) {
+            this.growCells();
+            cs = this.cellStart;
+            ce = this.cellEnd;
+          }
+          cs[k] = a;
+          ce[k] = i;
+          k++;
+          a = i + 1;
+        }
+        cs[k] = a;
+        ce[k] = e;
+        this.cellCount = k + 1;
+        const line = ++this.line;
+        // as handle(): a line of one blank cell is skipped
+        if (k !== 0 || u.toString('utf8', p, e).trim() !== '') {
+          this.report.lines++;
+          this.rowFields = null;
+          this.process(line);
+        }
+      }
+      if (e === len) return;
+      p = e + nlLen;
+    }
+  }
+
+  private growCells(): void {
+    const n = this.cellStart.length * 2;
+    const cs = new Int32Array(n);
+    const ce = new Int32Array(n);
+    cs.set(this.cellStart);
+    ce.set(this.cellEnd);
+    this.cellStart = cs;
+    this.cellEnd = ce;
+  }
+
+  /** Number of cells of the current row. */
+  private cells(): number {
+    const f = this.rowFields;
+    return f !== null ? f.length : this.cellCount;
+  }
+
+  /** Text of cell i of the current row (i < cells()). */
+  private cell(i: number): string {
+    const f = this.rowFields;
+    return f !== null ? f[i]! : this.rowBytes.toString('utf8', this.cellStart[i]!, this.cellEnd[i]!);
   }
 
   /** True once a row asked to stop reading (binary content). */
@@ -508,7 +632,10 @@ export class CsvCore {
     }
     if (notes.length) this.report.notes.push(`units not named by the file: ${notes.join('; ')}`);
     this.buildCols();
-    for (const p of pending) this.process(p.fields, p.line);
+    for (const p of pending) {
+      this.rowFields = p.fields;
+      this.process(p.line);
+    }
   }
 
   private buildCols(): void {
@@ -526,24 +653,40 @@ export class CsvCore {
     if (parts.length) this.report.notes.push(`units: ${parts.join(', ')}`);
   }
 
-  /** One numeric cell → canonical value or NaN (counted). */
-  private val(fields: string[], c: Col | undefined, line: number): number {
+  /** One numeric cell of the current row → canonical value or NaN (counted). */
+  private val(c: Col | undefined, line: number): number {
     if (c === undefined) return NaN;
-    const raw = fields[c.index];
-    if (raw === undefined || raw.length === 0) return NaN;
-    // `M` is a missing marker whatever the options (see slowValue), and the commonest non-number
-    if (raw.length === 1 && raw.charCodeAt(0) === 77) return NaN;
-    let v = decimalValue(raw);
+    const i = c.index;
+    const f = this.rowFields;
+    let v: number;
+    let c0: number;
+    if (f !== null) {
+      const raw = f[i];
+      if (raw === undefined || raw.length === 0) return NaN;
+      c0 = raw.charCodeAt(0);
+      // `M` is a missing marker whatever the options (see slowValue), and the commonest non-number
+      if (raw.length === 1 && c0 === 77) return NaN;
+      v = decimalValue(raw);
+    } else {
+      if (i >= this.cellCount) return NaN;
+      const u = this.rowBytes;
+      const a = this.cellStart[i]!;
+      const b = this.cellEnd[i]!;
+      if (b === a) return NaN;
+      c0 = u[a]!;
+      if (b - a === 1 && c0 === 77) return NaN;
+      v = decimalBytes(u, a, b);
+      if (v !== v) v = decimalValue(this.cell(i)); // not the plain form: read as the text reads
+    }
     if (v !== v) {
-      v = this.slowValue(raw, c, line);
+      v = this.slowValue(this.cell(i), c, line);
       if (v !== v) return NaN;
     } else if (v === 0) {
       // `+raw` reads a blank cell as 0; a cell starting with - . / or a digit is not blank
-      const c0 = raw.charCodeAt(0);
-      if (!(c0 >= 45 && c0 <= 57) && raw.trim() === '') return NaN;
+      if (!(c0 >= 45 && c0 <= 57) && this.cell(i).trim() === '') return NaN;
     }
     if ((v >= 999 || v <= -999) && (isSentinel(v, c.sentinels) || !Number.isFinite(v))) {
-      this.count(Number.isFinite(v) ? 'sentinel' : 'bad-value', c.field, line, raw);
+      this.count(Number.isFinite(v) ? 'sentinel' : 'bad-value', c.field, line, this.cell(i));
       return NaN;
     }
     if (this.userMissingNum.length !== 0 && this.userMissingNum.includes(v)) return NaN;
@@ -595,8 +738,14 @@ export class CsvCore {
     return NaN;
   }
 
-  private timeOf(fields: string[], line: number): number {
-    const raw = fields[this.timeCol]!;
+  private timeOf(line: number): number {
+    if (this.rowFields === null && this.offsetCol === NO_COL) {
+      // line mode: the common ISO form straight from the bytes
+      const ms = this.timeParser!.readQuickBytes(this.rowBytes, this.cellStart[this.timeCol]!, this.cellEnd[this.timeCol]!);
+      if (ms === ms) return ms;
+      if (this.timeParser!.error !== null) return this.badTime(line, this.timeParser!, this.cell(this.timeCol));
+    }
+    const raw = this.cell(this.timeCol);
     if (raw.length < 8) {
       const t = raw.trim();
       if (t === '' || MISSING.has(t.toLowerCase())) {
@@ -606,7 +755,7 @@ export class CsvCore {
     }
     let parser = this.timeParser!;
     if (this.offsetCol !== NO_COL) {
-      const off = parseOffsetMinutes(fields[this.offsetCol] ?? '');
+      const off = parseOffsetMinutes(this.offsetCol < this.cells() ? this.cell(this.offsetCol) : '');
       if (Number.isFinite(off) && Math.abs(off) <= 18 * 60) {
         let p = this.offsetParsers.get(off);
         if (!p) this.offsetParsers.set(off, (p = makeTimeReader({ offsetMinutes: off })));
@@ -615,20 +764,27 @@ export class CsvCore {
     }
     const ms = parser.read(raw);
     if (ms === ms) return ms;
+    return this.badTime(line, parser, raw);
+  }
+
+  /** Reject the row for the time the parser could not read (its `error`); NaN. */
+  private badTime(line: number, parser: TimeReader, raw: string): number {
     const e = parser.error!;
     const reason = e.error === 'unparsable' ? 'bad-time' : e.error === 'needs-zone' ? 'needs-zone' : `${e.error}-time`;
     this.reject(line, reason, e.message, raw, this.timeCol + 1);
     return NaN;
   }
 
-  private process(fields: string[], line: number): void {
-    if (fields.length < this.headerLen) {
-      this.reject(line, 'truncated', `line has ${fields.length} of ${this.headerLen} fields; the file may be cut short or the row damaged`);
+  /** Process the current row (`rowFields`, or the line-mode cell bounds). */
+  private process(line: number): void {
+    const nCells = this.cells();
+    if (nCells < this.headerLen) {
+      this.reject(line, 'truncated', `line has ${nCells} of ${this.headerLen} fields; the file may be cut short or the row damaged`);
       return;
     }
     let source: Observation['source'] = 'CSV';
     if (this.typeCol !== NO_COL) {
-      const rt = fields[this.typeCol]!.trim().toUpperCase();
+      const rt = this.cell(this.typeCol).trim().toUpperCase();
       if (rt === 'FM-15') source = 'METAR';
       else if (rt === 'FM-16') source = 'SPECI';
       else if (rt === 'SOD' || rt === 'SOM') {
@@ -636,11 +792,22 @@ export class CsvCore {
         return;
       }
     }
-    const timeMs = this.timeOf(fields, line);
+    const timeMs = this.timeOf(line);
     if (timeMs !== timeMs) return;
     let station = this.defaultStation;
     if (this.stationCol !== NO_COL) {
-      station = fields[this.stationCol]!.trim();
+      if (this.rowFields === null) {
+        // line mode: reuse the previous row's id when the cell holds the same bytes
+        const u = this.rowBytes;
+        const a = this.cellStart[this.stationCol]!;
+        const n = this.cellEnd[this.stationCol]! - a;
+        let same = n === this.stationLen;
+        for (let k = 0, q = this.stationAt; same && k < n; k++) same = u[a + k] === u[q + k];
+        if (same) station = this.stationTrimmed;
+        else station = this.stationTrimmed = u.toString('utf8', a, a + n).trim();
+        this.stationAt = a;
+        this.stationLen = n;
+      } else station = this.rowFields[this.stationCol]!.trim();
       if (station === '') {
         if (this.opts.defaultStation) station = this.opts.defaultStation;
         else {
@@ -660,21 +827,21 @@ export class CsvCore {
       o.timeMs = timeMs;
       o.source = source;
       o.corrected = false;
-      o.temperatureC = this.val(fields, cols.temperature, line);
-      o.dewpointC = this.val(fields, cols.dewpoint, line);
-      o.windDirDeg = this.val(fields, cols.windDir, line);
-      o.windSpeedMs = this.val(fields, cols.windSpeed, line);
-      o.gustMs = this.val(fields, cols.gust, line);
-      o.stationPressureHpa = this.val(fields, cols.stationPressure, line);
-      o.seaLevelPressureHpa = this.val(fields, cols.seaLevelPressure, line);
-      o.altimeterHpa = this.val(fields, cols.altimeter, line);
-      o.precipMm = this.val(fields, cols.precip, line);
+      o.temperatureC = this.val(cols.temperature, line);
+      o.dewpointC = this.val(cols.dewpoint, line);
+      o.windDirDeg = this.val(cols.windDir, line);
+      o.windSpeedMs = this.val(cols.windSpeed, line);
+      o.gustMs = this.val(cols.gust, line);
+      o.stationPressureHpa = this.val(cols.stationPressure, line);
+      o.seaLevelPressureHpa = this.val(cols.seaLevelPressure, line);
+      o.altimeterHpa = this.val(cols.altimeter, line);
+      o.precipMm = this.val(cols.precip, line);
       o.weather = 0;
       o.peakWindMs = NaN;
       o.pressureTrend = 0;
-      o.latDeg = this.val(fields, cols.lat, line);
-      o.lonDeg = this.val(fields, cols.lon, line);
-      o.elevationM = this.val(fields, cols.elevation, line);
+      o.latDeg = this.val(cols.lat, line);
+      o.lonDeg = this.val(cols.lon, line);
+      o.elevationM = this.val(cols.elevation, line);
       o.file = file;
       o.line = line;
       o.remarks = undefined;
@@ -684,33 +851,33 @@ export class CsvCore {
         timeMs,
         source,
         corrected: false,
-        temperatureC: this.val(fields, cols.temperature, line),
-        dewpointC: this.val(fields, cols.dewpoint, line),
-        windDirDeg: this.val(fields, cols.windDir, line),
-        windSpeedMs: this.val(fields, cols.windSpeed, line),
-        gustMs: this.val(fields, cols.gust, line),
-        stationPressureHpa: this.val(fields, cols.stationPressure, line),
-        seaLevelPressureHpa: this.val(fields, cols.seaLevelPressure, line),
-        altimeterHpa: this.val(fields, cols.altimeter, line),
-        precipMm: this.val(fields, cols.precip, line),
+        temperatureC: this.val(cols.temperature, line),
+        dewpointC: this.val(cols.dewpoint, line),
+        windDirDeg: this.val(cols.windDir, line),
+        windSpeedMs: this.val(cols.windSpeed, line),
+        gustMs: this.val(cols.gust, line),
+        stationPressureHpa: this.val(cols.stationPressure, line),
+        seaLevelPressureHpa: this.val(cols.seaLevelPressure, line),
+        altimeterHpa: this.val(cols.altimeter, line),
+        precipMm: this.val(cols.precip, line),
         weather: 0,
         peakWindMs: NaN,
         pressureTrend: 0,
-        latDeg: this.val(fields, cols.lat, line),
-        lonDeg: this.val(fields, cols.lon, line),
-        elevationM: this.val(fields, cols.elevation, line),
+        latDeg: this.val(cols.lat, line),
+        lonDeg: this.val(cols.lon, line),
+        elevationM: this.val(cols.elevation, line),
         file,
         line,
       };
     if (o.dewpointC !== o.dewpointC && cols.relativeHumidity !== undefined) {
-      const rh = this.val(fields, cols.relativeHumidity, line);
+      const rh = this.val(cols.relativeHumidity, line);
       if (rh === rh && o.temperatureC === o.temperatureC) {
         o.dewpointC = dewpointFromRh(o.temperatureC, rh);
         if (o.dewpointC === o.dewpointC) this.count('derived-from-rh', 'dewpoint', line, `${rh}%`);
       }
     }
     if (this.wxCol !== NO_COL) {
-      const w = fields[this.wxCol]!;
+      const w = this.cell(this.wxCol);
       if (w.length !== 0 && w !== 'M') {
         let f = this.wxCache.get(w);
         if (f === undefined) {
@@ -720,7 +887,7 @@ export class CsvCore {
         o.weather = f;
       }
     }
-    if (this.rawCol !== NO_COL) this.mergeRaw(o, fields[this.rawCol]!, line);
+    if (this.rawCol !== NO_COL) this.mergeRaw(o, this.cell(this.rawCol), line);
     if (o.latDeg === o.latDeg && o.lonDeg === o.lonDeg && !this.stationsSeen.has(station)) {
       this.stationsSeen.set(station, { latDeg: o.latDeg, lonDeg: o.lonDeg, elevationM: o.elevationM });
     }
@@ -729,7 +896,7 @@ export class CsvCore {
       this.lastStation = station;
       this.lastStationTime = this.lastTime.get(station) ?? -Infinity;
     }
-    if (timeMs < this.lastStationTime) this.count('time-backwards', 'time', line, fields[this.timeCol]!.trim());
+    if (timeMs < this.lastStationTime) this.count('time-backwards', 'time', line, this.cell(this.timeCol).trim());
     else this.lastStationTime = timeMs;
     this.report.parsed++;
     this.emit(o);
@@ -821,17 +988,31 @@ const GUESS_PREFIX = 1 << 20;
  * gives the same answer for sure (it holds 11 whole lines and no quote character), else on the whole text.
  */
 function guessFormat(text: string, config: ChunkConfig): { delimiter: string; newline: Papa.ParseConfig['newline'] } {
-  const probe = { delimiter: config.delimiter, delimitersToGuess: config.delimitersToGuess, preview: 1 } as Papa.ParseConfig<string[]>;
   if (text.length > GUESS_PREFIX) {
-    const prefix = text.slice(0, GUESS_PREFIX);
-    const g = Papa.parse<string[]>(prefix, probe);
-    const nl = g.meta.linebreak;
-    let lines = 0;
-    for (let k = prefix.indexOf(nl); k >= 0 && lines < 11; k = prefix.indexOf(nl, k + nl.length)) lines++;
-    if (lines >= 11 && prefix.indexOf('"') < 0) return { delimiter: g.meta.delimiter, newline: nl as Papa.ParseConfig['newline'] };
+    const g = guessFromPrefix(text.slice(0, GUESS_PREFIX), config);
+    if (g) return g;
   }
-  const g = Papa.parse<string[]>(text, probe);
+  const g = Papa.parse<string[]>(text, guessProbe(config));
   return { delimiter: g.meta.delimiter, newline: g.meta.linebreak as Papa.ParseConfig['newline'] };
+}
+
+function guessProbe(config: ChunkConfig): Papa.ParseConfig<string[]> {
+  return { delimiter: config.delimiter, delimitersToGuess: config.delimitersToGuess, preview: 1 } as Papa.ParseConfig<string[]>;
+}
+
+/** guessFormat from the first GUESS_PREFIX characters of a longer text, or null when they do not settle it. */
+function guessFromPrefix(prefix: string, config: ChunkConfig): { delimiter: string; newline: Papa.ParseConfig['newline'] } | null {
+  const g = Papa.parse<string[]>(prefix, guessProbe(config));
+  const nl = g.meta.linebreak;
+  let lines = 0;
+  for (let k = prefix.indexOf(nl); k >= 0 && lines < 11; k = prefix.indexOf(nl, k + nl.length)) lines++;
+  if (lines >= 11 && prefix.indexOf('"') < 0) return { delimiter: g.meta.delimiter, newline: nl as Papa.ParseConfig['newline'] };
+  return null;
+}
+
+/** The in-place line scan applies: a one-character ASCII delimiter and a known line ending. */
+function lineModeFits(g: { delimiter: string; newline: Papa.ParseConfig['newline'] }): boolean {
+  return g.delimiter.length === 1 && g.delimiter.charCodeAt(0) < 128 && typeof g.newline === 'string' && g.newline.length > 0;
 }
 
 /**
@@ -893,10 +1074,43 @@ export function readCsvText(
       const g = guessFormat(body, config);
       config.delimiter = g.delimiter;
       config.newline = g.newline;
-      parseInBlocks(body, config, core);
+      // No quote character anywhere: CSV is a plain split on line ending and delimiter (papaparse's fast mode).
+      if (opts.parser !== 'papaparse' && lineModeFits(g) && body.indexOf('"') < 0) core.scanBytes(Buffer.from(body, 'utf8'), 0, g.newline!, g.delimiter);
+      else parseInBlocks(body, config, core);
     }
   }
   return { ...core.finish(), observations };
+}
+
+/**
+ * readCsvText on a file's bytes (UTF-8). A large file without a quote character is scanned as bytes
+ * (no decoding of the whole file to a string, no string per cell); anything else is decoded and goes
+ * through readCsvText. Same results either way.
+ */
+export function readCsvBytes(
+  bytes: Uint8Array,
+  file: string,
+  opts: CsvOptions = {},
+  onObservation?: (o: Observation) => void,
+): CsvResult & { observations: Observation[] } {
+  const u = Buffer.isBuffer(bytes) ? bytes : Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
+  const bom = u[0] === 0xef && u[1] === 0xbb && u[2] === 0xbf ? 3 : 0;
+  // the text path's checks: NUL in the first 8192 characters; a text that is not blank (first printable byte is ASCII)
+  let first = bom;
+  while (first < u.length && u[first]! <= 32) first++;
+  const plain = opts.parser !== 'papaparse' && u.length - bom > GUESS_PREFIX && first < u.length && u[first]! < 128 && u.indexOf(34) < 0;
+  if (plain && u.toString('utf8', 0, 32_768).slice(0, 8192).indexOf('\u0000') < 0) {
+    const observations: Observation[] = [];
+    const core = new CsvCore(file, opts, onObservation ?? ((o) => observations.push(o)));
+    const config = papaConfig(opts, core);
+    const prefix = u.toString('utf8', bom, bom + 4 * GUESS_PREFIX);
+    const g = prefix.length > GUESS_PREFIX ? guessFromPrefix(prefix.slice(0, GUESS_PREFIX), config) : null;
+    if (g && lineModeFits(g)) {
+      core.scanBytes(u, bom, g.newline!, g.delimiter);
+      return { ...core.finish(), observations };
+    }
+  }
+  return readCsvText(u.toString('utf8'), file, opts, onObservation);
 }
 
 /**

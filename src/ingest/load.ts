@@ -8,7 +8,7 @@ import { basename, extname, join } from 'node:path';
 import type { FileReport, Observation, StationMeta } from './types.js';
 import { newFileReport } from './types.js';
 import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarBytes } from './metar.js';
-import { readCsvText, type CsvOptions, type RawReportDecoded } from './csv.js';
+import { readCsvBytes, type CsvOptions, type RawReportDecoded } from './csv.js';
 import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, type StationIndex } from './stations.js';
 import type { ColumnOverride } from './columns.js';
 import type { StationSeries } from '../series/series.js';
@@ -202,7 +202,7 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
         note(`${f.path}: no year and month for the reports; pass --month YYYY-MM or use a dated file name`);
       }
     } else if (f.format === 'csv') {
-      const r = readCsvText(f.bytes.toString('utf8'), f.path, csvSinkOpts, sink);
+      const r = readCsvBytes(f.bytes, f.path, csvSinkOpts, sink);
       // A CSV without a single observation inside a directory is most likely something else (a forecast list).
       if (r.report.parsed === 0 && f.fromDir) {
         note(`${f.path}: skipped (no observation columns recognised)`);

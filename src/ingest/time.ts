@@ -174,6 +174,44 @@ function readPartsQuick(t: string, p: Parts): boolean {
   return true;
 }
 
+/** readPartsQuick on the bytes u[a, b). */
+function readPartsQuickBytes(u: Uint8Array, a: number, b: number, p: Parts): boolean {
+  const n = b - a;
+  if (n !== 16 && n !== 17) return false;
+  if (u[a + 4] !== 45 || u[a + 7] !== 45 || u[a + 13] !== 58) return false;
+  const sep = u[a + 10];
+  if (sep !== 84 && sep !== 32 && sep !== 116) return false;
+  let offset = NaN;
+  if (n === 17) {
+    const z = u[a + 16];
+    if (z !== 90 && z !== 122) return false;
+    offset = 0;
+  }
+  const y0 = u[a]! - 48;
+  const y1 = u[a + 1]! - 48;
+  const y2 = u[a + 2]! - 48;
+  const y3 = u[a + 3]! - 48;
+  const m0 = u[a + 5]! - 48;
+  const m1 = u[a + 6]! - 48;
+  const d0 = u[a + 8]! - 48;
+  const d1 = u[a + 9]! - 48;
+  const h0 = u[a + 11]! - 48;
+  const h1 = u[a + 12]! - 48;
+  const i0 = u[a + 14]! - 48;
+  const i1 = u[a + 15]! - 48;
+  if ((y0 | y1 | y2 | y3 | m0 | m1 | d0 | d1 | h0 | h1 | i0 | i1) >>> 0 > 15) return false;
+  if (y0 > 9 || y1 > 9 || y2 > 9 || y3 > 9 || m0 > 9 || m1 > 9 || d0 > 9 || d1 > 9 || h0 > 9 || h1 > 9 || i0 > 9 || i1 > 9) return false;
+  p.y = y0 * 1000 + y1 * 100 + y2 * 10 + y3;
+  p.mo = m0 * 10 + m1;
+  p.d = d0 * 10 + d1;
+  p.h = h0 * 10 + h1;
+  p.mi = i0 * 10 + i1;
+  p.s = 0;
+  p.ms = 0;
+  p.offset = offset;
+  return true;
+}
+
 /** Split `text` into parts; false when no accepted form matches. */
 function readParts(t: string, p: Parts): boolean {
   const n = t.length;
@@ -307,6 +345,11 @@ export type TimeParser = (text: string) => TimeResult;
  */
 export interface TimeReader {
   read(text: string): number;
+  /**
+   * read() of the bytes u[a, b) when they hold exactly `YYYY-MM-DD[T ]HH:MM[Z]`; otherwise NaN with
+   * `error` null (decode the text and call read()).
+   */
+  readQuickBytes(u: Uint8Array, a: number, b: number): number;
   error: { error: TimeError; message: string } | null;
 }
 
@@ -342,27 +385,48 @@ export function makeTimeReader(opts: TimeOptions = {}): TimeReader {
         return Math.abs(v) > 1e11 ? v : v * 1000;
       }
       if (!readPartsQuick(text, p) && !readParts(text, p)) return fail('unparsable', `"${text}" is not a time fropa reads (use ISO 8601, e.g. 2024-02-27T08:51Z)`);
-      if (!validParts(p)) return fail('unparsable', `"${text}" is not a valid calendar date and time`);
-      // = Date.UTC(y, mo − 1, d, h, mi, s, ms): the day part is cached (consecutive rows share the date)
-      if (p.y !== dayY || p.mo !== dayMo || p.d !== dayD) {
-        dayY = p.y;
-        dayMo = p.mo;
-        dayD = p.d;
-        dayMs = Date.UTC(p.y, p.mo - 1, p.d);
-      }
-      const wall = dayMs + p.h * HOUR_MS + p.mi * 60000 + p.s * 1000 + p.ms;
-      if (!Number.isNaN(p.offset)) return wall - p.offset * 60000;
-      if (!Number.isNaN(fixed)) return wall - fixed * 60000;
-      if (z) {
-        if (standardTime) return wall - z.standard(p.y) * 60000;
-        const r = localToUtc(wall, z, text);
-        if ('ms' in r) return r.ms;
-        reader.error = r;
+      return fromParts(text);
+    },
+    readQuickBytes(u: Uint8Array, a: number, b: number): number {
+      if (epoch || !readPartsQuickBytes(u, a, b, p)) {
+        reader.error = null;
         return NaN;
       }
-      return fail('needs-zone', `"${text}" has no UTC offset; give the time zone (IANA name, e.g. --tz America/Chicago) or a UTC offset column`);
+      bytesU = u;
+      bytesA = a;
+      bytesB = b;
+      return fromParts(null);
     },
   };
+  let bytesU: Uint8Array | null = null;
+  let bytesA = 0;
+  let bytesB = 0;
+  /** Epoch ms of the parts in `p`; `text` (null: the bytes last given to readQuickBytes) only for messages and zones. */
+  function fromParts(text: string | null): number {
+    if (!validParts(p)) return fail('unparsable', `"${text ?? bytesText()}" is not a valid calendar date and time`);
+    // = Date.UTC(y, mo − 1, d, h, mi, s, ms): the day part is cached (consecutive rows share the date)
+    if (p.y !== dayY || p.mo !== dayMo || p.d !== dayD) {
+      dayY = p.y;
+      dayMo = p.mo;
+      dayD = p.d;
+      dayMs = Date.UTC(p.y, p.mo - 1, p.d);
+    }
+    const wall = dayMs + p.h * HOUR_MS + p.mi * 60000 + p.s * 1000 + p.ms;
+    if (!Number.isNaN(p.offset)) return wall - p.offset * 60000;
+    if (!Number.isNaN(fixed)) return wall - fixed * 60000;
+    if (z) {
+      if (standardTime) return wall - z.standard(p.y) * 60000;
+      const r = localToUtc(wall, z, text ?? bytesText());
+      if ('ms' in r) return r.ms;
+      reader.error = r;
+      return NaN;
+    }
+    return fail('needs-zone', `"${text ?? bytesText()}" has no UTC offset; give the time zone (IANA name, e.g. --tz America/Chicago) or a UTC offset column`);
+  }
+  function bytesText(): string {
+    const u = bytesU!;
+    return Buffer.from(u.buffer, u.byteOffset, u.byteLength).toString('utf8', bytesA, bytesB);
+  }
   function fail(error: TimeError, message: string): number {
     reader.error = { error, message };
     return NaN;

@@ -142,4 +142,36 @@ test('makeTimeReader() gives Date.UTC for every YYYY-MM-DD[ T]HH:MM[Z][:SS] text
   );
 });
 
+// readQuickBytes must read exactly as read() for the texts it takes (and decline the rest): same
+// Date.UTC reference as above, through UTC, a fixed offset and a DST zone (IANA database via luxon).
+test('makeTimeReader().readQuickBytes() == read() on the quick form, declines every other text', () => {
+  const p2 = (v: number) => String(v).padStart(2, '0');
+  for (const opts of [{ zone: 'UTC' }, { offsetMinutes: -300 }, { zone: 'America/Chicago' }, { zone: 'Europe/Berlin', standardTime: true }, {}]) {
+    const a = makeTimeReader(opts);
+    const b = makeTimeReader(opts);
+    fc.assert(
+      fc.property(
+        fc.integer({ min: 0, max: 9999 }),
+        fc.integer({ min: 0, max: 13 }),
+        fc.integer({ min: 0, max: 32 }),
+        fc.integer({ min: 0, max: 25 }),
+        fc.integer({ min: 0, max: 60 }),
+        fc.constantFrom(' ', 'T', 't', '_'),
+        fc.constantFrom('', 'Z', 'z', ':07', ' ', 'É'),
+        fc.constantFrom('', ' ', 'x'),
+        (y, mo, d, h, mi, sep, tail, lead) => {
+          const text = `${lead}${String(y).padStart(4, '0')}-${p2(mo)}-${p2(d)}${sep}${p2(h)}:${p2(mi)}${tail}`;
+          const bytes = Buffer.from('..' + text + '..', 'utf8');
+          const quick = a.readQuickBytes(bytes, 2, bytes.length - 2);
+          const ref = b.read(text);
+          if (quick === quick) return quick === ref;
+          if (a.error === null) return !(text.length === 16 || text.length === 17) || lead !== '' || tail === ' ' || tail === 'É' || sep === '_' || tail === ':07';
+          return Number.isNaN(ref) && b.error !== null && a.error.error === b.error.error && a.error.message === b.error.message;
+        },
+      ),
+      { numRuns: 2000, seed: 11 },
+    );
+  }
+});
+
 test.run();
