@@ -1115,7 +1115,8 @@ export function readCsvBytes(
 
 /**
  * Read a CSV from a Node readable stream, calling `onObservation` for each parsed row (memory stays flat).
- * Resolves with the report when the stream ends; rejects only on stream errors.
+ * Resolves with the report when the stream ends; rejects on stream errors and on errors thrown by
+ * `onObservation` (bad data never throws: it is counted in the report).
  */
 export function readCsvStream(
   stream: NodeJS.ReadableStream,
@@ -1141,6 +1142,12 @@ export function readCsvStream(
         done = true;
         resolve(core.finish());
       },
-    } as Papa.ParseConfig<string[]>);
+      // an error thrown while handling rows (e.g. by the caller's callback) reaches papaparse's error hook
+      error: (e: unknown) => {
+        if (done) return;
+        done = true;
+        reject(e);
+      },
+    } as unknown as Papa.ParseConfig<string[]>);
   });
 }

@@ -251,6 +251,20 @@ test('readCsvStream() gives the same observations as readCsvText()', async () =>
   assert.equal(res.report, viaText.report);
 });
 
+test('readCsvStream() rejects when the row callback throws (the promise settles)', async () => {
+  const text = 'station,valid,tmpf\nXAAA,2026-03-01 00:00,50\nXAAA,2026-03-01 00:05,51\n';
+  let err: unknown = null;
+  try {
+    await readCsvStream(Readable.from([text]), 'x.csv', {}, () => {
+      throw new Error('sink failed');
+    });
+  } catch (e) {
+    err = e;
+  }
+  assert.instance(err, Error);
+  assert.is((err as Error).message, 'sink failed');
+});
+
 test('readCsvStream() reports empty and binary streams', async () => {
   const empty = await readCsvStream(Readable.from([]), 'e.csv', {}, () => {});
   assert.equal(empty.report.rejectedByReason, { empty: 1 });
