@@ -126,6 +126,21 @@ test('in-place scan == papaparse: real files of the shared folder (skipped when 
   }
 });
 
+test('readCsvBytes edge inputs read as the text path reads them (NUL, blank, non-ASCII start, no header rows)', () => {
+  const rows = makeText(20_000, 5, ',', '\n', false, IEM);
+  const cases: [string, string][] = [
+    ['NUL in the first rows', rows.replace('\n', '\n\u0000\n')],
+    ['only blanks', ' '.repeat(1 << 21) + '\n'],
+    ['non-breaking spaces before the header', '\u00a0'.repeat(10) + '\n' + rows],
+    ['header only, then blank lines', IEM + '\n'.repeat(1 << 21)],
+    ['one column (no delimiter)', rows.replaceAll(',', ' ')],
+  ];
+  for (const [what, text] of cases) {
+    const ref = readCsvText(text, 'x.csv', { parser: 'papaparse' });
+    assert.is(canon(readCsvBytes(Buffer.from(text, 'utf8'), 'x.csv')), canon(ref), what);
+  }
+});
+
 test('a quote anywhere keeps the file on papaparse (a quoted cell may hold the delimiter)', () => {
   const text = makeText(20_000, 4, ',', '\n', false, IEM).replace('XBBB,', '"XB,BB",');
   assert.is(sameBothWays(text, 'quoted'), 0);
