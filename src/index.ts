@@ -2,8 +2,8 @@
 export * from './ingest/types.js';
 export * from './series/series.js';
 export { loadPaths, UsageError, type LoadOptions, type LoadResult } from './ingest/load.js';
-export { readMetarText, decodeMetar } from './ingest/metar.js';
-export { readCsvText, readCsvStream } from './ingest/csv.js';
+export { readMetarText, readMetarBytes, decodeMetar } from './ingest/metar.js';
+export { readCsvText, readCsvBytes, readCsvStream } from './ingest/csv.js';
 export { readStationsText } from './ingest/stations.js';
 export { applyQc, cleanColumn } from './qc/qc.js';
 export { detectStation } from './detect/detect.js';
