@@ -224,31 +224,27 @@ const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12,
  * and the power of ten are exact doubles, so mantissa / 10^k is correctly rounded: the same value `Number()` gives.
  */
 export function decimalValue(raw: string): number {
-  return decimalValueAt(raw, 0, raw.length);
-}
-
-/** decimalValue of s[a, b) (b > a), without taking the substring unless the text needs Number(). */
-export function decimalValueAt(s: string, a: number, b: number): number {
-  let i = a;
+  const n = raw.length;
+  let i = 0;
   let neg = false;
-  let c = s.charCodeAt(a);
+  let c = raw.charCodeAt(0);
   if (c === 45) {
     neg = true;
-    i = a + 1;
+    i = 1;
   }
   let mant = 0;
   let digits = 0;
   let frac = -1;
-  for (; i < b; i++) {
-    c = s.charCodeAt(i);
+  for (; i < n; i++) {
+    c = raw.charCodeAt(i);
     if (c >= 48 && c <= 57) {
       mant = mant * 10 + (c - 48);
       digits++;
       if (frac >= 0) frac++;
     } else if (c === 46 && frac < 0) frac = 0;
-    else return +s.slice(a, b);
+    else return +raw;
   }
-  if (digits === 0 || digits > 15) return +s.slice(a, b);
+  if (digits === 0 || digits > 15) return +raw;
   const v = frac > 0 ? mant / POW10[frac]! : mant;
   return neg ? -v : v;
 }
@@ -964,10 +960,13 @@ type ChunkConfig = Papa.ParseConfig<string[]> & {
   chunk: (results: Papa.ParseResult<string[]>, parser: Papa.Parser) => void;
 };
 
+/** Delimiters papaparse may guess. */
+const GUESS_DELIMITERS = [',', '\t', ';', '|'];
+
 function papaConfig(opts: CsvOptions, core: CsvCore): ChunkConfig {
   return {
     delimiter: opts.delimiter ?? '',
-    delimitersToGuess: [',', '\t', ';', '|'],
+    delimitersToGuess: GUESS_DELIMITERS,
     skipEmptyLines: false,
     header: false,
     dynamicTyping: false,
@@ -987,22 +986,23 @@ const GUESS_PREFIX = 1 << 20;
  * from the first 1 MiB, the delimiter from the first 10 rows. Guessed on the first 1 MiB alone when that
  * gives the same answer for sure (it holds 11 whole lines and no quote character), else on the whole text.
  */
-function guessFormat(text: string, config: ChunkConfig): { delimiter: string; newline: Papa.ParseConfig['newline'] } {
+function guessFormat(text: string, opts: CsvOptions): { delimiter: string; newline: Papa.ParseConfig['newline'] } {
   if (text.length > GUESS_PREFIX) {
-    const g = guessFromPrefix(text.slice(0, GUESS_PREFIX), config);
+    const g = guessFromPrefix(text.slice(0, GUESS_PREFIX), opts);
     if (g) return g;
   }
-  const g = Papa.parse<string[]>(text, guessProbe(config));
+  const g = Papa.parse<string[]>(text, guessProbe(opts));
   return { delimiter: g.meta.delimiter, newline: g.meta.linebreak as Papa.ParseConfig['newline'] };
 }
 
-function guessProbe(config: ChunkConfig): Papa.ParseConfig<string[]> {
-  return { delimiter: config.delimiter, delimitersToGuess: config.delimitersToGuess, preview: 1 } as Papa.ParseConfig<string[]>;
+/** papaparse's delimiter and line-ending guess, with the options' delimiter if given (as papaConfig). */
+function guessProbe(opts: CsvOptions): Papa.ParseConfig<string[]> {
+  return { delimiter: opts.delimiter ?? '', delimitersToGuess: GUESS_DELIMITERS, preview: 1 } as Papa.ParseConfig<string[]>;
 }
 
 /** guessFormat from the first GUESS_PREFIX characters of a longer text, or null when they do not settle it. */
-function guessFromPrefix(prefix: string, config: ChunkConfig): { delimiter: string; newline: Papa.ParseConfig['newline'] } | null {
-  const g = Papa.parse<string[]>(prefix, guessProbe(config));
+function guessFromPrefix(prefix: string, opts: CsvOptions): { delimiter: string; newline: Papa.ParseConfig['newline'] } | null {
+  const g = Papa.parse<string[]>(prefix, guessProbe(opts));
   const nl = g.meta.linebreak;
   let lines = 0;
   for (let k = prefix.indexOf(nl); k >= 0 && lines < 11; k = prefix.indexOf(nl, k + nl.length)) lines++;
@@ -1071,7 +1071,7 @@ export function readCsvText(
       // In blocks, with the delimiter and line ending papaparse guesses when the text is one block (not from
       // the first block only); papaparse drops a leading BOM from a string, not from a stream.
       const body = text.charCodeAt(0) === 0xfeff ? text.slice(1) : text;
-      const g = guessFormat(body, config);
+      const g = guessFormat(body, opts);
       config.delimiter = g.delimiter;
       config.newline = g.newline;
       // No quote character anywhere: CSV is a plain split on line ending and delimiter (papaparse's fast mode).
@@ -1100,12 +1100,11 @@ export function readCsvBytes(
   while (first < u.length && u[first]! <= 32) first++;
   const plain = opts.parser !== 'papaparse' && u.length - bom > GUESS_PREFIX && first < u.length && u[first]! < 128 && u.indexOf(34) < 0;
   if (plain && u.toString('utf8', 0, 32_768).slice(0, 8192).indexOf('\u0000') < 0) {
-    const observations: Observation[] = [];
-    const core = new CsvCore(file, opts, onObservation ?? ((o) => observations.push(o)));
-    const config = papaConfig(opts, core);
     const prefix = u.toString('utf8', bom, bom + 4 * GUESS_PREFIX);
-    const g = prefix.length > GUESS_PREFIX ? guessFromPrefix(prefix.slice(0, GUESS_PREFIX), config) : null;
+    const g = prefix.length > GUESS_PREFIX ? guessFromPrefix(prefix.slice(0, GUESS_PREFIX), opts) : null;
     if (g && lineModeFits(g)) {
+      const observations: Observation[] = [];
+      const core = new CsvCore(file, opts, onObservation ?? ((o) => observations.push(o)));
       core.scanBytes(u, bom, g.newline!, g.delimiter);
       return { ...core.finish(), observations };
     }
