@@ -18,7 +18,8 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { parseMetar } from 'metar-taf-parser';
 import { readMetarBytes, readMetarText } from '../src/ingest/metar.js';
-import { decodeBytesInto, stampBytes } from '../src/ingest/metar/byteMetar.js';
+import { decodeBytesInto } from '../src/ingest/metar/byteMetar.js';
+import { archiveStampInto } from '../src/ingest/metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef } from '../src/ingest/metar/decodeMetar.js';
 import { SeriesBuilder } from '../src/series/seriesBuilder.js';
 
@@ -267,7 +268,7 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
           let e = u.indexOf(10, p);
           if (e < 0) e = u.length;
           let start = p;
-          if (stampBytes(u, p, e, st)) {
+          if (archiveStampInto(u, p, e, st)) {
             ref.year = st.year;
             ref.month = st.month;
             ref.refDay = st.day;

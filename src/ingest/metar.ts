@@ -5,9 +5,9 @@
  */
 import type { FileReport, Observation, ParseIssue } from './types.js';
 import { addIssue, emptyObservation, newFileReport } from './types.js';
-import { archiveStamp, civilFromDays, parseMonthOption, yearMonthFromFileName, type MonthRef } from './metar/calendar.js';
+import { archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
-import { decodeBytesInto, stampBytes, type ByteStamp } from './metar/byteMetar.js';
+import { decodeBytesInto } from './metar/byteMetar.js';
 
 export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';
 export type { MetarReport, SkyLayer } from './metar/decodeMetar.js';
@@ -54,8 +54,10 @@ const CONTROL = /[\x00-\x09\x0b-\x1f]/g;
 
 /** True when a line (after an optional archive stamp) begins like a METAR/SPECI report. */
 function lineLooksLikeReport(s: string, start: number, end: number): boolean {
-  const st = archiveStamp(s, start, end);
-  let p = st ? st.next : start;
+  // the stamp is ASCII: its byte length is its length in characters
+  const u = Buffer.from(s.slice(start, end), 'utf8');
+  const st: ArchiveStamp = { year: 0, month: 0, day: 0, next: 0 };
+  let p = archiveStampInto(u, 0, u.length, st) ? start + st.next : start;
   while (p < end && s.charCodeAt(p) <= 32) p++;
   const rest = s.slice(p, Math.min(end, p + 40));
   return /^(?:(?:METAR|SPECI)\s+(?:COR\s+)?)?[A-Z][A-Z0-9]{3}\s+\d{6}Z?\s/.test(rest) || /^(?:METAR|SPECI)\s/.test(rest);
@@ -181,7 +183,7 @@ function scanMetar(u: Uint8Array, file: string, month: string | undefined, emit:
   }
   const r = newMetarReport();
   const ref: DecodeRef = { year: 0, month: 0, file, line: 0, refDay: undefined, refMode: undefined, column0: 0 };
-  const st: ByteStamp = { year: 0, month: 0, day: 0, next: 0 };
+  const st: ArchiveStamp = { year: 0, month: 0, day: 0, next: 0 };
   const civil: [number, number, number] = [0, 0, 0];
   const buf = Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength);
   let lastDay = NaN;
@@ -210,7 +212,7 @@ function scanMetar(u: Uint8Array, file: string, month: string | undefined, emit:
     }
     ref.line = lineNo;
     ref.column0 = 0;
-    const stamped1 = u[a]! <= 57 && stampBytes(u, a, b, st);
+    const stamped1 = u[a]! <= 57 && archiveStampInto(u, a, b, st);
     let start = a;
     if (stamped1) {
       ref.year = st.year;

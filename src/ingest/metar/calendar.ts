@@ -171,56 +171,50 @@ export interface ArchiveStamp {
 }
 
 const D0 = 48;
-function dg(s: string, i: number): number {
-  const c = s.charCodeAt(i) - D0;
+/** Digit value of u[i], or -1000 (so that sums with a non-digit go negative). */
+function dgAt(u: Uint8Array, i: number): number {
+  const c = u[i]! - D0;
   return c >= 0 && c <= 9 ? c : -1000;
 }
 
 /**
- * Archive timestamp at `start` of a line: `YYYYMMDDHHMM` (12 digits), `YYYY-MM-DDTHH:MM[:SS][Z]` or
- * `YYYY-MM-DD HH:MM[:SS]`, followed by a blank; null when there is none. Charcode scanning (hot path).
+ * Archive timestamp at `start` of a line of bytes: `YYYYMMDDHHMM` (12 digits), `YYYY-MM-DDTHH:MM[:SS][.fff][Z]`
+ * or `YYYY-MM-DD HH:MM[:SS]`, followed by a blank or comma; false when there is none (allocation-free hot
+ * path: the result goes into `out`).
  */
-export function archiveStamp(s: string, start: number, end: number): ArchiveStamp | null {
-  const out: ArchiveStamp = { year: 0, month: 0, day: 0, next: 0 };
-  return archiveStampInto(s, start, end, out) ? out : null;
-}
-
-/** As archiveStamp, writing into `out`; false when there is no stamp (allocation-free hot path). */
-export function archiveStampInto(s: string, start: number, end: number, out: ArchiveStamp): boolean {
+export function archiveStampInto(u: Uint8Array, start: number, end: number, out: ArchiveStamp): boolean {
   if (end - start < 13) return false;
-  const y = dg(s, start) * 1000 + dg(s, start + 1) * 100 + dg(s, start + 2) * 10 + dg(s, start + 3);
+  const y = dgAt(u, start) * 1000 + dgAt(u, start + 1) * 100 + dgAt(u, start + 2) * 10 + dgAt(u, start + 3);
   if (y < 0) return false;
   let month: number;
   let day: number;
   let p: number;
-  const c4 = s.charCodeAt(start + 4);
-  if (c4 === 45 /* - */) {
-    if (s.charCodeAt(start + 7) !== 45) return false;
-    month = dg(s, start + 5) * 10 + dg(s, start + 6);
-    day = dg(s, start + 8) * 10 + dg(s, start + 9);
-    const sep = s.charCodeAt(start + 10);
-    if (sep !== 84 /* T */ && sep !== 32) return false;
-    // HH:MM
-    if (dg(s, start + 11) < 0 || dg(s, start + 12) < 0 || s.charCodeAt(start + 13) !== 58) return false;
-    if (dg(s, start + 14) < 0 || dg(s, start + 15) < 0) return false;
+  if (u[start + 4] === 45) {
+    if (u[start + 7] !== 45) return false;
+    month = dgAt(u, start + 5) * 10 + dgAt(u, start + 6);
+    day = dgAt(u, start + 8) * 10 + dgAt(u, start + 9);
+    const sep = u[start + 10];
+    if (sep !== 84 && sep !== 32) return false;
+    if (dgAt(u, start + 11) < 0 || dgAt(u, start + 12) < 0 || u[start + 13] !== 58) return false;
+    if (dgAt(u, start + 14) < 0 || dgAt(u, start + 15) < 0) return false;
     p = start + 16;
-    if (s.charCodeAt(p) === 58) p += 3; // :SS
-    if (s.charCodeAt(p) === 46) { // .fff
+    if (u[p] === 58) p += 3;
+    if (u[p] === 46) {
       p++;
-      while (p < end && dg(s, p) >= 0) p++;
+      while (p < end && dgAt(u, p) >= 0) p++;
     }
-    if (s.charCodeAt(p) === 90 /* Z */) p++;
+    if (u[p] === 90) p++;
   } else {
-    for (let i = 4; i < 12; i++) if (dg(s, start + i) < 0) return false;
-    month = dg(s, start + 4) * 10 + dg(s, start + 5);
-    day = dg(s, start + 6) * 10 + dg(s, start + 7);
+    for (let i = 4; i < 12; i++) if (dgAt(u, start + i) < 0) return false;
+    month = dgAt(u, start + 4) * 10 + dgAt(u, start + 5);
+    day = dgAt(u, start + 6) * 10 + dgAt(u, start + 7);
     p = start + 12;
   }
   if (!(month >= 1 && month <= 12 && day >= 1 && day <= 31)) return false;
-  const c = s.charCodeAt(p);
-  if (!(c === 32 || c === 9 || c === 44 /* , */)) return false;
+  const c = u[p];
+  if (!(c === 32 || c === 9 || c === 44)) return false;
   while (p < end) {
-    const q = s.charCodeAt(p);
+    const q = u[p];
     if (q !== 32 && q !== 9 && q !== 44) break;
     p++;
   }
