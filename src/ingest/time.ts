@@ -139,42 +139,19 @@ function readOffset(t: string, i: number, p: Parts): boolean {
 function readPartsQuick(t: string, p: Parts): boolean {
   const n = t.length;
   if (n !== 16 && n !== 17) return false;
-  if (t.charCodeAt(4) !== 45 || t.charCodeAt(7) !== 45 || t.charCodeAt(13) !== 58) return false;
-  const sep = t.charCodeAt(10);
-  if (sep !== 84 && sep !== 32 && sep !== 116) return false;
-  let offset = NaN;
-  if (n === 17) {
-    const z = t.charCodeAt(16);
-    if (z !== 90 && z !== 122) return false;
-    offset = 0;
+  const u = QUICK;
+  for (let i = 0; i < n; i++) {
+    const c = t.charCodeAt(i);
+    if (c > 127) return false;
+    u[i] = c;
   }
-  const y0 = t.charCodeAt(0) - 48;
-  const y1 = t.charCodeAt(1) - 48;
-  const y2 = t.charCodeAt(2) - 48;
-  const y3 = t.charCodeAt(3) - 48;
-  const m0 = t.charCodeAt(5) - 48;
-  const m1 = t.charCodeAt(6) - 48;
-  const d0 = t.charCodeAt(8) - 48;
-  const d1 = t.charCodeAt(9) - 48;
-  const h0 = t.charCodeAt(11) - 48;
-  const h1 = t.charCodeAt(12) - 48;
-  const i0 = t.charCodeAt(14) - 48;
-  const i1 = t.charCodeAt(15) - 48;
-  // every one a digit 0–9 (unsigned compare)
-  if ((y0 | y1 | y2 | y3 | m0 | m1 | d0 | d1 | h0 | h1 | i0 | i1) >>> 0 > 15) return false;
-  if (y0 > 9 || y1 > 9 || y2 > 9 || y3 > 9 || m0 > 9 || m1 > 9 || d0 > 9 || d1 > 9 || h0 > 9 || h1 > 9 || i0 > 9 || i1 > 9) return false;
-  p.y = y0 * 1000 + y1 * 100 + y2 * 10 + y3;
-  p.mo = m0 * 10 + m1;
-  p.d = d0 * 10 + d1;
-  p.h = h0 * 10 + h1;
-  p.mi = i0 * 10 + i1;
-  p.s = 0;
-  p.ms = 0;
-  p.offset = offset;
-  return true;
+  return readPartsQuickBytes(u, 0, n, p);
 }
 
-/** readPartsQuick on the bytes u[a, b). */
+/** Scratch bytes for readPartsQuick. */
+const QUICK = new Uint8Array(17);
+
+/** The quick form `YYYY-MM-DD[T t ]HH:MM[Z z]` in the bytes u[a, b) into `p`; false when it does not fit. */
 function readPartsQuickBytes(u: Uint8Array, a: number, b: number, p: Parts): boolean {
   const n = b - a;
   if (n !== 16 && n !== 17) return false;
