@@ -275,7 +275,7 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
             ref.refMode = 'archive';
             start = st.next;
           } else ref.refMode = 'nearest';
-          if (!decodeBytesInto(r, u, start, e, ref)) decodeInto(r, u.toString('utf8', start, e), 0, e - start, ref, true, false);
+          if (!decodeBytesInto(r, u, start, e, ref)) decodeInto(r, u.toString('utf8', start, e), 0, e - start, ref, true);
           p = e + 1;
         }
       });

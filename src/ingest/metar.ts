@@ -49,9 +49,6 @@ export function metarToObservation(r: MetarReport, file: string, line: number): 
   return o;
 }
 
-/** Characters below 32 other than LF (a global regex used as a cursor: set lastIndex, then test). */
-const CONTROL = /[\x00-\x09\x0b-\x1f]/g;
-
 /** True when a line (after an optional archive stamp) begins like a METAR/SPECI report. */
 function lineLooksLikeReport(s: string, start: number, end: number): boolean {
   // the stamp is ASCII: its byte length is its length in characters
@@ -248,9 +245,7 @@ function scanMetar(u: Uint8Array, file: string, month: string | undefined, emit:
     if (!decodeBytesInto(r, u, start, b, ref)) {
       const line = buf.toString('utf8', a, b);
       const s0 = start - a; // the stamp and the blanks before it are ASCII: byte and character offsets agree
-      CONTROL.lastIndex = s0;
-      const spacesOnly = !CONTROL.test(line);
-      is = decodeInto(r, line, s0, line.length, ref, true, spacesOnly);
+      is = decodeInto(r, line, s0, line.length, ref, true);
     }
     if (is) {
       addIssue(report, is);

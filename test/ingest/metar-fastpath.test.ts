@@ -54,7 +54,7 @@ function compareLine(line: string): [boolean, string] {
   }
   if (!decodeBytesInto(fast, u, ustart, ub, { ...ref })) return [false, ''];
   for (let i = ustart; i < ub; i++) if (u[i]! < 32 || u[i]! > 126) return [true, 'fast path took a line with a control or non-ASCII byte'];
-  const is = decodeInto(slow, line, start, b, { ...ref }, true, false);
+  const is = decodeInto(slow, line, start, b, { ...ref }, true);
   if (is) return [true, `general decoder refused: ${is.reason}`];
   const x = canon(fast);
   const y = canon(slow);

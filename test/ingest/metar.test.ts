@@ -19,7 +19,6 @@ import {
 import { WX, type Observation, type ParseIssue } from '../../src/ingest/types.js';
 import { readFileSync } from 'node:fs';
 import { readMetarText } from '../../src/ingest/metar.js';
-import { decodeInto, newMetarReport } from '../../src/ingest/metar/decodeMetar.js';
 
 const REF = { year: 2024, month: 3, file: 'test.txt', line: 1 };
 const kt = (v: number) => v * KNOT_MS;
@@ -398,25 +397,6 @@ test('readMetarText(onObservation) hands over the same observations as the array
   assert.is(b.observations.length, 0);
   assert.equal(seen, a.observations);
   assert.equal(b.report, a.report);
-});
-
-// The space-only tokenizer (used for lines without control characters) must find the same groups.
-test('decodeInto(spacesOnly) decodes every fixture line exactly as the general tokenizer does', () => {
-  const text = readFileSync(new URL('../fixtures/metar-corpus.txt', import.meta.url), 'utf8');
-  const extra = ['METAR KXYZ 011251Z 21010KT  10SM   10/05 A2992 RMK AO2 =', 'KXYZ 011251Z 21010KT=  RMK', 'KXYZ 011251Z = 21010KT', '=', 'KXYZ 011251Z 21010KT 10SM 10/05 A2992=='];
-  let n = 0;
-  for (const line of [...text.split('\n'), ...extra]) {
-    if (/[\x00-\x1f]/.test(line)) continue;
-    const ref = { year: 2024, month: 2, file: 'f', line: 1 };
-    const a = newMetarReport();
-    const b = newMetarReport();
-    const ia = decodeInto(a, line, 0, line.length, ref, false, false);
-    const ib = decodeInto(b, line, 0, line.length, ref, false, true);
-    assert.equal(ib, ia, line);
-    assert.equal(b, a, line);
-    n++;
-  }
-  assert.ok(n > 100);
 });
 
 test.run();

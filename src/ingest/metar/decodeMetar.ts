@@ -156,47 +156,6 @@ function tokenize(s: string, start: number, end: number): number {
   return n;
 }
 
-/**
- * As tokenize, for text known to hold no character below 32 in [start, end): blanks are then only
- * spaces, and each group end is found with indexOf (a memchr-like scan) instead of a char loop.
- */
-function tokenizeSpaces(s: string, start: number, end: number): number {
-  let n = 0;
-  let p = start;
-  let ts = tokStart;
-  let te = tokEnd;
-  while (p < end) {
-    if (s.charCodeAt(p) === 32) {
-      p++;
-      continue;
-    }
-    const a = p;
-    p = s.indexOf(' ', a + 1);
-    if (p < 0 || p > end) p = end;
-    let b = p;
-    let last = false;
-    if (s.charCodeAt(b - 1) === 61 /* = */) {
-      b--;
-      last = true;
-    }
-    if (b > a) {
-      if (n === ts.length) {
-        const ns = new Int32Array(n * 2);
-        ns.set(ts);
-        tokStart = ts = ns;
-        const ne = new Int32Array(n * 2);
-        ne.set(te);
-        tokEnd = te = ne;
-      }
-      ts[n] = a;
-      te[n] = b;
-      n++;
-    }
-    if (last) break;
-  }
-  return n;
-}
-
 /** First three characters packed into one number (for fast keyword tests). */
 function k3(s: string, a: number): number {
   return (s.charCodeAt(a) << 16) | (s.charCodeAt(a + 1) << 8) | s.charCodeAt(a + 2);
@@ -501,8 +460,6 @@ function issue(ref: DecodeRef, reason: string, message: string, s: string, a: nu
 /**
  * Decode the report in s[start, end) into `r` (reset first). Returns null on success, else the issue.
  * `lite` skips the string/object parts (weatherCodes, sky, rvr) that an Observation does not carry.
- * `spacesOnly`: the caller knows s[start, end) holds no character below 32 (a faster tokenizer applies;
- * the groups found are the same).
  */
 export function decodeInto(
   r: MetarReport,
@@ -511,10 +468,9 @@ export function decodeInto(
   end: number,
   ref: DecodeRef,
   lite: boolean,
-  spacesOnly = false,
 ): ParseIssue | null {
   resetReport(r);
-  const n = spacesOnly ? tokenizeSpaces(s, start, end) : tokenize(s, start, end);
+  const n = tokenize(s, start, end);
   if (n === 0) return issue(ref, 'empty', 'empty report', s, 0, 0, start);
   const TS = tokStart;
   const TE = tokEnd;
