@@ -7,9 +7,11 @@
 import type { ObserverRemark, ParseIssue } from '../types.js';
 import { WX } from '../types.js';
 import { reportTimeMs, type MonthRef } from './calendar.js';
+import { asciiBytes } from './ascii.js';
+import { asciiView, compassSuffix, dg, digits, isWord, k3, kw, pressureGroup, skyGroup, slashes, statuteMiles, tempGroup, windGroup } from './groups.js';
 import { decodeRemarks } from './remarks.js';
-import { KMH_MS, KNOT_MS, INHG_HPA, STATUTE_MILE_M } from './units.js';
-import { weatherFlags } from './weather.js';
+import { STATUTE_MILE_M } from './units.js';
+import { weatherFlagsAt } from './weather.js';
 
 /** One cloud layer (FM 15 group NsNsNshshshs / VVhshshs). `heightFt` NaN when not given or clear. */
 export interface SkyLayer {
@@ -156,267 +158,11 @@ function tokenize(s: string, start: number, end: number): number {
   return n;
 }
 
-/** First three characters packed into one number (for fast keyword tests). */
-function k3(s: string, a: number): number {
-  return (s.charCodeAt(a) << 16) | (s.charCodeAt(a + 1) << 8) | s.charCodeAt(a + 2);
-}
-const key3 = (w: string) => k3(w, 0);
-const K_RMK = key3('RMK');
-const K_FEW = key3('FEW');
-const K_SCT = key3('SCT');
-const K_BKN = key3('BKN');
-const K_OVC = key3('OVC');
-const K_CLR = key3('CLR');
-const K_SKC = key3('SKC');
-const K_NSC = key3('NSC');
-const K_NCD = key3('NCD');
-const K_SLASH3 = key3('///');
-
-// ---------------------------------------------------------------------------------------------
-// Small char-code helpers.
-
-/** Digit value at i, or -1000 (so that sums of a non-digit go negative). */
-export function dg(s: string, i: number): number {
-  const c = s.charCodeAt(i) - 48;
-  return c >= 0 && c <= 9 ? c : -1000;
-}
-
-/** Unsigned integer of the digits s[a, b), or -1 when empty or any char is not a digit. */
-export function digits(s: string, a: number, b: number): number {
-  if (b <= a) return -1;
-  let v = 0;
-  for (let i = a; i < b; i++) {
-    const c = s.charCodeAt(i) - 48;
-    if (c < 0 || c > 9) return -1;
-    v = v * 10 + c;
-  }
-  return v;
-}
-
-/** s[a, b) consists only of '/'. */
-export function slashes(s: string, a: number, b: number): boolean {
-  if (b <= a) return false;
-  for (let i = a; i < b; i++) if (s.charCodeAt(i) !== 47) return false;
-  return true;
-}
-
-/** s[a, b) equals the ASCII word w. */
-export function isWord(s: string, a: number, b: number, w: string): boolean {
-  const n = w.length;
-  if (b - a !== n) return false;
-  for (let i = 0; i < n; i++) if (s.charCodeAt(a + i) !== w.charCodeAt(i)) return false;
-  return true;
-}
-
-// ---------------------------------------------------------------------------------------------
-// Body groups.
-
-/**
- * Wind group `dddff(f)Gfmfm(fm)KT|MPS|KMH` (WMO-No. 306 FM 15 §15.5; FMH-1 §12.6.5): `VRB` direction,
- * `00000KT` calm, `P99KT`/`P49MPS` (≥ 100 kt / 50 m/s → stored as 100 kt / 50 m/s, the bound),
- * 3-digit US speeds (`210103G130KT`, AIM). Returns false when s[a, b) is not a wind group.
- */
-export function windGroup(s: string, a: number, b: number, r: MetarReport): boolean {
-  const len = b - a;
-  if (len < 7) return false;
-  let e: number;
-  let f: number;
-  const cl = s.charCodeAt(b - 1);
-  if (cl === 84 /* T */ && s.charCodeAt(b - 2) === 75 /* K */) {
-    e = b - 2;
-    f = KNOT_MS;
-  } else if (cl === 83 /* S */ && s.charCodeAt(b - 2) === 80 && s.charCodeAt(b - 3) === 77) {
-    e = b - 3;
-    f = 1;
-  } else if (cl === 72 /* H */ && s.charCodeAt(b - 2) === 77 && s.charCodeAt(b - 3) === 75) {
-    e = b - 3;
-    f = KMH_MS;
-  } else return false;
-  let dir: number;
-  let variable = false;
-  const d = dg(s, a) * 100 + dg(s, a + 1) * 10 + dg(s, a + 2);
-  if (d >= 0) {
-    if (d > 360) return false;
-    dir = d;
-  } else if (s.startsWith('VRB', a)) {
-    dir = NaN;
-    variable = true;
-  } else if (slashes(s, a, a + 3)) dir = NaN;
-  else return false;
-  let i = a + 3;
-  // speed
-  let plus = false;
-  if (s.charCodeAt(i) === 80 /* P */) {
-    plus = true;
-    i++;
-  }
-  let j = i;
-  while (j < e && s.charCodeAt(j) !== 71 /* G */) j++;
-  let speed: number;
-  if (j - i === 2 && slashes(s, i, j)) speed = NaN;
-  else {
-    if (j - i < 2 || j - i > 3) return false;
-    speed = digits(s, i, j);
-    if (speed < 0) return false;
-    if (plus) speed++;
-  }
-  let gust = NaN;
-  if (j < e) {
-    i = j + 1;
-    plus = false;
-    if (s.charCodeAt(i) === 80) {
-      plus = true;
-      i++;
-    }
-    if (e - i === 2 && slashes(s, i, e)) gust = NaN;
-    else {
-      if (e - i < 2 || e - i > 3) return false;
-      gust = digits(s, i, e);
-      if (gust < 0) return false;
-      if (plus) gust++;
-      gust *= f;
-    }
-  }
-  r.windDirDeg = speed === 0 && d === 0 ? 0 : dir;
-  r.windSpeedMs = speed * f;
-  r.gustMs = gust;
-  r.windVariable = variable;
-  return true;
-}
-
-/** Visibility in statute miles ending in `SM` (FMH-1 §12.6.6): `10SM`, `1/2SM`, `M1/4SM`, `P6SM`, `11/2SM` (= 1 1/2). NaN when malformed. */
-export function statuteMiles(s: string, a: number, b: number): number {
-  let i = a;
-  const c0 = s.charCodeAt(i);
-  if (c0 === 77 /* M */ || c0 === 80 /* P */) i++;
-  const e = b - 2;
-  let k = i;
-  while (k < e && s.charCodeAt(k) !== 47) k++;
-  if (k === e) {
-    const v = digits(s, i, e);
-    return v < 0 ? NaN : v;
-  }
-  const num = digits(s, i, k);
-  const den = digits(s, k + 1, e);
-  if (num < 0 || den <= 0) return NaN;
-  if (num > den && num >= 10) return Math.floor(num / 10) + (num % 10) / den;
-  return num / den;
-}
-
-/** Compass suffix of directional visibility (N NE E SE S SW W NW, NDV). */
-function compassSuffix(s: string, a: number, b: number): boolean {
-  const n = b - a;
-  if (n === 3) return s.startsWith('NDV', a);
-  if (n === 1) {
-    const c = s.charCodeAt(a);
-    return c === 78 || c === 69 || c === 83 || c === 87;
-  }
-  if (n === 2) {
-    const c = s.charCodeAt(a);
-    const d = s.charCodeAt(a + 1);
-    return (c === 78 || c === 83) && (d === 69 || d === 87);
-  }
-  return false;
-}
-
-/** Temperature half `M?dd` or `//`: value, NaN for missing, undefined when malformed. */
-function tempHalf(s: string, a: number, b: number): number | undefined {
-  if (b - a === 2 && s.charCodeAt(a) === 47 && s.charCodeAt(a + 1) === 47) return NaN;
-  let neg = false;
-  if (s.charCodeAt(a) === 77 /* M */) {
-    neg = true;
-    a++;
-  }
-  if (b - a !== 2) return undefined;
-  const v = dg(s, a) * 10 + dg(s, a + 1);
-  if (v < 0) return undefined;
-  return neg ? (v === 0 ? 0 : -v) : v;
-}
-
-/** Temperature / dew point `T'T'/T'dT'd` (FM 15 §15.11; FMH-1 §12.6.10): `M` minus, missing dew point `10/`, `10///`. */
-export function tempGroup(s: string, a: number, b: number, r: MetarReport): boolean {
-  let k = a;
-  while (k < b && s.charCodeAt(k) !== 47) k++;
-  if (k === a) {
-    // `//` temperature: `/////` or `///10`
-    if (b - a < 3 || s.charCodeAt(a + 1) !== 47 || s.charCodeAt(a + 2) !== 47) return false;
-    k = a + 2;
-  }
-  if (k >= b) return false;
-  const t = tempHalf(s, a, k);
-  if (t === undefined) return false;
-  let td: number | undefined = NaN;
-  if (k + 1 < b) {
-    td = tempHalf(s, k + 1, b);
-    if (td === undefined) return false;
-  }
-  r.temperatureC = t;
-  r.dewpointC = td;
-  return true;
-}
-
-/** Sky group: `FEW|SCT|BKN|OVC hhh [CB|TCU|///]`, `VVhhh`, `//////`, CLR SKC NSC NCD (FM 15 §15.9; FMH-1 §12.6.9). */
-export function skyGroup(s: string, a: number, b: number, r: MetarReport, lite: boolean): boolean {
-  const len = b - a;
-  let cover: string;
-  let i: number;
-  const c0 = s.charCodeAt(a);
-  const k = k3(s, a);
-  if (len === 3) {
-    if (k === K_CLR) cover = 'CLR';
-    else if (k === K_SKC) cover = 'SKC';
-    else if (k === K_NSC) cover = 'NSC';
-    else if (k === K_NCD) cover = 'NCD';
-    else return false;
-    if (!lite) r.sky.push({ cover, heightFt: NaN });
-    return true;
-  }
-  if (c0 === 86 /* V */ && s.charCodeAt(a + 1) === 86) {
-    cover = 'VV';
-    i = a + 2;
-  } else if (len >= 6) {
-    if (k === K_FEW) cover = 'FEW';
-    else if (k === K_SCT) cover = 'SCT';
-    else if (k === K_BKN) cover = 'BKN';
-    else if (k === K_OVC) cover = 'OVC';
-    else if (k === K_SLASH3) cover = '///';
-    else return false;
-    i = a + 3;
-  } else return false;
-  if (b - i < 3) return false;
-  let h = digits(s, i, i + 3);
-  if (h < 0) {
-    if (!slashes(s, i, i + 3)) return false;
-    h = NaN;
-  } else h *= 100;
-  i += 3;
-  let type: string | undefined;
-  if (i < b) {
-    if (isWord(s, i, b, 'CB')) {
-      type = 'CB';
-      r.weather |= WX.CONVECTIVE;
-    } else if (isWord(s, i, b, 'TCU')) type = 'TCU';
-    else if (slashes(s, i, b)) type = '///';
-    else return false;
-  }
-  if (!lite) r.sky.push(type === undefined ? { cover, heightFt: h } : { cover, heightFt: h, cloudType: type });
-  return true;
-}
-
-/** `Qhhhh` (hPa) or `Ahhhh` (hundredths of inHg) — FM 15 §15.12; FMH-1 §12.6.11. `////` = missing. */
-export function pressureGroup(s: string, a: number, b: number, r: MetarReport): boolean {
-  if (b - a !== 5) return false;
-  const c0 = s.charCodeAt(a);
-  const v = digits(s, a + 1, b);
-  if (v < 0 && !slashes(s, a + 1, b)) return false;
-  if (c0 === 81 /* Q */) r.qnhHpa = v < 0 ? NaN : v;
-  else r.altimeterHpa = v < 0 ? NaN : (v / 100) * INHG_HPA;
-  return true;
-}
+const K_RMK = kw('RMK');
 
 /** Tokens that end the observed part: trend forecasts (FM 15 §15.14). Their groups are skipped up to RMK. */
-function isTrend(s: string, a: number, b: number): boolean {
-  return isWord(s, a, b, 'BECMG') || isWord(s, a, b, 'TEMPO');
+function isTrend(u: Uint8Array, a: number, b: number): boolean {
+  return isWord(u, a, b, 'BECMG') || isWord(u, a, b, 'TEMPO');
 }
 
 // ---------------------------------------------------------------------------------------------
@@ -471,6 +217,7 @@ export function decodeInto(
 ): ParseIssue | null {
   resetReport(r);
   const n = tokenize(s, start, end);
+  const u = asciiView(s, end); // the same characters as bytes, for the group decoders
   if (n === 0) return issue(ref, 'empty', 'empty report', s, 0, 0, start);
   const TS = tokStart;
   const TE = tokEnd;
@@ -478,13 +225,13 @@ export function decodeInto(
   let a = TS[0]!;
   let b = TE[0]!;
   let keyword = false;
-  if (isWord(s, a, b, 'METAR')) keyword = true;
-  else if (isWord(s, a, b, 'SPECI')) {
+  if (isWord(u, a, b, 'METAR')) keyword = true;
+  else if (isWord(u, a, b, 'SPECI')) {
     keyword = true;
     r.type = 'SPECI';
   }
   if (keyword) i++;
-  if (i < n && isWord(s, TS[i]!, TE[i]!, 'COR')) {
+  if (i < n && isWord(u, TS[i]!, TE[i]!, 'COR')) {
     r.corrected = true;
     i++;
   }
@@ -528,9 +275,9 @@ export function decodeInto(
   {
     const len = b - a;
     const zOk = (len === 7 && s.charCodeAt(a + 6) === 90) || len === 6;
-    const day = dg(s, a) * 10 + dg(s, a + 1);
-    const hh = dg(s, a + 2) * 10 + dg(s, a + 3);
-    const mm = dg(s, a + 4) * 10 + dg(s, a + 5);
+    const day = dg(u, a) * 10 + dg(u, a + 1);
+    const hh = dg(u, a + 2) * 10 + dg(u, a + 3);
+    const mm = dg(u, a + 4) * 10 + dg(u, a + 5);
     if (!zOk || day < 0 || hh < 0 || mm < 0)
       return issue(ref, 'no-time', `expected the DDHHMMZ time group after ${r.station}`, s, a, b, start);
     if (day < 1 || day > 31 || hh > 24 || mm > 59 || (hh === 24 && mm !== 0))
@@ -548,18 +295,18 @@ export function decodeInto(
     b = TE[i]!;
     const len = b - a;
     const c0 = s.charCodeAt(a);
-    if (len === 3 && k3(s, a) === K_RMK) {
-      decodeRemarks(s, TS, TE, i + 1, n, r, ref.file, ref.line, lite);
+    if (len === 3 && k3(u, a) === K_RMK) {
+      decodeRemarks(s, u, TS, TE, i + 1, n, r, ref.file, ref.line, lite);
       i = n;
       break;
     }
     if (trend) continue;
     if (c0 >= 48 && c0 <= 57) {
       // digit first: wind, variable wind, visibility, temperature
-      if (windGroup(s, a, b, r)) continue;
+      if (windGroup(u, a, b, r)) continue;
       if (len === 7 && s.charCodeAt(a + 3) === 86 /* V */) {
-        const x = digits(s, a, a + 3);
-        const y = digits(s, a + 4, b);
+        const x = digits(u, a, a + 3);
+        const y = digits(u, a + 4, b);
         if (x >= 0 && y >= 0 && x <= 360 && y <= 360) {
           r.windVarFromDeg = x;
           r.windVarToDeg = y;
@@ -567,8 +314,8 @@ export function decodeInto(
         }
       }
       if (len >= 4 && len <= 7) {
-        const v = digits(s, a, a + 4);
-        if (v >= 0 && (len === 4 || compassSuffix(s, a + 4, b))) {
+        const v = digits(u, a, a + 4);
+        if (v >= 0 && (len === 4 || compassSuffix(u, a + 4, b))) {
           if (!visSet) {
             r.visibilityM = v === 9999 ? 10000 : v;
             visSet = true;
@@ -578,7 +325,7 @@ export function decodeInto(
       }
       const cl = s.charCodeAt(b - 1);
       if (cl === 77 /* M */ && s.charCodeAt(b - 2) === 83 /* S */) {
-        const miles = statuteMiles(s, a, b);
+        const miles = statuteMiles(u, a, b);
         if (!Number.isNaN(miles)) {
           r.visibilityM = miles * STATUTE_MILE_M;
           visSet = true;
@@ -590,8 +337,8 @@ export function decodeInto(
         const na = TS[i + 1]!;
         const nb = TE[i + 1]!;
         if (s.charCodeAt(nb - 1) === 77 && s.charCodeAt(nb - 2) === 83) {
-          const whole = digits(s, a, b);
-          const frac = statuteMiles(s, na, nb);
+          const whole = digits(u, a, b);
+          const frac = statuteMiles(u, na, nb);
           if (whole >= 0 && frac < 1) {
             r.visibilityM = (whole + frac) * STATUTE_MILE_M;
             visSet = true;
@@ -604,33 +351,33 @@ export function decodeInto(
         // wind group split from its unit, `04015 KT` (seen in real archives)
         const na = TS[i + 1]!;
         const nb = TE[i + 1]!;
-        if (isWord(s, na, nb, 'KT') || isWord(s, na, nb, 'MPS') || isWord(s, na, nb, 'KMH')) {
+        if (isWord(u, na, nb, 'KT') || isWord(u, na, nb, 'MPS') || isWord(u, na, nb, 'KMH')) {
           const joined = s.slice(a, b) + s.slice(na, nb);
-          if (windGroup(joined, 0, joined.length, r)) {
+          if (windGroup(asciiBytes(joined), 0, joined.length, r)) {
             i++;
             continue;
           }
         }
       }
-      if (tempGroup(s, a, b, r)) continue;
+      if (tempGroup(u, a, b, r)) continue;
       unknown(r, s, a, b);
       continue;
     }
     switch (c0) {
       case 77: // M: M1/4SM, M05/M07
         if (s.charCodeAt(b - 1) === 77 && s.charCodeAt(b - 2) === 83) {
-          const miles = statuteMiles(s, a, b);
+          const miles = statuteMiles(u, a, b);
           if (!Number.isNaN(miles)) {
             r.visibilityM = miles * STATUTE_MILE_M;
             visSet = true;
             continue;
           }
         }
-        if (tempGroup(s, a, b, r)) continue;
+        if (tempGroup(u, a, b, r)) continue;
         break;
       case 80: // P: P6SM
         if (s.charCodeAt(b - 1) === 77 && s.charCodeAt(b - 2) === 83) {
-          const miles = statuteMiles(s, a, b);
+          const miles = statuteMiles(u, a, b);
           if (!Number.isNaN(miles)) {
             r.visibilityM = miles * STATUTE_MILE_M;
             visSet = true;
@@ -639,82 +386,82 @@ export function decodeInto(
         }
         break;
       case 47: // '/': missing groups
-        if (windGroup(s, a, b, r)) continue;
-        if (len === 4 && slashes(s, a, b)) {
+        if (windGroup(u, a, b, r)) continue;
+        if (len === 4 && slashes(u, a, b)) {
           visSet = true;
           continue;
         }
-        if (skyGroup(s, a, b, r, lite)) continue;
-        if (weatherFlags(s, a, b) >= 0) continue;
-        if (tempGroup(s, a, b, r)) continue;
+        if (skyGroup(u, a, b, r, lite)) continue;
+        if (weatherFlagsAt(u, a, b) >= 0) continue;
+        if (tempGroup(u, a, b, r)) continue;
         break;
       case 86: // V: VRB wind, VV sky, VC weather
-        if (windGroup(s, a, b, r)) continue;
-        if (skyGroup(s, a, b, r, lite)) continue;
+        if (windGroup(u, a, b, r)) continue;
+        if (skyGroup(u, a, b, r, lite)) continue;
         break;
       case 67: // C: CAVOK, COR, CCA.., CLR
-        if (isWord(s, a, b, 'CAVOK')) {
+        if (isWord(u, a, b, 'CAVOK')) {
           r.cavok = true;
           r.visibilityM = 10000;
           visSet = true;
           continue;
         }
-        if (isWord(s, a, b, 'COR') || (len === 3 && s.charCodeAt(a + 1) === 67)) {
+        if (isWord(u, a, b, 'COR') || (len === 3 && s.charCodeAt(a + 1) === 67)) {
           r.corrected = true;
           continue;
         }
         break;
       case 65: // A: AUTO, Ahhhh, AO2 (remarks without RMK)
-        if (isWord(s, a, b, 'AUTO')) {
+        if (isWord(u, a, b, 'AUTO')) {
           r.auto = true;
           continue;
         }
-        if (pressureGroup(s, a, b, r)) continue;
+        if (pressureGroup(u, a, b, r)) continue;
         if (len >= 3 && s.charCodeAt(a + 1) === 79 /* O */) {
-          decodeRemarks(s, TS, TE, i, n, r, ref.file, ref.line, lite);
+          decodeRemarks(s, u, TS, TE, i, n, r, ref.file, ref.line, lite);
           i = n;
           continue;
         }
         break;
       case 81: // Q
-        if (pressureGroup(s, a, b, r)) continue;
+        if (pressureGroup(u, a, b, r)) continue;
         break;
       case 78: // N: NIL, NOSIG, NSC, NCD, NSW
-        if (isWord(s, a, b, 'NIL')) {
+        if (isWord(u, a, b, 'NIL')) {
           r.nil = true;
           continue;
         }
-        if (isWord(s, a, b, 'NOSIG')) continue;
+        if (isWord(u, a, b, 'NOSIG')) continue;
         break;
       case 82: // R: RVR, recent weather RE..
-        if (len >= 5 && dg(s, a + 1) >= 0 && s.indexOf('/', a) < b && s.indexOf('/', a) > 0) {
+        if (len >= 5 && dg(u, a + 1) >= 0 && s.indexOf('/', a) < b && s.indexOf('/', a) > 0) {
           if (!lite) r.rvr.push(s.slice(a, b));
           continue;
         }
-        if (len >= 4 && s.charCodeAt(a + 1) === 69 /* E */ && weatherFlags(s, a + 2, b) >= 0) continue;
+        if (len >= 4 && s.charCodeAt(a + 1) === 69 /* E */ && weatherFlagsAt(u, a + 2, b) >= 0) continue;
         break;
       case 84: // T: TEMPO
-        if (isTrend(s, a, b)) {
+        if (isTrend(u, a, b)) {
           trend = true;
           continue;
         }
         break;
       case 66: // B: BECMG
-        if (isTrend(s, a, b)) {
+        if (isTrend(u, a, b)) {
           trend = true;
           continue;
         }
         break;
       case 87: // W: WS (wind shear, FM 15 §15.13.3), sea state Wxx/Sx
-        if (isWord(s, a, b, 'WS')) {
-          while (i + 1 < n && (isWord(s, TS[i + 1]!, TE[i + 1]!, 'ALL') || isWord(s, TS[i + 1]!, TE[i + 1]!, 'RWY') || s.charCodeAt(TS[i + 1]!) === 82)) i++;
+        if (isWord(u, a, b, 'WS')) {
+          while (i + 1 < n && (isWord(u, TS[i + 1]!, TE[i + 1]!, 'ALL') || isWord(u, TS[i + 1]!, TE[i + 1]!, 'RWY') || s.charCodeAt(TS[i + 1]!) === 82)) i++;
           continue;
         }
-        if (len >= 5 && dg(s, a + 1) >= 0 && s.indexOf('/', a) < b && s.indexOf('/', a) > 0) continue;
+        if (len >= 5 && dg(u, a + 1) >= 0 && s.indexOf('/', a) < b && s.indexOf('/', a) > 0) continue;
         break;
       case 83: // S: SLP (remarks without RMK)
         if (len >= 5 && s.charCodeAt(a + 1) === 76 && s.charCodeAt(a + 2) === 80) {
-          decodeRemarks(s, TS, TE, i, n, r, ref.file, ref.line, lite);
+          decodeRemarks(s, u, TS, TE, i, n, r, ref.file, ref.line, lite);
           i = n;
           continue;
         }
@@ -727,8 +474,8 @@ export function decodeInto(
         break;
     }
     // Letters: sky or present weather.
-    if (skyGroup(s, a, b, r, lite)) continue;
-    const wf = weatherFlags(s, a, b);
+    if (skyGroup(u, a, b, r, lite)) continue;
+    const wf = weatherFlagsAt(u, a, b);
     if (wf >= 0) {
       r.weather |= wf;
       if (!lite) r.weatherCodes.push(s.slice(a, b));

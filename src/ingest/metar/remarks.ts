@@ -4,93 +4,10 @@
  */
 import type { ObserverRemark } from '../types.js';
 import { WX } from '../types.js';
-import type { MetarReport } from './decodeMetar.js';
-import { dg, digits, isWord, slashes, unknown } from './decodeMetar.js';
-import { INCH_MM, KNOT_MS } from './units.js';
-import { weatherFlags } from './weather.js';
-
-const HOUR_MS = 3_600_000;
-const DAY_MS = 86_400_000;
-
-/**
- * Time of a remark given as `mm` (hh < 0: minutes past the report's hour) or `hhmm`, placed at or
- * before the report time (FMH-1 §12.7: peak wind and wind shift times lie within the last hour).
- */
-export function remarkTimeMs(reportMs: number, hh: number, mm: number): number {
-  if (!Number.isFinite(reportMs) || mm > 59 || hh > 23) return NaN;
-  if (hh < 0) {
-    let t = Math.floor(reportMs / HOUR_MS) * HOUR_MS + mm * 60_000;
-    if (t > reportMs) t -= HOUR_MS;
-    return t;
-  }
-  let t = Math.floor(reportMs / DAY_MS) * DAY_MS + hh * HOUR_MS + mm * 60_000;
-  if (t > reportMs) t -= DAY_MS;
-  return t;
-}
-
-/** `(hh)mm` time token: 2 or 4 digits → [hh or -1, mm], or null. */
-function hhmm(s: string, a: number, b: number): [number, number] | null {
-  const len = b - a;
-  if (len === 2) {
-    const m = digits(s, a, b);
-    return m >= 0 && m <= 59 ? [-1, m] : null;
-  }
-  if (len === 4) {
-    const h = digits(s, a, a + 2);
-    const m = digits(s, a + 2, b);
-    return h >= 0 && h <= 23 && m >= 0 && m <= 59 ? [h, m] : null;
-  }
-  return null;
-}
-
-/** Signed tenths `snTTT` at s[a, a+4): sign digit 0 (+) or 1 (−), then tenths of °C; NaN when malformed. */
-export function signedTenths(s: string, a: number): number {
-  const sg = s.charCodeAt(a);
-  const v = dg(s, a + 1) * 100 + dg(s, a + 2) * 10 + dg(s, a + 3);
-  if (v < 0 || (sg !== 48 && sg !== 49)) return NaN;
-  return sg === 49 ? (v === 0 ? 0 : -v / 10) : v / 10;
-}
-
-/**
- * Begin/end times of weather (FMH-1 §12.7.1(h)): `RAB07`, `RAE21B40`, `FZRAB1155E20`,
- * `RAE34TSE41GRB0157E08`, `RAEMM` (minutes missing). True when the whole token fits.
- */
-export function beginEnd(s: string, a: number, b: number): boolean {
-  let i = a;
-  let parts = 0;
-  while (i < b) {
-    const c = s.charCodeAt(i);
-    if (c === 45 || c === 43) i++;
-    const ws = i;
-    // weather codes, two letters at a time, until B/E followed by a digit or M
-    while (i + 1 < b) {
-      const x = s.charCodeAt(i);
-      const nx = s.charCodeAt(i + 1);
-      if ((x === 66 || x === 69) && i > ws && ((nx >= 48 && nx <= 57) || nx === 77)) break;
-      if (weatherFlags(s, i, i + 2) < 0) return false;
-      i += 2;
-    }
-    if (i === ws) return false;
-    let times = 0;
-    while (i < b) {
-      const x = s.charCodeAt(i);
-      if (x !== 66 && x !== 69) break;
-      i++;
-      if (s.charCodeAt(i) === 77 && s.charCodeAt(i + 1) === 77) {
-        i += 2;
-      } else {
-        let k = i;
-        while (k < b && s.charCodeAt(k) >= 48 && s.charCodeAt(k) <= 57) k++;
-        if (k - i !== 2 && k - i !== 4) return false;
-        i = k;
-      }
-      times++;
-    }
-    if (times === 0) return false;
-    parts++;
-  }
-  return parts > 0;
-}
+import { unknown, type MetarReport } from './decodeMetar.js';
+import { beginEnd, dg, digits, hhmm, isWord, peakWind, remarkTimeMs, signedTenths, slashes } from './groups.js';
+import { INCH_MM } from './units.js';
+import { weatherFlagsAt } from './weather.js';
 
 const COMPASS = new Set(['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW', 'NNE', 'ENE', 'ESE', 'SSE', 'SSW', 'WSW', 'WNW', 'NNW', 'OHD', 'ALQDS']);
 
@@ -134,7 +51,7 @@ function observerRemark(r: MetarReport, label: string, frontal: boolean, shiftTi
 }
 
 /**
- * Decode remark tokens TS/TE[i0, n) of s into r. Groups (FMH-1 §12.7): AO1/AO2, SLPppp/SLPNO,
+ * Decode remark tokens TS/TE[i0, n) of s (u: the same characters as bytes, see asciiView) into r. Groups (FMH-1 §12.7): AO1/AO2, SLPppp/SLPNO,
  * TsnTTTsnTTT, 1snTTT, 2snTTT, 4snTTTsnTTT, 5appp, 6RRRR, 7RRRR, Prrrr, PK WND, WSHFT [FROPA],
  * FROPA / WRM FROPA / APRNT FROPA, PRESRR/PRESFR, LTG…, begin/end times, sensor status (…NO),
  * `$`; plain-language words, directions and VIS/CIG values are recognised; everything else is kept
@@ -142,6 +59,7 @@ function observerRemark(r: MetarReport, label: string, frontal: boolean, shiftTi
  */
 export function decodeRemarks(
   s: string,
+  u: Uint8Array,
   TS: Int32Array,
   TE: Int32Array,
   i0: number,
@@ -159,15 +77,15 @@ export function decodeRemarks(
     const c0 = s.charCodeAt(a);
     if (c0 >= 48 && c0 <= 57) {
       // additive data groups (FMH-1 §12.7.2)
-      if (len === 5 && s.charCodeAt(a + 1) === 47 && (c0 === 52 || c0 === 56) && digits(s, a + 2, b) >= 0) {
+      if (len === 5 && s.charCodeAt(a + 1) === 47 && (c0 === 52 || c0 === 56) && digits(u, a + 2, b) >= 0) {
         continue; // 4/sss snow depth, 8/CLCMCH cloud types
       }
       if (len === 5) {
-        const rest = digits(s, a + 1, b);
-        const miss = rest < 0 && slashes(s, a + 1, b);
+        const rest = digits(u, a + 1, b);
+        const miss = rest < 0 && slashes(u, a + 1, b);
         if (c0 === 49 /* 1 */ || c0 === 50 /* 2 */) {
           if (miss) continue;
-          const v = signedTenths(s, a + 1);
+          const v = signedTenths(u, a + 1);
           if (!Number.isNaN(v)) {
             if (c0 === 49) r.tempMax6hC = v;
             else r.tempMin6hC = v;
@@ -176,8 +94,8 @@ export function decodeRemarks(
           }
         } else if (c0 === 53 /* 5 */) {
           if (miss) continue;
-          const code = dg(s, a + 1);
-          const ppp = digits(s, a + 2, b);
+          const code = dg(u, a + 1);
+          const ppp = digits(u, a + 2, b);
           if (code >= 0 && code <= 8 && ppp >= 0) {
             // WMO-No. 306 code table 0200: 0–3 higher (or same), 4 same, 5–8 lower (or same)
             const v = ppp / 10;
@@ -197,8 +115,8 @@ export function decodeRemarks(
         } else if (c0 === 57 /* 9 */ && s.charCodeAt(a + 1) === 56 && rest >= 0) continue; // 98mmm sunshine
       } else if (len === 9 && c0 === 52 /* 4 */) {
         // 24-h max/min 4snTxTxTxsnTnTnTn
-        if (!Number.isNaN(signedTenths(s, a + 1)) && !Number.isNaN(signedTenths(s, a + 5))) continue;
-      } else if (len === 6 && c0 === 57 && s.charCodeAt(a + 1) === 51 && digits(s, a, b) >= 0) {
+        if (!Number.isNaN(signedTenths(u, a + 1)) && !Number.isNaN(signedTenths(u, a + 5))) continue;
+      } else if (len === 6 && c0 === 57 && s.charCodeAt(a + 1) === 51 && digits(u, a, b) >= 0) {
         continue; // 931RRR / 933RRR snow
       }
       if (numeric && numberLike(s, a, b)) continue;
@@ -212,7 +130,7 @@ export function decodeRemarks(
           r.stationType = len === 3 ? (two ? 'AO2' : 'AO1') : s.charCodeAt(a + 3) === 65 ? (two ? 'AO2A' : 'AO1A') : s.slice(a, b);
           continue;
         }
-        if (isWord(s, a, b, 'APRNT') && i + 1 < n && isWord(s, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
+        if (isWord(u, a, b, 'APRNT') && i + 1 < n && isWord(u, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
           observerRemark(r, 'APRNT FROPA', true, NaN, file, line);
           i++;
           continue;
@@ -220,23 +138,23 @@ export function decodeRemarks(
         break;
       case 83: // S: SLPppp, SLPNO, SNINCR
         if (len === 6 && s.charCodeAt(a + 1) === 76 && s.charCodeAt(a + 2) === 80) {
-          const ppp = digits(s, a + 3, b);
+          const ppp = digits(u, a + 3, b);
           if (ppp >= 0) {
             // FMH-1 §12.7.1(t): tens, units, tenths of hPa; decoding convention ≥ 500 → 9xx.x, else 10xx.x
             r.seaLevelPressureHpa = ppp >= 500 ? 900 + ppp / 10 : 1000 + ppp / 10;
             continue;
           }
-          if (slashes(s, a + 3, b)) continue;
+          if (slashes(u, a + 3, b)) continue;
         }
-        if (isWord(s, a, b, 'SNINCR')) {
+        if (isWord(u, a, b, 'SNINCR')) {
           numeric = true;
           continue;
         }
         break;
       case 84: // T: TsnTTTsnTTT (or T + temperature only)
-        if ((len === 9 || len === 5) && dg(s, a + 1) >= 0) {
-          const t = signedTenths(s, a + 1);
-          const td = len === 9 ? signedTenths(s, a + 5) : NaN;
+        if ((len === 9 || len === 5) && dg(u, a + 1) >= 0) {
+          const t = signedTenths(u, a + 1);
+          const td = len === 9 ? signedTenths(u, a + 5) : NaN;
           if (!Number.isNaN(t) && (len === 5 || !Number.isNaN(td))) {
             r.temperatureC = t;
             if (len === 9) r.dewpointC = td;
@@ -247,67 +165,67 @@ export function decodeRemarks(
         break;
       case 80: // P: Prrrr, PK WND, PRESRR/PRESFR
         if (len === 5) {
-          const v = digits(s, a + 1, b);
+          const v = digits(u, a + 1, b);
           if (v >= 0) {
             r.precip1hMm = (v * (INCH_MM * 10)) / 1000;
             r.precipTrace = v === 0;
             continue;
           }
-          if (slashes(s, a + 1, b)) continue;
+          if (slashes(u, a + 1, b)) continue;
         }
-        if (isWord(s, a, b, 'PK') && i + 1 < n && isWord(s, TS[i + 1]!, TE[i + 1]!, 'WND')) {
+        if (isWord(u, a, b, 'PK') && i + 1 < n && isWord(u, TS[i + 1]!, TE[i + 1]!, 'WND')) {
           i++;
-          while (i + 1 < n && peakWind(s, TS[i + 1]!, TE[i + 1]!, r)) i++;
+          while (i + 1 < n && peakWind(u, TS[i + 1]!, TE[i + 1]!, r)) i++;
           continue;
         }
-        if (isWord(s, a, b, 'PRESRR')) {
+        if (isWord(u, a, b, 'PRESRR')) {
           r.pressureTrend = 1;
           continue;
         }
-        if (isWord(s, a, b, 'PRESFR')) {
+        if (isWord(u, a, b, 'PRESFR')) {
           r.pressureTrend = -1;
           continue;
         }
         break;
       case 87: // W: WSHFT (hh)mm [FROPA], WRM FROPA
-        if (isWord(s, a, b, 'WSHFT')) {
+        if (isWord(u, a, b, 'WSHFT')) {
           let t = NaN;
           if (i + 1 < n) {
-            const tm = hhmm(s, TS[i + 1]!, TE[i + 1]!);
+            const tm = hhmm(u, TS[i + 1]!, TE[i + 1]!);
             if (tm) {
               t = remarkTimeMs(r.timeMs, tm[0], tm[1]);
               i++;
             }
           }
-          if (i + 1 < n && isWord(s, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
+          if (i + 1 < n && isWord(u, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
             observerRemark(r, 'FROPA', true, t, file, line);
             i++;
           } else observerRemark(r, 'WSHFT', false, t, file, line);
           continue;
         }
-        if (isWord(s, a, b, 'WRM') && i + 1 < n && isWord(s, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
+        if (isWord(u, a, b, 'WRM') && i + 1 < n && isWord(u, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
           observerRemark(r, 'WRM FROPA', true, NaN, file, line);
           i++;
           continue;
         }
         break;
       case 67: // C: COLD FROPA, CIG, CB
-        if (isWord(s, a, b, 'COLD') && i + 1 < n && isWord(s, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
+        if (isWord(u, a, b, 'COLD') && i + 1 < n && isWord(u, TS[i + 1]!, TE[i + 1]!, 'FROPA')) {
           observerRemark(r, 'COLD FROPA', true, NaN, file, line);
           i++;
           continue;
         }
-        if (isWord(s, a, b, 'CIG')) {
+        if (isWord(u, a, b, 'CIG')) {
           numeric = true;
           continue;
         }
-        if (isWord(s, a, b, 'CB') || isWord(s, a, b, 'CBMAM')) {
+        if (isWord(u, a, b, 'CB') || isWord(u, a, b, 'CBMAM')) {
           r.weather |= WX.CONVECTIVE;
           continue;
         }
         break;
       case 70: // F: FROPA standing alone
-        if (isWord(s, a, b, 'FROPA')) {
+        if (isWord(u, a, b, 'FROPA')) {
           observerRemark(r, 'FROPA', true, NaN, file, line);
           continue;
         }
@@ -319,22 +237,22 @@ export function decodeRemarks(
         }
         break;
       case 86: // V: VIS
-        if (isWord(s, a, b, 'VIS')) {
+        if (isWord(u, a, b, 'VIS')) {
           numeric = true;
           continue;
         }
         break;
       case 71: // G: GR hail size
-        if (isWord(s, a, b, 'GR')) {
+        if (isWord(u, a, b, 'GR')) {
           numeric = true;
           continue;
         }
         break;
       case 82: // R: RWYnn
-        if (len >= 5 && s.startsWith('RWY', a) && dg(s, a + 3) >= 0) continue;
+        if (len >= 5 && s.startsWith('RWY', a) && dg(u, a + 3) >= 0) continue;
         break;
       case 73: // I: I1nnn, I3nnn, I6nnn ice accretion
-        if (len === 5 && digits(s, a + 1, b) >= 0) continue;
+        if (len === 5 && digits(u, a + 1, b) >= 0) continue;
         break;
       case 36: // $
         if (len === 1) {
@@ -345,33 +263,15 @@ export function decodeRemarks(
     }
     // Plain language.
     if (numeric && numberLike(s, a, b)) continue;
-    if (beginEnd(s, a, b)) {
+    if (beginEnd(u, a, b)) {
       numeric = false;
       continue;
     }
     const word = s.slice(a, b);
     if (VOCABULARY.has(word) || direction(word)) continue;
-    if (weatherFlags(s, a, b) >= 0) continue;
-    if (len <= 6 && (word.startsWith('FEW') || word.startsWith('SCT') || word.startsWith('BKN') || word.startsWith('OVC')) && (len === 3 || digits(s, a + 3, b) >= 0)) continue;
+    if (weatherFlagsAt(u, a, b) >= 0) continue;
+    if (len <= 6 && (word.startsWith('FEW') || word.startsWith('SCT') || word.startsWith('BKN') || word.startsWith('OVC')) && (len === 3 || digits(u, a + 3, b) >= 0)) continue;
     numeric = false;
     r.unknownGroups.push(word);
   }
-}
-
-/** `dddff(f)/(hh)mm` after `PK WND` (FMH-1 §12.7.1(k)); keeps the strongest when several are given. */
-export function peakWind(s: string, a: number, b: number, r: MetarReport): boolean {
-  const k = s.indexOf('/', a);
-  if (k < 0 || k >= b) return false;
-  const dir = digits(s, a, a + 3);
-  const spd = digits(s, a + 3, k);
-  if (dir < 0 || dir > 360 || spd < 0 || k - a - 3 < 2 || k - a - 3 > 3) return false;
-  const tm = hhmm(s, k + 1, b);
-  if (!tm) return false;
-  const ms = spd * KNOT_MS;
-  if (!(ms <= r.peakWindMs)) {
-    r.peakWindMs = ms;
-    r.peakWindDirDeg = dir;
-    r.peakWindTimeMs = remarkTimeMs(r.timeMs, tm[0], tm[1]);
-  }
-  return true;
 }

@@ -4,6 +4,7 @@
  * two-letter codes — decoded by char codes into WX bit flags.
  */
 import { WX } from '../types.js';
+import { asciiBytes } from './ascii.js';
 
 /** Two-letter code → index key `c1 * 32 + c2` (upper-case letters only). */
 function key(code: string): number {
@@ -12,8 +13,6 @@ function key(code: string): number {
 
 /** Flags of each two-letter code (0 = known code without a flag of its own). -1 = not a code. */
 const FLAGS = new Int32Array(32 * 32).fill(-1);
-/** Flags by two-letter code key `(c1 - 64) * 32 + (c2 - 64)` (read-only for other modules). */
-export const WX_CODE_FLAGS: Int32Array = FLAGS;
 const P = WX.PRECIP;
 const TABLE: Record<string, number> = {
   // descriptors (WMO-No. 306 code table 4678)
@@ -32,39 +31,52 @@ for (const [code, flags] of Object.entries(TABLE)) FLAGS[key(code)] = flags;
 const VICINITY_KEEP = WX.SHOWER | WX.THUNDER;
 
 /**
- * WX flags of one present-weather group in `s[a, b)`, or -1 when it is not a weather group.
- * `+` adds WX.HEAVY; `VC` (in the vicinity, not at the station) keeps only SH/TS flags.
- * `//` (not observable, automatic stations) gives 0. `NSW` (no significant weather) gives 0.
- * @example weatherFlags('-SHRA', 0, 5) // WX.SHOWER | WX.RAIN | WX.PRECIP
+ * WX flags of one present-weather group in u[a, b) (WMO-No. 306, FM 15, code table 4678; FMH-1 §12.6.8),
+ * or -1 when it is not a weather group. `+` adds WX.HEAVY; `VC` (in the vicinity) keeps only SH/TS flags;
+ * `//` (not observable) and `NSW` give 0.
  */
-export function weatherFlags(s: string, a: number, b: number): number {
+export function weatherFlagsAt(u: Uint8Array, a: number, b: number): number {
   let i = a;
   let flags = 0;
   let vicinity = false;
-  const c0 = s.charCodeAt(i);
-  if (c0 === 45 /* - */) i++;
-  else if (c0 === 43 /* + */) {
+  const c0 = u[i];
+  if (c0 === 45) i++;
+  else if (c0 === 43) {
     flags |= WX.HEAVY;
     i++;
   }
   const n = b - i;
-  if (n === 2 && s.charCodeAt(i) === 47 && s.charCodeAt(i + 1) === 47 && i === a) return 0;
-  if (n === 3 && i === a && s.startsWith('NSW', i)) return 0;
+  if (n === 2 && u[i] === 47 && u[i + 1] === 47 && i === a) return 0;
+  if (n === 3 && i === a && u[i] === 78 && u[i + 1] === 83 && u[i + 2] === 87) return 0;
   if (n < 2 || (n & 1) !== 0) return -1;
-  if (s.charCodeAt(i) === 86 /* V */ && s.charCodeAt(i + 1) === 67 /* C */) {
+  if (u[i] === 86 && u[i + 1] === 67) {
     if (c0 === 45 || c0 === 43) return -1;
     vicinity = true;
     i += 2;
     if (i === b) return -1;
   }
   for (; i < b; i += 2) {
-    const x = s.charCodeAt(i) - 64;
-    const y = s.charCodeAt(i + 1) - 64;
-    if (x < 1 || x > 26 || y < 1 || y > 26) return -1;
-    const f = FLAGS[x * 32 + y]!;
+    const f = pairFlags(u, i);
     if (f < 0) return -1;
     flags |= f;
   }
   if (vicinity) flags &= VICINITY_KEEP;
   return flags;
+}
+
+/** Flags of the two-letter weather code at u[i, i+2), -1 when it is none. */
+function pairFlags(u: Uint8Array, i: number): number {
+  const x = u[i]! - 64;
+  const y = u[i + 1]! - 64;
+  if (x < 1 || x > 26 || y < 1 || y > 26) return -1;
+  return FLAGS[x * 32 + y]!;
+}
+
+/**
+ * WX flags of one present-weather group in the text `s[a, b)` (see weatherFlagsAt), or -1 when it is not a
+ * weather group.
+ * @example weatherFlags('-SHRA', 0, 5) // WX.SHOWER | WX.RAIN | WX.PRECIP
+ */
+export function weatherFlags(s: string, a: number, b: number): number {
+  return weatherFlagsAt(asciiBytes(s), a, b);
 }
