@@ -16,18 +16,8 @@ import { pathToFileURL } from 'node:url';
 import Papa from 'papaparse';
 import { readCsvBytes, readCsvStream, readCsvText } from '../src/ingest/csv.js';
 import { SeriesBuilder } from '../src/series/seriesBuilder.js';
+import { makeRng } from '../src/synth/random.js';
 
-/** Small seeded PRNG (mulberry32), so every run writes the same file. */
-function mulberry32(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const HEADER = 'station,valid,tmpf,dwpf,relh,drct,sknt,gust,alti,mslp,p01i,vsby';
 
@@ -35,7 +25,7 @@ const HEADER = 'station,valid,tmpf,dwpf,relh,drct,sknt,gust,alti,mslp,p01i,vsby'
 export async function writeSyntheticCsv(rows: number, seed = 20240227): Promise<string> {
   const path = join(tmpdir(), `fropa-bench-${rows}-${seed}.csv`);
   if (existsSync(path) && statSync(path).size > rows * 40) return path;
-  const rnd = mulberry32(seed);
+  const rnd = makeRng(seed).next; // the same seeded stream on every run: the same file
   const out = createWriteStream(path);
   const stations = ['KAAA', 'KBBB', 'KCCC', 'KDDD', 'KEEE', 'KFFF', 'KGGG', 'KHHH', 'KIII', 'KJJJ'];
   const perStation = Math.ceil(rows / stations.length);

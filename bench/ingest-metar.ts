@@ -22,18 +22,7 @@ import { decodeBytesInto } from '../src/ingest/metar/byteMetar.js';
 import { archiveStampInto } from '../src/ingest/metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef } from '../src/ingest/metar/decodeMetar.js';
 import { SeriesBuilder } from '../src/series/seriesBuilder.js';
-
-/** mulberry32 PRNG (public-domain algorithm), seeded. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
+import { makeRng } from '../src/synth/random.js';
 
 const pad = (n: number, w: number) => String(Math.trunc(n)).padStart(w, '0');
 const tc = (t: number) => (t < 0 ? 'M' + pad(-Math.round(t), 2) : pad(Math.round(t), 2));
@@ -52,7 +41,7 @@ interface StationState {
 
 /** Generate `n` report lines, time-major (all stations each hour), starting 2024-01-01. */
 export function generateCorpus(n: number, seed = 20240227): string {
-  const rand = rng(seed);
+  const rand = makeRng(seed).next;
   const stations: StationState[] = [];
   const letters = 'ABCDEFGHIJKLMNOPQRSTUVWXYZ';
   const nStations = 400;

@@ -11,6 +11,7 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { CsvCore, readCsvBytes, readCsvText, type CsvOptions } from '../../src/ingest/csv.js';
 import { decodeMetarAt, isParseIssue, metarToObservation } from '../../src/ingest/metar.js';
+import { makeRng } from '../../src/synth/random.js';
 
 // count the in-place scans, so that each comparison is known to compare the two parsers
 let scans = 0;
@@ -19,18 +20,6 @@ CsvCore.prototype.scanBytes = function (this: CsvCore, ...args: Parameters<typeo
   scans++;
   return scanBytes.apply(this, args);
 };
-
-/** mulberry32 PRNG (public-domain algorithm), seeded. */
-function rng(seed: number): () => number {
-  let a = seed >>> 0;
-  return () => {
-    a = (a + 0x6d2b79f5) >>> 0;
-    let t = a;
-    t = Math.imul(t ^ (t >>> 15), t | 1);
-    t ^= t + Math.imul(t ^ (t >>> 7), t | 61);
-    return ((t ^ (t >>> 14)) >>> 0) / 4294967296;
-  };
-}
 
 const ODD: ((r: string, rand: () => number) => string)[] = [
   (r) => r.replace(',', ',,'), // one cell too many
@@ -57,7 +46,7 @@ const ODD: ((r: string, rand: () => number) => string)[] = [
 
 /** Rows in the IEM-download style (invented stations and values), with oddities mixed in. */
 function makeText(nRows: number, seed: number, delimiter: string, newline: string, bom: boolean, header: string): string {
-  const rand = rng(seed);
+  const rand = makeRng(seed).next;
   const ids = ['XAAA', 'XBBB', 'XCCC', 'XDDD'];
   const lines = [header];
   const t0 = Date.UTC(2021, 2, 1);
