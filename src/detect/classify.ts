@@ -31,7 +31,7 @@ const f0 = (x: number) => (Number.isNaN(x) ? 'n/a' : x.toFixed(0));
  * Score each kind in [0, 1] and pick the best. `hemisphere` is +1 north, −1 south: a cold front veers
  * in the north and backs in the south, so turns are compared after multiplying by it.
  */
-export function classify(f: Features, meta: StationMeta | undefined, hemisphere: 1 | -1): Classification {
+export function classify(f: Features, meta: StationMeta | undefined, hemisphere: 1 | -1, forceKind?: BoundaryKind): Classification {
   const turn = f.turnDeg * hemisphere; // + = the cold-front sense for this hemisphere
   const absTurn = Math.abs(f.turnDeg);
   const dT = f.tempAdjChangeC;
@@ -131,6 +131,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   if (outflow >= 0.35 && outflow >= 0.7 * cold) kind = 'outflow-boundary';
   if (seaBreeze >= 0.35 && seaBreeze >= 0.6 * cold) kind = 'sea-breeze-front';
   if (dryline >= 0.4 && dryline >= 0.7 * cold) kind = 'dryline';
+  if (forceKind) kind = forceKind;
   const confidence = Math.max(0, Math.min(1, scores[kind]));
 
   const ev: string[] = [];
@@ -149,7 +150,7 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   if (abrupt > 0.5) say(true, `abrupt fall ${f1(f.abruptChangeC)} °C within 30 min`);
   if (windBack > 0.5) say(kind !== 'cold-front', `wind back within ${f0(f.windReturnDeg)}° of its earlier direction 1.5–3 h later`);
   if (fallingAfter > 0.5) say(kind !== 'cold-front', `pressure falls ${f1(-f.pressureRise3hHpa)} hPa in the 3 h after`);
-  if (f.recoveryFraction > 0.25) say(kind !== 'cold-front', `temperature recovers ${f0(100 * f.recoveryFraction)} % within 3 h`);
+  if (f.recoveryFraction > 0.25) say(kind !== 'cold-front', `temperature recovers ${f.recoveryFraction >= 1 ? 'fully' : f0(100 * f.recoveryFraction) + ' %'} within 3 h`);
   if (gusty > 0.5) say(true, `gusts to ${f1(f.gustMaxMs)} m/s`);
   if (kind === 'dryline') say(true, `dew point falls ${f1(-f.dewpointDropMaxC)} °C within 3 h while temperature holds, by day`);
   if (kind === 'sea-breeze-front') say(true, `coastal station, onshore wind after the turn, local solar hour ${f1(f.solarHour)}`);

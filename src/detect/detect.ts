@@ -13,6 +13,11 @@ import { pelt, peltMulti } from '../signal/pelt.js';
 import { buildGrid, type DetectGrid } from './grid.js';
 import { lowerBound, measure, rawColumns, type Features, type RawColumns } from './features.js';
 import { classify, type Classification } from './classify.js';
+import { airMassChange } from './airmass.js';
+import { decideKind, modelInputs, type ModelParams } from './model.js';
+import { MODEL_PARAMS } from './modelParams.js';
+import { inferSeaBreezeSector } from './seaBreeze.js';
+import type { StationMeta } from '../ingest/types.js';
 import { changeStart, windSplit, type SplitTime } from './timing.js';
 import { runningMean, meanIn } from './window.js';
 import type { DetectOptions, PassageEvent } from './types.js';
@@ -30,6 +35,9 @@ interface Candidate {
   timing?: SplitTime;
   /** How the leading edge was placed, in words. */
   basis?: string;
+  timeBasis?: PassageEvent['timeBasis'];
+  windTiming?: SplitTime | null;
+  changeTiming?: SplitTime | null;
   prefrontalShiftMs?: number;
 }
 
@@ -51,6 +59,44 @@ export function changePointCandidates(g: DetectGrid): number[] {
   return [...set].sort((a, b) => a - b);
 }
 
+/**
+ * The station's metadata for classification: a stations file's `coastal`/`sea_bearing_deg` win; without
+ * them, a sea-breeze sector inferred from the station's own record (seaBreeze.ts) marks it coastal.
+ */
+export function classificationMeta(series: StationSeries, g: DetectGrid): StationMeta | undefined {
+  const meta = series.meta;
+  if (meta?.coastal !== undefined) return meta;
+  const sector = inferSeaBreezeSector(g, meta?.lonDeg);
+  if (!sector) return meta;
+  return { ...(meta ?? { id: series.station, aliases: [], latDeg: NaN, lonDeg: NaN, elevationM: NaN }), coastal: true, seaBearingDeg: sector.seaBearingDeg };
+}
+
+/** One change-point candidate with the model's inputs, for fitting the model (bench/real/fit.ts). */
+export interface ModelCandidate {
+  station: string;
+  timeMs: number;
+  inputs: Float64Array;
+  handKind: string;
+}
+
+/** Every change-point candidate of a station with its model inputs (no model applied, nothing dropped). */
+export function modelCandidates(series: StationSeries): ModelCandidate[] {
+  const cadence = medianCadenceMinutes(series.timeMs);
+  const g = buildGrid(series, cadence);
+  if (!g) return [];
+  const hemisphere: 1 | -1 = (series.meta?.latDeg ?? 1) < 0 ? -1 : 1;
+  const raw = rawColumns(series);
+  const perH = HOUR / g.stepMs;
+  const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
+  const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
+  const meta = classificationMeta(series, g);
+  return changePointCandidates(g).map((i) => {
+    const f = measure(g, series, raw, i, tSmooth, tRawSmooth);
+    const hand = classify(f, meta, hemisphere);
+    return { station: series.station, timeMs: f.timeMs, inputs: modelInputs(f, airMassChange(g, i), hand, hemisphere), handKind: hand.kind };
+  });
+}
+
 /** Nearest grid index to a time. */
 function gridIndex(g: DetectGrid, tMs: number): number {
   return Math.max(0, Math.min(g.n - 1, Math.round((tMs - g.timeMs[0]!) / g.stepMs)));
@@ -68,9 +114,18 @@ export function detectStation(series: StationSeries, opts: DetectOptions = {}): 
   const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
   const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
 
+  const params = opts.model === undefined ? MODEL_PARAMS : opts.model;
+  const meta = classificationMeta(series, g);
   const evaluate = (i: number): Candidate => {
     const f = measure(g, series, raw, i, tSmooth, tRawSmooth);
-    return { index: i, f, c: classify(f, series.meta, hemisphere) };
+    const hand = classify(f, meta, hemisphere);
+    if (!params) return { index: i, f, c: hand };
+    const a = airMassChange(g, i);
+    const d = decideKind(modelInputs(f, a, hand, hemisphere), a, hand, params);
+    // Evidence in the words of the chosen kind; the model's lines after it.
+    const words = d.kind === hand.kind ? hand : classify(f, meta, hemisphere, d.kind);
+    const extra = d.evidence.slice(hand.evidence.length);
+    return { index: i, f, c: { ...d, evidence: [...words.evidence, ...extra] } };
   };
   // 1–3: candidates from change points, measured and classified.
   const cands = changePointCandidates(g)
@@ -109,6 +164,19 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
   const kept: PassageEvent[] = [];
   const thermalSign = (e: PassageEvent) => (e.kind === 'cold-front' || e.kind === 'outflow-boundary' ? -1 : e.kind === 'warm-front' ? 1 : 0);
   for (const e of byStrength) {
+    // Two cold-front candidates within 4 h are one passage seen at the wind shift and at the fall: keep the
+    // stronger, timed at the wind shift when the shift came first (FMH-1), with both times reported.
+    const twin = kept.find((k) => k.kind === 'cold-front' && e.kind === 'cold-front' && Math.abs(k.timeMs - e.timeMs) < 4 * HOUR);
+    if (twin) {
+      if (e.timeBasis === 'wind-shift' && twin.timeBasis !== 'wind-shift' && e.timeMs < twin.timeMs && twin.timeMs - e.timeMs <= 3 * HOUR) {
+        const fall = twin.timeMs;
+        Object.assign(twin, { timeMs: e.timeMs, timeEarliestMs: e.timeEarliestMs, timeLatestMs: e.timeLatestMs, windShiftTimeMs: e.windShiftTimeMs, timeBasis: 'wind-shift', zoneStartMs: e.timeMs });
+        if (Number.isNaN(twin.changeStartTimeMs)) twin.changeStartTimeMs = fall;
+        twin.zoneHours = Number.isNaN(twin.zoneEndMs) ? NaN : (twin.zoneEndMs - twin.timeMs) / HOUR;
+        twin.evidence = [...twin.evidence.filter((x) => !x.startsWith('timed at')), `timed at the wind shift, between the reports at ${hhmm(e.timeEarliestMs)} and ${hhmm(e.timeLatestMs)} UTC; the temperature fall starts at ${hhmm(twin.changeStartTimeMs)} UTC`];
+      }
+      continue;
+    }
     const clash = kept.some((k) => {
       if (Math.abs(k.timeMs - e.timeMs) < 2 * HOUR) return true;
       if ((k.kind === 'warm-front' || k.kind === 'dryline') && e.kind === k.kind && Math.abs(k.timeMs - e.timeMs) < 6 * HOUR) return true;
@@ -156,13 +224,14 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
   let chosen: SplitTime | null = null;
   let prefrontal: number | undefined;
   if (wind && start) {
-    // A wind shift well ahead of the temperature change is a prefrontal trough (Schultz2005): time the front at the change.
-    // "Well ahead": more than 1.5 h, or two report intervals when the reports are sparser than that.
-    const lead = Math.max(1.5 * HOUR, 2 * g.cadenceMin * 60_000);
-    if (kind === 'cold-front' && wind.timeMs < start.timeMs - lead) {
+    // FMH-1 times a passage at the wind shift (the time it began). A shift more than 3 h ahead of a cold
+    // front's temperature fall is a prefrontal trough (Schultz2005): the front is timed at the fall and the
+    // shift is reported beside it. common practice, no source, for the 3 h.
+    const lead = start.timeMs - wind.timeMs;
+    if (kind === 'cold-front' && lead > 3 * HOUR) {
       chosen = start;
       prefrontal = wind.timeMs;
-    } else chosen = Math.abs(wind.timeMs - start.timeMs) <= 2 * HOUR ? wind : start;
+    } else chosen = Math.abs(lead) <= 3 * HOUR ? wind : start;
   } else chosen = wind ?? start;
   if (!chosen) return c;
   const basis = chosen === wind ? 'timed at the wind shift' : kind === 'dryline' ? 'timed at the start of the dew-point fall' : 'timed at the start of the temperature change';
@@ -172,6 +241,9 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
   const better = again.c.confidence >= 0.7 * c.c.confidence ? again : { ...c };
   better.timing = chosen;
   better.basis = basis;
+  better.timeBasis = chosen === wind ? 'wind-shift' : kind === 'dryline' ? 'dew-point-change' : 'temperature-change';
+  better.windTiming = wind;
+  better.changeTiming = start;
   if (prefrontal !== undefined) better.prefrontalShiftMs = prefrontal;
   return better;
 }
@@ -219,6 +291,9 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
     zoneDepthKm,
     gradientKPer100km: gradient,
     observerFropaTimeMs: NaN,
+    windShiftTimeMs: c.windTiming ? c.windTiming.timeMs : NaN,
+    changeStartTimeMs: c.changeTiming ? c.changeTiming.timeMs : NaN,
+    timeBasis: c.timeBasis ?? 'change-point',
     evidence,
   };
 }

@@ -45,6 +45,12 @@ export interface PassageEvent {
   gradientKPer100km: number;
   /** Nearest observer frontal/wind-shift remark time (NaN when none). */
   observerFropaTimeMs: number;
+  /** When the wind shift began (FMH-1), epoch ms UTC; NaN when the wind did not shift measurably. */
+  windShiftTimeMs: number;
+  /** Start of the temperature change (dew-point change for drylines), epoch ms UTC; NaN when none. */
+  changeStartTimeMs: number;
+  /** Which of the two `timeMs` is: the wind shift, the start of the change, or the change point itself. */
+  timeBasis: 'wind-shift' | 'temperature-change' | 'dew-point-change' | 'change-point';
   /** Criteria that held (`+ …`) and failed (`− …`), in plain words. */
   evidence: string[];
 }
@@ -54,4 +60,6 @@ export interface DetectOptions {
   frontSpeedKmh?: number;
   /** Drop events below this confidence. Default 0.4 (DEFAULT_MIN_CONFIDENCE). */
   minConfidence?: number;
+  /** Classifier parameters: the fitted ones by default; `null` for the hand signatures alone. */
+  model?: import('./model.js').ModelParams | null;
 }
