@@ -29,6 +29,7 @@ function print(name: string, s: RealScores) {
   for (const k of s.kinds) {
     console.log(`  ${k.kind.padEnd(18)} ${String(k.labels).padStart(6)} ${String(k.found).padStart(5)} ${f2(k.recall)}  | ${String(k.detections).padStart(10)} ${String(k.correct).padStart(7)} ${f2(k.precision)}     | ${f0(k.timingMedianMin)} / ${f0(k.timingP90Min)}`);
   }
+  console.log(`  cold fronts labelled "sure": recall ${f2(s.coldSure.recall)} (${s.coldSure.found}/${s.coldSure.labels})`);
   for (const c of s.coldBySeason) console.log(`  cold fronts ${c.season}: precision ${f2(c.precision)} (${c.correct}/${c.detections}), recall ${f2(c.recall)} (${c.found}/${c.labels})`);
   console.log('  decoys called a front (cold, warm or occluded within ±2 h):');
   for (const d of s.decoys) if (d.n) console.log(`    ${d.kind.padEnd(18)} ${d.calledFront}/${d.n} = ${f0(d.pct)} %`);

@@ -9,6 +9,8 @@ import type { BoundaryKind, DetectOptions, PassageEvent } from './detect/types.j
 import { detectStation } from './detect/detect.js';
 import { trackFronts, withTrackSpeeds, type FrontTrack } from './network/track.js';
 import { withFrontogenesis } from './network/frontogenesis.js';
+import { withNetworkCoherence } from './network/coherence.js';
+import { DEFAULT_MIN_CONFIDENCE } from './detect/detect.js';
 
 export interface AnalyseOptions extends DetectOptions {
   /** Track fronts across the network (default true). */
@@ -31,15 +33,25 @@ export function sortEvents(events: PassageEvent[]): PassageEvent[] {
 /** Detect, track and measure. A failure at one station is re-thrown with the station's id. */
 export function analyseSeries(series: readonly StationSeries[], opts: AnalyseOptions = {}): Analysis {
   let all: PassageEvent[] = [];
+  const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
+  const metas = series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+  const network = opts.network !== false && metas.length >= 3;
+  // With a network, weaker passages are detected too: network coherence can keep them (coherence.ts).
+  const floor = network ? minConfidence * 0.7 : minConfidence;
   for (const s of series) {
     try {
-      all.push(...detectStation(s, opts));
+      all.push(...detectStation(s, { ...opts, minConfidence: floor }));
     } catch (e) {
       throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
     }
   }
-  const metas = series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const allTracks = opts.network === false ? [] : withFrontogenesis(trackFronts(all, metas), series);
+  let allTracks = network ? trackFronts(all, metas) : [];
+  if (network) {
+    all = withNetworkCoherence(all, allTracks, metas, series).filter((e) => e.confidence >= minConfidence);
+    // Tracks are refitted on the passages that remain.
+    allTracks = trackFronts(all, metas);
+  }
+  allTracks = opts.network === false ? [] : withFrontogenesis(allTracks, series);
   // The fitted speed is the speed normal to the front; an explicit --front-speed wins.
   if (opts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
   const kinds = opts.kinds;

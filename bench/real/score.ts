@@ -33,6 +33,8 @@ export interface KindScore {
 
 export interface RealScores {
   kinds: KindScore[];
+  /** Cold-front recall over the labels marked `sure` only. */
+  coldSure: { labels: number; found: number; recall: number };
   coldBySeason: { season: string; detections: number; correct: number; precision: number; labels: number; found: number; recall: number }[];
   decoys: { kind: string; n: number; calledFront: number; pct: number }[];
   drylineDetections: number;
@@ -120,6 +122,9 @@ export function scoreReal(labels: readonly Label[], coverage: readonly Coverage[
     const found = lk.filter((l) => sameKind.has(l)).length;
     return { season, detections: dk.length, correct, precision: dk.length ? correct / dk.length : NaN, labels: lk.length, found, recall: lk.length ? found / lk.length : NaN };
   });
+  const sure = L.filter((l) => l.kind === 'cold-front' && l.certainty === 'sure');
+  const sureFound = sure.filter((l) => sameKind.has(l)).length;
+  const coldSure = { labels: sure.length, found: sureFound, recall: sure.length ? sureFound / sure.length : NaN };
   const decoys = ['outflow-boundary', 'sea-breeze-front', 'evening-cooling', 'shower', 'other'].map((kind) => {
     const lk = L.filter((l) => l.kind === kind);
     const called = lk.filter((l) => D.some((d) => d.station === l.station && KINDS_FRONT.has(d.kind) && Math.abs(d.timeMs - l.timeMs) <= DECOY_MS)).length;
@@ -136,6 +141,7 @@ export function scoreReal(labels: readonly Label[], coverage: readonly Coverage[
   });
   return {
     kinds,
+    coldSure,
     coldBySeason,
     decoys,
     drylineDetections,

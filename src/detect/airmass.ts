@@ -25,6 +25,10 @@ export interface AirMassChange {
   thetaELastingK: number;
   /** Pressure 6 h after minus at the candidate (hPa); NaN without pressure. */
   pressureRise6hHpa: number;
+  /** Mean temperature over the 24 h from 2 h after minus over the 24 h before (°C): a whole diurnal cycle each side, so the cycle cancels. */
+  tempDailyMeanC: number;
+  /** The same for the dew point (°C). */
+  dewpointDailyMeanC: number;
 }
 
 /** Measure the lasting change at grid index i. NaN where a window has no data. */
@@ -41,5 +45,26 @@ export function airMassChange(g: DetectGrid, i: number): AirMassChange {
     dewpointLastingC: lasting(g.tdC),
     thetaELastingK: lasting(g.thetaEK),
     pressureRise6hHpa: meanIn(g.pHpa, i + 5.5 * perH, i + 6.5 * perH) - meanIn(g.pHpa, i - 0.25 * perH, i + 0.25 * perH),
+    tempDailyMeanC: dailyMeanChange(g.tC, i, perH),
+    dewpointDailyMeanC: dailyMeanChange(g.tdC, i, perH),
   };
+}
+
+/** Mean over [i + 2 h, i + 26 h) minus mean over [i − 24 h, i); NaN when either side has under half its samples. */
+function dailyMeanChange(v: Float64Array, i: number, perH: number): number {
+  const side = (lo: number, hi: number) => {
+    lo = Math.max(0, Math.floor(lo));
+    hi = Math.min(v.length, Math.ceil(hi));
+    let s = 0;
+    let k = 0;
+    for (let q = lo; q < hi; q++) {
+      const x = v[q]!;
+      if (x === x) {
+        s += x;
+        k++;
+      }
+    }
+    return k >= 12 * perH ? s / k : NaN;
+  };
+  return side(i + 2 * perH, i + 26 * perH) - side(i - 24 * perH, i);
 }

@@ -19,6 +19,23 @@ export interface ModelParams {
   features: readonly string[];
   /** weights[k][j]: class k, feature j; the last column is the intercept. */
   weights: readonly (readonly number[])[];
+  /**
+   * Event-level calibration per kind (Platt 1999): confidence = 1 / (1 + exp(−(a + b·logit(p)))), with p
+   * the candidate's class probability; fitted on the detections of the tuning part, so that a confidence
+   * is the observed frequency of such a detection matching a labelled passage of its kind.
+   */
+  calibration?: Readonly<Record<string, readonly [number, number]>>;
+}
+
+/** Candidates whose best boundary class is less probable than this are not passages (common practice, no source). */
+export const MIN_CLASS_PROBABILITY = 0.1;
+
+/** Platt scaling of a class probability with (a, b); identity without calibration. */
+export function calibrate(p: number, ab: readonly [number, number] | undefined): number {
+  if (!ab) return p;
+  const q = Math.min(1 - 1e-6, Math.max(1e-6, p));
+  const z = ab[0] + ab[1] * Math.log(q / (1 - q));
+  return 1 / (1 + Math.exp(-z));
 }
 
 /** Clamp to ±limit and map NaN to 0 (the missing indicators carry the absence). */
@@ -35,6 +52,8 @@ export const FEATURE_NAMES = [
   'temp_day', 'dewpoint_day', 'theta_e_day', 'day_missing', 'temp_adj_lasting', 'dewpoint_lasting', 'theta_e_lasting',
   'solar_sin', 'solar_cos', 'daytime', 'convective_near', 'precip_near', 'season_winter',
   'temp_adj_change_long', 'dewpoint_change_long', 'turn_long_front_sense', 'onset_delay', 'depression_before',
+  'temp_daily_mean', 'dewpoint_daily_mean', 'daily_missing', 'cooling_x_daily', 'turn_x_speed',
+  'summer_x_cooling', 'summer_x_recovery', 'summer_x_temp_daily', 'convective_x_cooling', 'daytime_x_cooling',
 ] as const;
 
 /**
@@ -45,6 +64,8 @@ export function modelInputs(f: Features, a: AirMassChange, h: Classification, he
   const s = h.scores;
   const doy = (f.timeMs / 86_400_000) % 365.25;
   const solar = (f.solarHour / 24) * 2 * Math.PI;
+  // Warm-season weight in [0, 1]: 1 in midsummer, 0 in midwinter (the season flips south of the equator).
+  const summer = (1 - hemisphere * Math.cos((2 * Math.PI * (doy - 15)) / 365.25)) / 2;
   const x = [
     s['cold-front'], s['warm-front'], s['outflow-boundary'], s['sea-breeze-front'], s['occluded-front'], s.dryline, s['wind-shift'],
     c(f.tempAdjChangeC / 5), c(f.tempChangeC / 5), c(f.dewpointChangeC / 5), c(f.thetaEChangeK / 10),
@@ -55,6 +76,10 @@ export function modelInputs(f: Features, a: AirMassChange, h: Classification, he
     Number.isNaN(solar) ? 0 : Math.sin(solar), Number.isNaN(solar) ? 0 : Math.cos(solar), f.solarHour >= 9.5 && f.solarHour <= 18.5 ? 1 : 0,
     f.convectiveNear ? 1 : 0, f.precipNear ? 1 : 0, hemisphere * Math.cos((2 * Math.PI * (doy - 15)) / 365.25),
     c(f.tempAdjChangeLongC / 5), c(f.dewpointChangeLongC / 5), c((f.turnLongDeg * hemisphere) / 90), c(f.onsetDelayH / 3), c(f.depressionBeforeC / 5),
+    c(a.tempDailyMeanC / 4), c(a.dewpointDailyMeanC / 4), miss(a.tempDailyMeanC), c(f.tempAdjChangeC / 5) * c(a.tempDailyMeanC / 4),
+    c((f.turnDeg * hemisphere) / 90) * c(Math.min(f.speedBeforeMs, f.speedAfterMs) / 5),
+    summer * c(f.tempAdjChangeC / 5), summer * c(f.recoveryFraction, 1.5), summer * c(a.tempDailyMeanC / 4),
+    (f.convectiveNear ? 1 : 0) * c(f.tempAdjChangeC / 5), (f.solarHour >= 9.5 && f.solarHour <= 18.5 ? 1 : 0) * c(f.tempAdjChangeC / 5),
   ];
   return Float64Array.from(x);
 }
@@ -138,7 +163,8 @@ export function fitSoftmax(
 
 /**
  * The model's decision for one candidate, with the hand classification's evidence kept truthful:
- * the kind is the most probable class; `none` becomes an unclassified wind shift when the FMH-1-style
+ * the kind is the most probable boundary class when its probability reaches MIN_CLASS_PROBABILITY, and
+ * the confidence its calibrated value; otherwise `none`, which becomes an unclassified wind shift when the FMH-1-style
  * shift score holds, and is dropped (confidence 0) otherwise. Kinds the real set has too few cases of
  * to fit (occluded fronts, drylines) keep their hand signature, gated by the model's belief that a
  * boundary passed and, for drylines, by the absence of a lasting cooling or drying (a dew-point crash
@@ -151,11 +177,13 @@ export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classifica
     const q = params.classes.indexOf(k);
     return q >= 0 ? p[q]! : 0;
   };
-  let best = 0;
-  for (let q = 1; q < p.length; q++) if (p[q]! > p[best]!) best = q;
+  // The most probable boundary class (the candidates are many and most are nothing: "none" is left out of
+  // the argmax and judged through the class probability and its calibration instead).
+  let best = 1;
+  for (let q = 2; q < p.length; q++) if (p[q]! > p[best]!) best = q;
   const pNone = probOf('none');
-  let kind = params.classes[best] as string;
-  let confidence = p[best]!;
+  let kind = p[best]! >= MIN_CLASS_PROBABILITY ? (params.classes[best] as string) : 'none';
+  let confidence = kind === 'none' ? 0 : calibrate(p[best]!, params.calibration?.[kind]);
   const evidence = h.evidence.slice();
   const lastingCold = a.tempDayC < -2 || a.tempAdjLastingC < -2;
   // A dryline retreats in the evening and the moist air comes back within hours (Schaefer1986, from
@@ -163,14 +191,14 @@ export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classifica
   const moistureReturns = !(a.dewpointDayC < -3);
   if (h.kind === 'dryline' && !lastingCold && moistureReturns && h.scores.dryline >= 0.4 && pNone < 0.8) {
     kind = 'dryline';
-    confidence = Math.min(h.scores.dryline, 1 - pNone);
+    confidence = calibrate(Math.min(h.scores.dryline, 1 - pNone), params.calibration?.dryline);
   } else if (h.kind === 'occluded-front' && (kind === 'cold-front' || kind === 'warm-front') && Math.abs(a.tempDayC) < 2) {
     kind = 'occluded-front';
-    confidence = 1 - pNone;
+    confidence = calibrate(1 - pNone, params.calibration?.['occluded-front']);
   } else if (kind === 'none') {
     if (h.scores['wind-shift'] >= 0.35) {
       kind = 'wind-shift';
-      confidence = Math.min(h.scores['wind-shift'], 1 - Math.max(...Array.from(p).slice(1)));
+      confidence = calibrate(Math.min(h.scores['wind-shift'], 1 - Math.max(...Array.from(p).slice(1))), params.calibration?.['wind-shift']);
     } else confidence = 0;
   }
   if (!Number.isNaN(a.tempDayC)) {

@@ -1,0 +1,64 @@
+/**
+ * Network coherence as evidence for the kind of a passage. A synoptic front is a line that moves
+ * steadily across a network, so a passage that the tracker fits into a front crossing three or more
+ * stations is evidence for a front, and can keep a weak one (a warm front's change is small at any one
+ * station); a cooling seen at one station while its neighbours, reporting at the time, saw no front
+ * within hours is evidence for a mesoscale boundary (an outflow or a local change), as in
+ * Wakimoto1982 (the gust front is a few tens of km across). The sizes below are common practice, no
+ * source.
+ */
+import type { StationMeta } from '../ingest/types.js';
+import type { StationSeries } from '../series/series.js';
+import type { PassageEvent } from '../detect/types.js';
+import type { FrontTrack } from './track.js';
+import { stationDistanceKm } from '../physics/geo.js';
+
+const HOUR = 3_600_000;
+/** Neighbours are stations within this distance. */
+export const NEIGHBOUR_KM = 300;
+/** A neighbour's front counts as the same one within this time. */
+const SAME_FRONT_MS = 4 * HOUR;
+/** Confidence gained by a tracked passage (fraction of the remaining doubt removed). */
+const TRACKED_GAIN = 0.3;
+/** Confidence kept by an isolated cooling whose neighbours saw nothing. */
+const ISOLATED_FACTOR = 0.75;
+
+const FRONTS = new Set(['cold-front', 'warm-front', 'occluded-front']);
+
+function reporting(s: StationSeries | undefined, tMs: number): boolean {
+  if (!s || s.length === 0) return false;
+  return s.timeMs[0]! <= tMs - 3 * HOUR && s.timeMs[s.length - 1]! >= tMs + 3 * HOUR;
+}
+
+/**
+ * Adjust the confidence of front passages by network coherence. Pure: returns new event objects for
+ * those it changes. Stations without coordinates, or without two neighbours reporting at the time, are
+ * left as they are (single-station data work as before).
+ */
+export function withNetworkCoherence(events: readonly PassageEvent[], tracks: readonly FrontTrack[], metas: readonly StationMeta[], series: readonly StationSeries[]): PassageEvent[] {
+  const tracked = new Map<PassageEvent, FrontTrack>();
+  for (const t of tracks) for (const m of t.members) if (t.members.length >= 3) tracked.set(m.event, t);
+  const meta = new Map(metas.filter((m) => Number.isFinite(m.latDeg) && Number.isFinite(m.lonDeg)).map((m) => [m.id, m]));
+  const bySeries = new Map(series.map((s) => [s.station, s]));
+  const neighbours = new Map<string, string[]>();
+  for (const [id, a] of meta) {
+    neighbours.set(
+      id,
+      [...meta.values()].filter((b) => b.id !== id && stationDistanceKm(a.latDeg, a.lonDeg, b.latDeg, b.lonDeg) <= NEIGHBOUR_KM).map((b) => b.id),
+    );
+  }
+  return events.map((e) => {
+    if (!FRONTS.has(e.kind)) return e;
+    const track = tracked.get(e);
+    if (track) {
+      const confidence = Math.round((1 - (1 - e.confidence) * (1 - TRACKED_GAIN)) * 100) / 100;
+      return { ...e, confidence, evidence: [...e.evidence, `+ part of a front tracked across ${track.members.length} stations (${track.speedKmh.toFixed(0)} km/h toward ${track.directionDeg.toFixed(0)}°)`] };
+    }
+    const near = (neighbours.get(e.station) ?? []).filter((id) => reporting(bySeries.get(id), e.timeMs));
+    if (near.length < 2) return e;
+    const seen = near.filter((id) => events.some((o) => o.station === id && FRONTS.has(o.kind) && Math.abs(o.timeMs - e.timeMs) <= SAME_FRONT_MS));
+    if (seen.length > 0) return e;
+    const confidence = Math.round(e.confidence * ISOLATED_FACTOR * 100) / 100;
+    return { ...e, confidence, evidence: [...e.evidence, `− none of ${near.length} neighbouring stations within ${NEIGHBOUR_KM} km saw a front within ${SAME_FRONT_MS / HOUR} h: a local boundary?`] };
+  });
+}
