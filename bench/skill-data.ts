@@ -7,9 +7,9 @@ import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import type { StationMeta } from '../src/ingest/types.js';
-import { generateNetwork } from '../src/synth/generateNetwork.js';
-import { toCsvText, type CsvConvention } from '../src/synth/toCsvText.js';
-import { toMetarLines } from '../src/synth/toMetarLines.js';
+import { generateNetwork } from '../tools/synth/generateNetwork.js';
+import { toCsvText, type CsvConvention } from '../tools/synth/toCsvText.js';
+import { toMetarLines } from '../tools/synth/toMetarLines.js';
 
 const HOUR = 3_600_000;
 

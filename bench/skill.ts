@@ -9,7 +9,7 @@
 import { rmSync, writeFileSync } from 'node:fs';
 import type { StationSeries } from '../src/series/series.js';
 import { writeBenchNetwork } from './skill-data.js';
-import type { TruthEvent } from '../src/synth/types.js';
+import type { TruthEvent } from '../tools/synth/types.js';
 import { naiveDetect } from './naive.js';
 import { contingencyForKind, csi, far, matchOneToOne, pod, type Contingency } from '../src/verify/contingency.js';
 import { quantile } from '../src/verify/quantile.js';

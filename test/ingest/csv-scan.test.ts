@@ -11,7 +11,7 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { CsvCore, readCsvBytes, readCsvText, type CsvOptions } from '../../src/ingest/csv.js';
 import { decodeMetarAt, isParseIssue, metarToObservation } from '../../src/ingest/metar.js';
-import { makeRng } from '../../src/synth/random.js';
+import { makeRng } from '../../tools/synth/random.js';
 
 // count the in-place scans, so that each comparison is known to compare the two parsers
 let scans = 0;

@@ -1,7 +1,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { generateNetwork, mirrorDirectionDeg } from '../../src/synth/generateNetwork.js';
-import type { SynthSeries, TruthEvent } from '../../src/synth/types.js';
+import { generateNetwork, mirrorDirectionDeg } from '../../tools/synth/generateNetwork.js';
+import type { SynthSeries, TruthEvent } from '../../tools/synth/types.js';
 import type { StationMeta } from '../../src/ingest/types.js';
 
 const H = 3_600_000;
