@@ -7,7 +7,7 @@
  * Usage: npm run bench:season [-- --stations 6 --days 365 --seed 20260301]
  */
 import { generateNetwork } from '../tools/synth/generateNetwork.js';
-import { allocSeries, SERIES_FIELDS, type StationSeries } from '../src/series/series.js';
+import { allocSeries, SERIES_FIELDS, type StationSeries } from '../src/model/index.js';
 import { applyQc } from '../src/qc/qc.js';
 import { analyseSeries } from '../src/analyse.js';
 import { naiveDetect } from './naive.js';

@@ -6,7 +6,7 @@
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { StationMeta } from '../src/ingest/types.js';
+import type { StationMeta } from '../src/model/index.js';
 import { generateNetwork } from '../tools/synth/generateNetwork.js';
 import { toCsvText, type CsvConvention } from '../tools/synth/toCsvText.js';
 import { toMetarLines } from '../tools/synth/toMetarLines.js';

@@ -7,7 +7,7 @@
  * Usage: npm run bench:skill [-- --seed 20260301 --days 90 --json out.json]
  */
 import { rmSync, writeFileSync } from 'node:fs';
-import type { StationSeries } from '../src/series/series.js';
+import type { StationSeries } from '../src/model/index.js';
 import { writeBenchNetwork } from './skill-data.js';
 import type { TruthEvent } from '../tools/synth/types.js';
 import { naiveDetect } from './naive.js';

@@ -6,7 +6,7 @@
  */
 import { readFileSync } from 'node:fs';
 import yargs, { type Argv } from 'yargs';
-import { BOUNDARY_KINDS } from '../src/detect/types.js';
+import { BOUNDARY_KINDS } from '../src/model/index.js';
 import { CAUTION } from '../src/report/caution.js';
 import { STDIN_TOKEN, withInputOptions, type CliIo } from './options.js';
 

@@ -3,11 +3,10 @@
  * more located stations) track the fronts across the network, add their kinematic frontogenesis, and give
  * each tracked passage the zone depth and gradient from the fitted speed. Pure; the CLI commands share it.
  */
-import type { StationMeta } from './ingest/types.js';
-import type { StationSeries } from './series/series.js';
-import type { BoundaryKind, DetectOptions, PassageEvent } from './detect/types.js';
+import type { BoundaryKind, FrontTrack, PassageEvent, StationMeta, StationSeries } from './model/index.js';
+import type { DetectOptions } from './detect/types.js';
 import { detectStation } from './detect/detect.js';
-import { trackFronts, withTrackSpeeds, type FrontTrack } from './network/track.js';
+import { trackFronts, withTrackSpeeds } from './network/track.js';
 import { withFrontogenesis } from './network/frontogenesis.js';
 
 export interface AnalyseOptions extends DetectOptions {

@@ -5,7 +5,7 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
-import type { StationMeta } from '../src/ingest/types.js';
+import type { StationMeta } from '../src/model/index.js';
 import { generateNetwork } from '../tools/synth/generateNetwork.js';
 import { makeRng } from '../tools/synth/random.js';
 import { toCsvText, type CsvConvention } from '../tools/synth/toCsvText.js';

@@ -1,6 +1,6 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
 import { loadPaths } from '../../src/ingest/load.js';
-import type { StationMeta } from '../../src/ingest/types.js';
+import type { StationMeta } from '../../src/model/index.js';
 import { analyseSeries } from '../../src/analyse.js';
 import { CAUTION } from '../../src/report/caution.js';
 import { reportHtml } from '../../src/report/html/reportHtml.js';

@@ -4,8 +4,7 @@
  * boundary: Wakimoto1982; sea-breeze front: Miller2003; wind shift: FMH-1 §5.4.6), with the criteria
  * that held and failed written as evidence. Thresholds are common practice, no source.
  */
-import type { StationMeta } from '../ingest/types.js';
-import type { BoundaryKind } from './types.js';
+import type { BoundaryKind, StationMeta } from '../model/index.js';
 import type { Features } from './features.js';
 import { angularDifferenceDeg } from '../physics/wind.js';
 

@@ -7,7 +7,7 @@
  * 4. keep the strongest candidate within ±3 h, time it on the raw reports (timing.ts), re-measure at
  *    that time, and add the transition zone, zone depth and observer remarks.
  */
-import type { StationSeries } from '../series/series.js';
+import type { PassageEvent, StationSeries } from '../model/index.js';
 import { medianCadenceMinutes } from '../series/series.js';
 import { pelt, peltMulti } from '../signal/pelt.js';
 import { buildGrid, type DetectGrid } from './grid.js';
@@ -15,7 +15,7 @@ import { lowerBound, measure, rawColumns, type Features, type RawColumns } from 
 import { classify, type Classification } from './classify.js';
 import { changeStart, windSplit, type SplitTime } from './timing.js';
 import { runningMean, meanIn } from './window.js';
-import type { DetectOptions, PassageEvent } from './types.js';
+import type { DetectOptions } from './types.js';
 
 const HOUR = 3_600_000;
 /** Candidates closer than this before timing are one change (the strongest is kept). common practice, no source. */

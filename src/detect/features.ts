@@ -3,8 +3,7 @@
  * looks at (wind before/after and its turn, temperature, dew point and θe change, pressure trough,
  * jump and rise, gusts, precipitation, recovery) plus the transition zone.
  */
-import type { StationSeries } from '../series/series.js';
-import { WX } from '../ingest/types.js';
+import { WX, type StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { signedTurnDeg, windFromComponents } from '../physics/wind.js';
 import type { DetectGrid } from './grid.js';

@@ -2,7 +2,7 @@
  * The detection grid: one station's QC-clean series put on a regular cadence (never interpolated across
  * long gaps), with wind as u/v, θe, the chosen pressure and a diurnally adjusted temperature.
  */
-import { QC, type StationSeries } from '../series/series.js';
+import { QC, type StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { resampleRegular, resampleWindUV } from '../signal/resample.js';
 import { diurnalAdjustment } from './diurnal.js';

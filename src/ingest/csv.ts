@@ -40,7 +40,7 @@
  *   (noted). Ids are trimmed, case kept.
  */
 import Papa from 'papaparse';
-import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from './types.js';
+import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from '../model/index.js';
 import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
 import { makeTimeReader, parseOffsetMinutes, type TimeReader } from './time.js';

@@ -5,13 +5,11 @@
  */
 import { closeSync, openSync, readSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, extname, join } from 'node:path';
-import type { FileReport, Observation, StationMeta } from './types.js';
-import { newFileReport } from './types.js';
+import { newFileReport, type FileReport, type Observation, type StationMeta, type StationSeries } from '../model/index.js';
 import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarBytes } from './metar.js';
 import { readCsvBytes, type CsvOptions, type RawReportDecoded } from './csv.js';
 import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, type StationIndex } from './stations.js';
 import type { ColumnOverride } from './columns.js';
-import type { StationSeries } from '../series/series.js';
 import { SeriesBuilder } from '../series/seriesBuilder.js';
 import { applyQc, type QcSummary } from '../qc/qc.js';
 import { stationPressureFromAltimeterHpa } from '../physics/pressure.js';

@@ -3,8 +3,7 @@
  * → Observations in canonical units, with a FileReport accounting for every line.
  * Code forms: WMO-No. 306 Manual on Codes FM 15 METAR / FM 16 SPECI; US remarks FMH-1 ch. 12.
  */
-import type { FileReport, Observation, ParseIssue } from './types.js';
-import { addIssue, emptyObservation, newFileReport } from './types.js';
+import { addIssue, emptyObservation, newFileReport, type FileReport, type Observation, type ParseIssue } from '../model/index.js';
 import { archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
 import { decodeBytesInto } from './metar/byteMetar.js';

@@ -8,7 +8,7 @@
  * Empty lat/lon/elevation cells are NaN (a station may be listed without coordinates).
  */
 import Papa from 'papaparse';
-import { addIssue, newFileReport, type FileReport, type StationMeta } from './types.js';
+import { addIssue, newFileReport, type FileReport, type StationMeta } from '../model/index.js';
 import { FOOT_M } from './units.js';
 
 type StationColumn = 'id' | 'lat' | 'lon' | 'elevationM' | 'elevationFt' | 'name' | 'alias' | 'coastal' | 'seaBearing';

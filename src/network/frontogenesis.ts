@@ -6,14 +6,12 @@
  * between the isentropes and the axis of dilatation. F > 0 is frontogenesis (the gradient tightens), F < 0
  * frontolysis. Gradients come from station planes (gradient.ts).
  */
-import type { StationSeries } from '../series/series.js';
-import type { StationMeta } from '../ingest/types.js';
+import type { FrontTrack, StationMeta, StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { projectLocalKm } from '../physics/geo.js';
 import { potentialTemperatureK } from '../physics/theta.js';
 import { windComponents } from '../physics/wind.js';
 import { planeGradient } from './gradient.js';
-import type { FrontTrack } from './track.js';
 
 /** K m⁻¹ s⁻¹ → K per 100 km per 3 h (10⁵ m × 10 800 s). */
 export const PER_M_PER_S_TO_PER_100KM_PER_3H = 1e5 * 10800;

@@ -3,7 +3,7 @@
  * Flags go into `series.qc[field]` (QC bits); values are kept and shown, and excluded from detection
  * through `cleanColumn`.
  */
-import { QC, SERIES_FIELDS, type SeriesField, type StationSeries } from '../series/series.js';
+import { QC, SERIES_FIELDS, type SeriesField, type StationSeries } from '../model/index.js';
 import { DEWPOINT_EXCESS_C, PERSIST_HOURS, RANGE_LIMITS, RATE_LIMITS_PER_HOUR, SPIKE_LIMITS } from './limits.js';
 
 export interface QcSummary {

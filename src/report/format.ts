@@ -7,7 +7,7 @@
  * one cell joined with `; ` in CSV.
  */
 import { DateTime } from 'luxon';
-import type { PassageEvent } from '../detect/types.js';
+import type { PassageEvent } from '../model/index.js';
 import { CAUTION } from './caution.js';
 
 export { inspectToTable } from './inspect.js';

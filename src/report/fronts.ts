@@ -2,7 +2,7 @@
  * Output writers for fronts tracked across a network: one record per front (CSV, JSON) and a table for
  * people. Pure functions. Times ISO 8601 UTC; directions are where the front moves toward, degrees true.
  */
-import type { FrontTrack } from '../network/track.js';
+import type { FrontTrack } from '../model/index.js';
 import { alignColumns, csvCell, isoUtc, roundOrNull, type RecordValue } from './format.js';
 
 export const FRONT_COLUMNS = [

@@ -3,8 +3,8 @@
  * units, column mapping, notes) and, for the stations found in it, period, cadence, duplicates,
  * observer remarks, QC flags and metadata. Pure: built from the loader's reports and series.
  */
-import type { FileReport, ParseIssue } from '../ingest/types.js';
-import { medianCadenceMinutes, type StationSeries } from '../series/series.js';
+import type { FileReport, ParseIssue, StationSeries } from '../model/index.js';
+import { medianCadenceMinutes } from '../series/series.js';
 import type { QcSummary } from '../qc/qc.js';
 import { isoUtc, roundOrNull } from './format.js';
 

@@ -11,10 +11,9 @@
  * when the stations file lists the alias.
  */
 import Papa from 'papaparse';
-import { BOUNDARY_KINDS, type BoundaryKind } from '../detect/types.js';
+import { BOUNDARY_KINDS, addIssue, newFileReport, type BoundaryKind, type FileReport } from '../model/index.js';
 import { parseTime, type TimeOptions } from '../ingest/time.js';
 import { resolveStation, type StationIndex } from '../ingest/stations.js';
-import { addIssue, newFileReport, type FileReport } from '../ingest/types.js';
 
 /** One forecast passage at a station. */
 export interface ForecastPassage {

@@ -22,7 +22,7 @@
  *   [lo, hi)); `unknown` without an issued time. A miss has no forecast, hence no lead time: lead-time
  *   bins count hits and false alarms only, and their POD, CSI and bias are NaN.
  */
-import type { BoundaryKind, PassageEvent } from '../detect/types.js';
+import type { BoundaryKind, PassageEvent } from '../model/index.js';
 import { csi, far, frequencyBias, matchOneToOne, pod, type Timed } from './contingency.js';
 import { ANY_FRONT_KINDS, type ForecastPassage } from './forecasts.js';
 import { quantile } from './quantile.js';

@@ -10,7 +10,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { loadPaths } from '../../src/ingest/load.js';
 import { detectStation } from '../../src/detect/detect.js';
-import type { PassageEvent } from '../../src/detect/types.js';
+import type { PassageEvent } from '../../src/model/index.js';
 
 const dir = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
 const have = existsSync(dir);

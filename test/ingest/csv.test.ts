@@ -7,7 +7,7 @@ import { assertClose } from '../helpers/assert.js';
 import fc from 'fast-check';
 import { CsvCore, decimalValue, readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
 import { parseColumnOverride } from '../../src/ingest/columns.js';
-import { WX, type Observation } from '../../src/ingest/types.js';
+import { WX, type Observation } from '../../src/model/index.js';
 
 const realdata = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
 function realText(name: string): string | null {

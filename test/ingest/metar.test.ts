@@ -16,7 +16,7 @@ import {
   STATUTE_MILE_M,
   type MetarReport,
 } from '../../src/ingest/metar.js';
-import { WX, type Observation, type ParseIssue } from '../../src/ingest/types.js';
+import { WX, type Observation, type ParseIssue } from '../../src/model/index.js';
 import { readFileSync } from 'node:fs';
 import { readMetarText } from '../../src/ingest/metar.js';
 

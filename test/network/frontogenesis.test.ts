@@ -5,10 +5,8 @@ import { petterssenFrontogenesis, PER_M_PER_S_TO_PER_100KM_PER_3H } from '../../
 import { projectLocalKm } from '../../src/physics/geo.js';
 import { withFrontogenesis, standardPressureHpa, valueAt } from '../../src/network/frontogenesis.js';
 import { trackFronts } from '../../src/network/track.js';
-import { allocSeries } from '../../src/series/series.js';
+import { allocSeries, type PassageEvent, type StationMeta } from '../../src/model/index.js';
 import { windFromComponents } from '../../src/physics/wind.js';
-import type { StationMeta } from '../../src/ingest/types.js';
-import type { PassageEvent } from '../../src/detect/types.js';
 import { assertClose } from '../helpers/assert.js';
 
 // Petterssen 2-D kinematic frontogenesis, worked cases computed from the published expanded form

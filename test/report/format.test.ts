@@ -1,7 +1,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import Papa from 'papaparse';
-import type { PassageEvent } from '../../src/detect/types.js';
+import type { PassageEvent } from '../../src/model/index.js';
 import {
   EVENT_COLUMNS,
   csvCell,

@@ -5,7 +5,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { buildStationIndex } from '../../src/ingest/stations.js';
-import type { StationMeta } from '../../src/ingest/types.js';
+import type { StationMeta } from '../../src/model/index.js';
 import { parseForecastKind, readForecastsText } from '../../src/verify/forecasts.js';
 
 const stations: StationMeta[] = [

@@ -1,7 +1,7 @@
 /** Verification writers: record contract, outcomes, empty cells, table header and caution. Constructed example (invented times). */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import type { PassageEvent } from '../../src/detect/types.js';
+import type { PassageEvent } from '../../src/model/index.js';
 import type { ForecastPassage } from '../../src/verify/forecasts.js';
 import { verifyForecasts } from '../../src/verify/verify.js';
 import { verificationToCsv, verificationToJson, verificationToTable, VERIFY_COLUMNS } from '../../src/verify/format.js';

@@ -6,7 +6,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { assertClose } from '../helpers/assert.js';
-import type { BoundaryKind, PassageEvent } from '../../src/detect/types.js';
+import type { BoundaryKind, PassageEvent } from '../../src/model/index.js';
 import type { ForecastPassage } from '../../src/verify/forecasts.js';
 import { leadBin, scoresOf, verifyForecasts } from '../../src/verify/verify.js';
 

@@ -7,7 +7,7 @@
  * mirrors station y (north) coordinates and wind directions, so one set of physics serves both.
  * Magnitudes are common practice, no source (see the design notes on station signatures).
  */
-import type { StationMeta } from '../../src/ingest/types.js';
+import type { StationMeta } from '../../src/model/index.js';
 import type { Rng } from './random.js';
 import { localSolarHour, solarTimeToUtcMs, sunTimes, dayOfYear } from './solarClock.js';
 import type { SynthEventPlan } from './types.js';

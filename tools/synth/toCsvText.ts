@@ -9,7 +9,7 @@
  * - `local-naive`: as `local-offset` without the offset column (the reader needs the zone, e.g. `--tz`).
  */
 import { DateTime } from 'luxon';
-import type { StationMeta } from '../../src/ingest/types.js';
+import type { StationMeta } from '../../src/model/index.js';
 import { makeRng } from './random.js';
 import { altimeterHpaFromStation } from './toMetarLines.js';
 import type { SynthSeries } from './types.js';

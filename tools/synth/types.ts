@@ -1,7 +1,5 @@
 /** Types of the synthetic weather generator: configuration, columnar output, planted truth. */
-import type { BoundaryKind } from '../../src/detect/types.js';
-import type { StationMeta } from '../../src/ingest/types.js';
-import type { FieldColumns } from '../../src/series/series.js';
+import type { BoundaryKind, FieldColumns, StationMeta } from '../../src/model/index.js';
 
 /** Decoy kinds: things that look a little like fronts but are not synoptic fronts. */
 export const DECOY_KINDS = ['night-cooling', 'outflow-boundary', 'sea-breeze-front', 'prefrontal-trough', 'dryline-retreat'] as const;

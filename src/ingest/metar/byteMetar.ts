@@ -7,7 +7,7 @@
  * (test/ingest/metar-fastpath.test.ts checks it line by line). The group decoders are shared with the
  * general decoder (groups.ts).
  */
-import { WX } from '../types.js';
+import { WX } from '../../model/index.js';
 import { reportTimeMs } from './calendar.js';
 import { knownStation, internStation, resetReport, type DecodeRef, type MetarReport } from './decodeMetar.js';
 import {

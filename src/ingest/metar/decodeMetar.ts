@@ -4,8 +4,7 @@
  * A report decodes into a MetarReport, or into a ParseIssue when it has no usable station and time.
  * Unknown or cut-off groups are kept in `unknownGroups` and never abort a report.
  */
-import type { ObserverRemark, ParseIssue } from '../types.js';
-import { WX } from '../types.js';
+import { WX, type ObserverRemark, type ParseIssue } from '../../model/index.js';
 import { reportTimeMs, type MonthRef } from './calendar.js';
 import { asciiBytes } from './ascii.js';
 import { asciiView, compassSuffix, dg, digits, isWord, k3, kw, pressureGroup, skyGroup, slashes, statuteMiles, tempGroup, windGroup } from './groups.js';

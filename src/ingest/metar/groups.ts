@@ -3,7 +3,7 @@
  * (decodeInto and decodeRemarks, on the ASCII view of their text) and the single-pass byte decoder.
  * Each takes the group at u[a, b) and returns whether it fits (writing into the report when it does).
  */
-import { WX } from '../types.js';
+import { WX } from '../../model/index.js';
 import type { MetarReport } from './decodeMetar.js';
 import { INHG_HPA, KMH_MS, KNOT_MS } from './units.js';
 import { weatherFlagsAt } from './weather.js';

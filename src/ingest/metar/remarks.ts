@@ -2,8 +2,7 @@
  * US remarks section of METAR/SPECI (after `RMK`), per FMH-1 ch. 12 §12.7 (automated, manual and plain
  * language remarks; additive and maintenance data). Decoded by char codes; unknown groups are kept.
  */
-import type { ObserverRemark } from '../types.js';
-import { WX } from '../types.js';
+import { WX, type ObserverRemark } from '../../model/index.js';
 import { unknown, type MetarReport } from './decodeMetar.js';
 import { beginEnd, dg, digits, hhmm, isWord, peakWind, remarkTimeMs, signedTenths, slashes } from './groups.js';
 import { INCH_MM } from './units.js';

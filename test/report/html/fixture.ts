@@ -1,6 +1,5 @@
 /** Invented small series and passage for the report tests (not physics checks). */
-import type { PassageEvent } from '../../../src/detect/types.js';
-import { allocSeries, type StationSeries } from '../../../src/series/series.js';
+import { allocSeries, type PassageEvent, type StationSeries } from '../../../src/model/index.js';
 
 export const H = 3_600_000;
 export const T0 = Date.UTC(2026, 2, 2, 0, 0);
