@@ -9,6 +9,7 @@ export { applyQc, cleanColumn } from './qc/qc.js';
 export { detectStation } from './detect/detect.js';
 export * from './detect/types.js';
 export * from './report/format.js';
+export { buildInspect, inspectToTable, issueLine } from './report/inspect.js';
 export * from './report/fronts.js';
 export * from './network/track.js';
 export { withFrontogenesis, petterssenFrontogenesis } from './network/frontogenesis.js';

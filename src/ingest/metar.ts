@@ -5,7 +5,8 @@
  */
 import { addIssue, emptyObservation, newFileReport, type FileReport, type Observation, type ParseIssue } from '../model/index.js';
 import { archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
-import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
+import { decodeInto, type DecodeRef } from './metar/decodeMetar.js';
+import { newMetarReport, type MetarReport } from './metar/metarReport.js';
 import { decodeBytesInto } from './metar/byteMetar.js';
 
 export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';

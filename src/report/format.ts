@@ -10,8 +10,6 @@ import { DateTime } from 'luxon';
 import type { PassageEvent } from '../model/index.js';
 import { CAUTION } from './caution.js';
 
-export { inspectToTable } from './inspect.js';
-
 /** Output columns, in contract order (CSV header, JSON key order). */
 export const EVENT_COLUMNS = [
   'station',

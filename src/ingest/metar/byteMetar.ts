@@ -9,7 +9,8 @@
  */
 import { WX } from '../../model/index.js';
 import { reportTimeMs } from './calendar.js';
-import { knownStation, internStation, resetReport, type DecodeRef, type MetarReport } from './decodeMetar.js';
+import { knownStation, internStation, type DecodeRef } from './decodeMetar.js';
+import { resetReport, type MetarReport } from './metarReport.js';
 import {
   beginEnd,
   dg,

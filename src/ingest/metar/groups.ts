@@ -4,7 +4,7 @@
  * Each takes the group at u[a, b) and returns whether it fits (writing into the report when it does).
  */
 import { WX } from '../../model/index.js';
-import type { MetarReport } from './decodeMetar.js';
+import type { MetarReport } from './metarReport.js';
 import { INHG_HPA, KMH_MS, KNOT_MS } from './units.js';
 import { weatherFlagsAt } from './weather.js';
 

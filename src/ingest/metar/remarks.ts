@@ -3,7 +3,7 @@
  * language remarks; additive and maintenance data). Decoded by char codes; unknown groups are kept.
  */
 import { WX, type ObserverRemark } from '../../model/index.js';
-import { unknown, type MetarReport } from './decodeMetar.js';
+import { unknown, type MetarReport } from './metarReport.js';
 import { beginEnd, dg, digits, hhmm, isWord, peakWind, remarkTimeMs, signedTenths, slashes } from './groups.js';
 import { INCH_MM } from './units.js';
 import { weatherFlagsAt } from './weather.js';
