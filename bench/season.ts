@@ -9,7 +9,7 @@
 import { generateNetwork } from '../tools/synth/generateNetwork.js';
 import { allocSeries, SERIES_FIELDS, type StationSeries } from '../src/model/index.js';
 import { applyQc } from '../src/qc/qc.js';
-import { analyseSeries } from '../src/analyse.js';
+import { analyseSeries } from '../src/pipeline.js';
 import { naiveDetect } from './naive.js';
 import { benchStations } from './skill-data.js';
 

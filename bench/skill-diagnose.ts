@@ -7,7 +7,7 @@
  *        [--show false|misses|kinds|late] [--min-confidence X]
  */
 import { rmSync } from 'node:fs';
-import { loadPaths } from '../src/ingest/load.js';
+import { loadPaths } from '../src/pipeline.js';
 import { detectStation } from '../src/detect/detect.js';
 import type { TruthEvent } from '../tools/synth/types.js';
 import { writeBenchNetwork } from './skill-data.js';

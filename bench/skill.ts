@@ -37,16 +37,16 @@ async function importOrExplain(): Promise<{ loadPaths: LoadFn; detectStation: De
   let loadPaths: LoadFn;
   let detectStation: DetectFn;
   try {
-    ({ loadPaths } = (await import('../src/ingest/load.js')) as unknown as { loadPaths: LoadFn });
+    ({ loadPaths } = (await import('../src/pipeline.js')) as unknown as { loadPaths: LoadFn });
   } catch (e) {
-    throw new Error(`bench:skill needs src/ingest/load.ts (loadPaths), which could not be loaded: ${(e as Error).message}`);
+    throw new Error(`bench:skill needs src/pipeline.ts (loadPaths), which could not be loaded: ${(e as Error).message}`);
   }
   try {
     ({ detectStation } = (await import('../src/detect/detect.js')) as unknown as { detectStation: DetectFn });
   } catch (e) {
     throw new Error(`bench:skill needs src/detect/detect.ts (detectStation), which could not be loaded: ${(e as Error).message}`);
   }
-  if (typeof loadPaths !== 'function') throw new Error('src/ingest/load.ts does not export loadPaths');
+  if (typeof loadPaths !== 'function') throw new Error('src/pipeline.ts does not export loadPaths');
   if (typeof detectStation !== 'function') throw new Error('src/detect/detect.ts does not export detectStation');
   return { loadPaths, detectStation };
 }

@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Argv } from 'yargs';
-import type { LoadOptions } from '../src/ingest/load.js';
+import type { LoadOptions } from '../src/pipeline.js';
 
 /** Standard streams of one CLI run, injectable for in-process tests. */
 export interface CliIo {

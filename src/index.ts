@@ -1,7 +1,7 @@
 /** fropa library surface. The CLI lives in cli/ and is not exported here. */
 export * from './ingest/types.js';
 export * from './series/series.js';
-export { loadPaths, UsageError, type LoadOptions, type LoadResult } from './ingest/load.js';
+export { loadPaths, type LoadOptions, type LoadResult } from './pipeline.js';
 export { readMetarText, readMetarBytes, decodeMetar } from './ingest/metar.js';
 export { readCsvText, readCsvBytes, readCsvStream } from './ingest/csv.js';
 export { readStationsText } from './ingest/stations.js';
@@ -18,4 +18,4 @@ export * from './verify/contingency.js';
 export { verifyForecasts } from './verify/verify.js';
 export { readForecastsText } from './verify/forecasts.js';
 export * as physics from './physics/index.js';
-export { analyseSeries, sortEvents, type AnalyseOptions, type Analysis } from './analyse.js';
+export { analyseSeries, checkAnalyseOptions, sortEvents, type AnalyseOptions, type Analysis } from './pipeline.js';

@@ -1,8 +1,8 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { loadPaths } from '../../src/ingest/load.js';
-import { analyseSeries } from '../../src/analyse.js';
+import { loadPaths } from '../../src/pipeline.js';
+import { analyseSeries } from '../../src/pipeline.js';
 import { BOUNDARY_KINDS, type BoundaryKind } from '../../src/model/index.js';
 import { type DetectOptions } from '../../src/detect/types.js';
 import { eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, summaryLines } from '../../src/report/format.js';
@@ -46,7 +46,7 @@ function lastNumber(v: unknown): number | undefined {
   return typeof x === 'number' ? x : Number(x);
 }
 
-export { sortEvents } from '../../src/analyse.js';
+export { sortEvents } from '../../src/pipeline.js';
 
 /** Run detect; returns the exit code (1 when no station has data). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {

@@ -1,5 +1,5 @@
 /** `fropa inspect <paths...>`: how each file was read, and what each station holds. */
-import { loadPaths } from '../../src/ingest/load.js';
+import { loadPaths } from '../../src/pipeline.js';
 import { buildInspect, inspectToTable, issueLine } from '../../src/report/inspect.js';
 import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 

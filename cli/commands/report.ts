@@ -1,7 +1,7 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
-import { loadPaths } from '../../src/ingest/load.js';
+import { loadPaths } from '../../src/pipeline.js';
 import type { StationMeta } from '../../src/model/index.js';
-import { analyseSeries } from '../../src/analyse.js';
+import { analyseSeries } from '../../src/pipeline.js';
 import { CAUTION } from '../../src/report/caution.js';
 import { reportHtml } from '../../src/report/html/reportHtml.js';
 import { ArgumentError, STDIN_TOKEN, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';

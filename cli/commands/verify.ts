@@ -1,9 +1,9 @@
 /** `fropa verify <paths...> --forecasts FILE`: detect passages in the observations, verify forecast passage times against them. */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { loadPaths } from '../../src/ingest/load.js';
+import { loadPaths } from '../../src/pipeline.js';
 import { buildStationIndex } from '../../src/ingest/stations.js';
-import { analyseSeries } from '../../src/analyse.js';
+import { analyseSeries } from '../../src/pipeline.js';
 import { readForecastsText } from '../../src/verify/forecasts.js';
 import { verifyForecasts } from '../../src/verify/verify.js';
 import { verificationToCsv, verificationToJson, verificationToTable } from '../../src/verify/format.js';

@@ -6,3 +6,4 @@ export * from './fileReport.js';
 export * from './series.js';
 export * from './event.js';
 export * from './track.js';
+export * from './usageError.js';

@@ -8,7 +8,7 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { loadPaths } from '../../src/ingest/load.js';
+import { loadPaths } from '../../src/pipeline.js';
 import { detectStation } from '../../src/detect/detect.js';
 import type { PassageEvent } from '../../src/model/index.js';
 

@@ -4,7 +4,7 @@ import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { fitPlane, motionFromSlowness, trackFronts, withTrackSpeeds } from '../../src/network/track.js';
 import type { PassageEvent, StationMeta } from '../../src/model/index.js';
-import { loadPaths } from '../../src/ingest/load.js';
+import { loadPaths } from '../../src/pipeline.js';
 import { detectStation } from '../../src/detect/detect.js';
 import { projectLocalKm } from '../../src/physics/geo.js';
 import { assertClose } from '../helpers/assert.js';
