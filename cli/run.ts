@@ -6,8 +6,7 @@
  */
 import { readFileSync } from 'node:fs';
 import yargs, { type Argv } from 'yargs';
-import { BOUNDARY_KINDS } from '../src/model/index.js';
-import { CAUTION } from '../src/report/caution.js';
+import { BOUNDARY_KINDS, CAUTION, UsageError } from '../src/index.js';
 import { STDIN_TOKEN, withInputOptions, type CliIo } from './options.js';
 
 export type { CliIo } from './options.js';
@@ -132,7 +131,7 @@ function parser(onSelect: (s: Selected) => void) {
     .strict()
     .exitProcess(false)
     .fail((msg, err) => {
-      throw Object.assign(new Error(msg || err?.message || 'invalid arguments'), { name: 'UsageError', fromParser: true });
+      throw Object.assign(new UsageError(msg || err?.message || 'invalid arguments'), { fromParser: true });
     })
     .help()
     .alias('h', 'help')
@@ -172,7 +171,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     return await mod.run(sel.args, io);
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));
-    const usage = err.name === 'UsageError';
+    const usage = err instanceof UsageError;
     io.stderr(`fropa: ${err.message.split(STDIN_TOKEN).join('-')}\n`);
     if ((err as { fromParser?: boolean }).fromParser) io.stderr('Run fropa --help (or fropa <command> --help) for usage.\n');
     if (verbose && err.stack) io.stderr(err.stack + '\n');

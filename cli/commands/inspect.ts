@@ -1,6 +1,5 @@
 /** `fropa inspect <paths...>`: how each file was read, and what each station holds. */
-import { loadPaths } from '../../src/pipeline.js';
-import { buildInspect, inspectToTable, issueLine } from '../../src/report/inspect.js';
+import { buildInspect, inspectToTable, issueLine, loadPaths, type FileReport } from '../../src/index.js';
 import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 
 /** Run inspect; returns the exit code (1 when no file yielded an observation). */
@@ -19,7 +18,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
 }
 
 /** `fropa: no usable data in …` plus the first issues and notes that say why, each naming its file. */
-export function noDataMessage(paths: readonly string[], reports: ReturnType<typeof loadPaths>['reports']): string {
+export function noDataMessage(paths: readonly string[], reports: readonly FileReport[]): string {
   const lines = [`fropa: no usable data in ${paths.join(', ')}`];
   for (const r of reports) {
     if (r.format === 'stations') continue;

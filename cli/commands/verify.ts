@@ -1,31 +1,25 @@
 /** `fropa verify <paths...> --forecasts FILE`: detect passages in the observations, verify forecast passage times against them. */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { loadPaths } from '../../src/pipeline.js';
-import { buildStationIndex } from '../../src/ingest/stations.js';
-import { analyseSeries } from '../../src/pipeline.js';
-import { readForecastsText } from '../../src/verify/forecasts.js';
-import { verifyForecasts } from '../../src/verify/verify.js';
-import { verificationToCsv, verificationToJson, verificationToTable } from '../../src/verify/format.js';
-import { ArgumentError, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { analyseSeries, buildStationIndex, issueLine, loadPaths, readForecastsText, verificationToCsv, verificationToJson, verificationToTable, verifyForecasts, UsageError } from '../../src/index.js';
+import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
 import { noDataMessage } from './inspect.js';
-import { issueLine } from '../../src/report/inspect.js';
 
 /** Run verify; returns the exit code (1 when there are no observations or no usable forecasts). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
   const args = inputArgs(raw);
   const forecastFile = raw.forecasts === undefined ? undefined : String(Array.isArray(raw.forecasts) ? raw.forecasts[raw.forecasts.length - 1] : raw.forecasts);
-  if (!forecastFile) throw new ArgumentError('--forecasts FILE is required: a CSV of station, kind, forecast_time, issued_time');
+  if (!forecastFile) throw new UsageError('--forecasts FILE is required: a CSV of station, kind, forecast_time, issued_time');
   const kinds = parseKinds(raw.kinds);
   const dopts = detectOptions(raw);
   const windowHours = raw.windowHours === undefined ? 6 : Number(Array.isArray(raw.windowHours) ? raw.windowHours[raw.windowHours.length - 1] : raw.windowHours);
-  if (!(windowHours > 0 && windowHours <= 72)) throw new ArgumentError('--window-hours must be a number of hours above 0 and at most 72 (default 6)');
+  if (!(windowHours > 0 && windowHours <= 72)) throw new UsageError('--window-hours must be a number of hours above 0 and at most 72 (default 6)');
   let text: string;
   try {
     text = readFileSync(forecastFile, 'utf8');
   } catch {
-    throw new ArgumentError(`${forecastFile}: cannot read the forecast file`);
+    throw new UsageError(`${forecastFile}: cannot read the forecast file`);
   }
   const opts = await resolveLoadOptions(args, io);
   // The forecast file may sit inside an observation folder; the loader's note that it skipped it is noise here.
