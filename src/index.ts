@@ -25,7 +25,7 @@ export type {
 } from './model/index.js';
 
 // The pipeline: read → series → station pressure → QC (loadPaths); detect → track → frontogenesis (analyseSeries).
-export { analyseSeries, checkAnalyseOptions, loadPaths, sortEvents } from './pipeline.js';
+export { analyseSeries, loadPaths, sortEvents } from './pipeline.js';
 export type { AnalyseOptions, Analysis, LoadOptions, LoadResult } from './pipeline.js';
 
 // Readers: text or bytes → observations (or parse issues) and a file report.
@@ -44,7 +44,7 @@ export type { ForecastPassage, ForecastReadOptions } from './verify/forecasts.js
 export { buildSeries } from './series/series.js';
 export { applyQc } from './qc/qc.js';
 export type { QcSummary } from './qc/qc.js';
-export { detectStation } from './detect/detect.js';
+export { checkDetectOptions, detectStation } from './detect/detect.js';
 export type { DetectOptions } from './detect/types.js';
 export { trackFronts } from './network/track.js';
 export type { TrackOptions } from './network/track.js';

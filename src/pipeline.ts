@@ -11,7 +11,7 @@ import { SeriesBuilder } from './series/seriesBuilder.js';
 import { deriveStationPressure } from './series/deriveStationPressure.js';
 import { applyQc, type QcSummary } from './qc/qc.js';
 import type { DetectOptions } from './detect/types.js';
-import { detectStation } from './detect/detect.js';
+import { checkDetectOptions, detectStation } from './detect/detect.js';
 import { trackFronts, withTrackSpeeds } from './network/track.js';
 import { withFrontogenesis } from './network/frontogenesis.js';
 
@@ -81,22 +81,12 @@ export function sortEvents(events: PassageEvent[]): PassageEvent[] {
 }
 
 /**
- * Check detection options: `frontSpeedKmh` must be a finite speed above 0, `minConfidence` a number from 0 to 1.
- * Throws RangeError (a UsageError would name CLI flags; these name the option fields).
- */
-export function checkAnalyseOptions(opts: AnalyseOptions): void {
-  const fs = opts.frontSpeedKmh;
-  if (fs !== undefined && !(Number.isFinite(fs) && fs > 0)) throw new RangeError(`frontSpeedKmh must be a speed in km/h above 0, got ${fs}`);
-  const mc = opts.minConfidence;
-  if (mc !== undefined && !(mc >= 0 && mc <= 1)) throw new RangeError(`minConfidence must be a number from 0 to 1, got ${mc}`);
-}
-
-/**
  * Detect, track and measure. A failure at one station is re-thrown with the station's id.
- * Throws RangeError for a non-positive or non-finite `frontSpeedKmh` or a `minConfidence` outside 0–1.
+ * Throws RangeError for a non-positive or non-finite `frontSpeedKmh` or a `minConfidence` outside 0–1
+ * (checkDetectOptions), before any work.
  */
 export function analyseSeries(series: readonly StationSeries[], opts: AnalyseOptions = {}): Analysis {
-  checkAnalyseOptions(opts);
+  checkDetectOptions(opts);
   let all: PassageEvent[] = [];
   for (const s of series) {
     try {

@@ -56,8 +56,24 @@ function gridIndex(g: DetectGrid, tMs: number): number {
   return Math.max(0, Math.min(g.n - 1, Math.round((tMs - g.timeMs[0]!) / g.stepMs)));
 }
 
-/** Detect every boundary passage at one station. Pure: same series and options → same events. */
+/**
+ * Check detection options: `frontSpeedKmh` must be a finite speed above 0 km/h, `minConfidence` a number from 0
+ * to 1. Throws RangeError naming the field (never a silent NaN downstream).
+ * @example checkDetectOptions({ frontSpeedKmh: 0 }) // throws RangeError
+ */
+export function checkDetectOptions(opts: DetectOptions): void {
+  const fs = opts.frontSpeedKmh;
+  if (fs !== undefined && !(Number.isFinite(fs) && fs > 0)) throw new RangeError(`frontSpeedKmh must be a speed in km/h above 0, got ${fs}`);
+  const mc = opts.minConfidence;
+  if (mc !== undefined && !(mc >= 0 && mc <= 1)) throw new RangeError(`minConfidence must be a number from 0 to 1, got ${mc}`);
+}
+
+/**
+ * Detect every boundary passage at one station. Pure: same series and options → same events.
+ * Throws RangeError for bad options (see checkDetectOptions).
+ */
 export function detectStation(series: StationSeries, opts: DetectOptions = {}): PassageEvent[] {
+  checkDetectOptions(opts);
   const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
   const cadence = medianCadenceMinutes(series.timeMs);
   const g = buildGrid(series, cadence);
