@@ -1,7 +1,6 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { analyseSeries, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError } from '../../src/index.js';
+import { analyseSeries, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
 import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
-import { noDataMessage } from './inspect.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
 export function parseKinds(spec: unknown): Set<BoundaryKind> | null {

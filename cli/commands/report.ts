@@ -1,8 +1,7 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
-import { analyseSeries, CAUTION, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta } from '../../src/index.js';
+import { analyseSeries, CAUTION, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
 import { STDIN_TOKEN, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
-import { noDataMessage } from './inspect.js';
 
 /** The last value of `--from`/`--to` (undefined when absent) as epoch ms UTC; see parsePeriodTime. */
 export function parseReportTime(v: unknown, name: string, endOfDay = false): number | undefined {

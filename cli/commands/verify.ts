@@ -1,10 +1,9 @@
 /** `fropa verify <paths...> --forecasts FILE`: detect passages in the observations, verify forecast passage times against them. */
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
-import { analyseSeries, buildStationIndex, issueLine, loadPaths, readForecastsText, verificationToCsv, verificationToJson, verificationToTable, verifyForecasts, UsageError } from '../../src/index.js';
+import { analyseSeries, buildStationIndex, issueLine, loadPaths, readForecastsText, verificationToCsv, verificationToJson, verificationToTable, verifyForecasts, UsageError, noDataMessage } from '../../src/index.js';
 import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
-import { noDataMessage } from './inspect.js';
 
 /** Run verify; returns the exit code (1 when there are no observations or no usable forecasts). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
