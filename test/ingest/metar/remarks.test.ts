@@ -4,9 +4,9 @@
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { assertClose } from '../helpers/assert.js';
-import { decodeMetar, isParseIssue, KNOT_MS, type MetarReport } from '../../src/ingest/metar.js';
-import { WX } from '../../src/ingest/types.js';
+import { assertClose } from '../../helpers/assert.js';
+import { decodeMetar, isParseIssue, KNOT_MS, type MetarReport } from '../../../src/ingest/metar.js';
+import { WX } from '../../../src/ingest/types.js';
 
 const REF = { year: 2020, month: 2, file: 'rmk.txt', line: 3 };
 /** A body with whole-degree 10/05 and the given remarks, at 2020-02-07 19:55Z. */
