@@ -134,6 +134,8 @@ test('classify() calls a midday onshore turn with slight cooling at a coastal st
 test('classify() calls an abrupt cooling that recovers, with a pressure jump and gusts, an outflow boundary (Wakimoto1982)', () => {
   const f = coldFront(90, { abruptChangeC: -5, tempAdjChangeC: -5, recoveryFraction: 0.7, pressureJumpHpa: 2.5, gustMaxMs: 20, convectiveNear: true, pressureFallBeforeHpa: 0, pressureRiseAfterHpa: 0 });
   const c = classify(f, undefined, 1);
+  // Wakimoto1982 (as cited by the module): gust front with a sharp temperature fall, pressure jump and gusts,
+  // followed by recovery; constructed: every factor of the outflow score is saturated
   assert.is(c.kind, 'outflow-boundary');
   assertClose(c.confidence, 1, 1e-12);
   assert.ok(c.evidence.includes('+ pressure jump 2.5 hPa within 30 min'));

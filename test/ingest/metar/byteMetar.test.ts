@@ -151,6 +151,7 @@ test('decodeBytesInto() reads "1 1/2SM" as one visibility (FMH-1 §12.6.6)', () 
 });
 
 test('decodeBytesInto() agrees with decodeInto(…, lite) on every report it takes', () => {
+  // constructed: the module's contract (same result as the general decoder in lite mode)
   for (const line of [M2, M3, M4, M5, M8, M9, M10]) assertSameReport(fast(line)!, general(line), line.slice(0, 12));
 });
 
