@@ -10,7 +10,7 @@
  * only for the figures and must never be used to tune. Both lists are fixed here; change them only with a note in
  * the README. Synthetic skill from our own generator is an upper bound.
  *
- * Usage: npm run bench:broad [-- --part tune|report] [--days 60] [--json out.json]
+ * Usage: npm run bench:broad [-- --part tune|report] [--days 90] [--json out.json]
  */
 import { mkdirSync, mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -35,7 +35,7 @@ const arg = (name: string, def: string) => {
 };
 const part = arg('part', 'report');
 if (part !== 'tune' && part !== 'report') throw new RangeError(`--part must be tune or report, got ${part}`);
-const days = Number(arg('days', '60'));
+const days = Number(arg('days', '90'));
 const jsonOut = args.includes('--json') ? arg('json', '') : '';
 const seeds = part === 'tune' ? TUNING_SEEDS : REPORTING_SEEDS;
 
