@@ -24,9 +24,9 @@ import { stationsCsvText } from './skill-data.js';
 import { MATCH_WINDOW_MS, REAL_KINDS, score, type Detected, type Scores } from './skill-score.js';
 
 /** Seeds to tune on (never reported). */
-export const TUNING_SEEDS = [5101, 5102, 5103] as const;
+const TUNING_SEEDS = [5101, 5102, 5103] as const;
 /** Seeds to report on (never used to tune). */
-export const REPORTING_SEEDS = [6201, 6202, 6203] as const;
+const REPORTING_SEEDS = [6201, 6202, 6203] as const;
 
 const args = process.argv.slice(2);
 const arg = (name: string, def: string) => {
@@ -34,7 +34,10 @@ const arg = (name: string, def: string) => {
   return i >= 0 && args[i + 1] !== undefined ? args[i + 1]! : def;
 };
 const part = arg('part', 'report');
-if (part !== 'tune' && part !== 'report') throw new RangeError(`--part must be tune or report, got ${part}`);
+if (part !== 'tune' && part !== 'report') {
+  console.error(`bench:broad: --part must be tune or report, got ${part}`);
+  process.exit(2);
+}
 const days = Number(arg('days', '90'));
 const jsonOut = args.includes('--json') ? arg('json', '') : '';
 const seeds = part === 'tune' ? TUNING_SEEDS : REPORTING_SEEDS;
