@@ -9,8 +9,7 @@ import { cleanColumn } from '../qc/qc.js';
 import { signedTurnDeg, windFromComponents } from '../physics/wind.js';
 import type { DetectGrid } from './grid.js';
 import { argExtremeIn, at, meanIn } from './window.js';
-
-const HOUR = 3_600_000;
+import { MS_PER_HOUR } from '../physics/constants.js';
 
 export interface Features {
   /** Grid index of the anchor (leading edge estimate). */
@@ -111,7 +110,7 @@ function meanWind(g: DetectGrid, lo: number, hi: number): { dirDeg: number; spee
 
 /** Measure the features of a candidate at grid index i. `tSmooth` is the 30-min running mean of tAdjC. */
 export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: number, tSmooth: Float64Array, tRawSmooth: Float64Array): Features {
-  const perH = HOUR / g.stepMs;
+  const perH = MS_PER_HOUR / g.stepMs;
   const before = meanWind(g, i - 2 * perH, i - Math.max(1, perH / 6));
   const after = meanWind(g, i + Math.max(1, perH / 3), i + 2 * perH);
   const beforeLong = meanWind(g, i - 3 * perH, i - perH / 2);
@@ -207,16 +206,16 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
   let gustMax = NaN;
   let precipNear = false;
   let convectiveNear = false;
-  for (let k = lowerBound(s.timeMs, tMs - HOUR); k < s.length && s.timeMs[k]! <= tMs + 2 * HOUR; k++) {
+  for (let k = lowerBound(s.timeMs, tMs - MS_PER_HOUR); k < s.length && s.timeMs[k]! <= tMs + 2 * MS_PER_HOUR; k++) {
     const cand = Math.max(gust[k]! || 0, peak[k]! || 0, spd[k]! || 0);
     if (cand > 0 && !(cand <= gustMax)) gustMax = cand;
-    if (Math.abs(s.timeMs[k]! - tMs) <= HOUR) {
+    if (Math.abs(s.timeMs[k]! - tMs) <= MS_PER_HOUR) {
       if (s.weather[k]! & WX.PRECIP || s.precipMm[k]! > 0) precipNear = true;
       if (s.weather[k]! & (WX.THUNDER | WX.CONVECTIVE | WX.HAIL | WX.SQUALL)) convectiveNear = true;
     }
   }
   const lon = s.meta?.lonDeg;
-  const solarHour = lon === undefined || Number.isNaN(lon) ? NaN : (((tMs / HOUR + lon / 15) % 24) + 24) % 24;
+  const solarHour = lon === undefined || Number.isNaN(lon) ? NaN : (((tMs / MS_PER_HOUR + lon / 15) % 24) + 24) % 24;
   const zoneEndMs = zoneEnd >= 0 ? g.timeMs[zoneEnd]! : NaN;
   return {
     index: i,
@@ -245,7 +244,7 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     convectiveNear,
     solarHour,
     zoneEndMs,
-    zoneHours: (zoneEndMs - tMs) / HOUR,
+    zoneHours: (zoneEndMs - tMs) / MS_PER_HOUR,
     moistureZoneEndMs: moistureZoneEnd >= 0 ? g.timeMs[moistureZoneEnd]! : NaN,
     windReturnDeg,
     pressureFallAfterPeakHpa,

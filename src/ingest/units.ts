@@ -14,6 +14,8 @@
  *   × 9.80665 m/s² = 3386.38864 Pa); 1 hPa = 100 Pa; 1 kPa = 10 hPa.
  */
 
+import { FOOT_M, INCH_M, KNOT_MS, MPH_MS, ZERO_CELSIUS_K } from '../physics/constants.js';
+
 export type UnitName =
   | 'degC'
   | 'degF'
@@ -39,26 +41,10 @@ export const UNIT_NAMES: readonly UnitName[] = ['degC', 'degF', 'K', 'm/s', 'kt'
 /** Kind of quantity a unit measures. `depth` = precipitation (canonical mm), `height` = elevation (canonical m). */
 export type Quantity = 'temperature' | 'speed' | 'pressure' | 'depth' | 'height' | 'angle' | 'fraction';
 
-/** International foot, m. NIST SP 811 (2008) App. B.8, exact. */
-export const FOOT_M = 0.3048;
-/** Inch, m. NIST SP 811 (2008) App. B.8, exact. */
-export const INCH_M = 0.0254;
-/** Statute mile, m. NIST SP 811 (2008) App. B.8, exact. */
-export const STATUTE_MILE_M = 1609.344;
-/** International nautical mile, m. NIST SP 811 (2008) App. B.8, exact. */
-export const NAUTICAL_MILE_M = 1852;
-/** Knot, m/s: 1852/3600 exactly. NIST SP 811 (2008) App. B.8. */
-export const KNOT_MS = NAUTICAL_MILE_M / 3600;
-/** Mile per hour, m/s: 1609.344/3600 = 0.44704 exactly. NIST SP 811 (2008) App. B.8. */
-export const MPH_MS = STATUTE_MILE_M / 3600;
-/** Kilometre per hour, m/s: 1/3.6 exactly (SI). */
-export const KMH_MS = 1 / 3.6;
 /** Conventional inch of mercury, Pa. NIST SP 811 (2008) App. B.8 (3.386 389 E+03). */
-export const INHG_PA = 3386.389;
+const INHG_PA = 3386.389;
 /** Conventional inch of mercury, hPa (derived). */
-export const INHG_HPA = INHG_PA / 100;
-/** 0 °C in kelvin (SI, exact). */
-export const ZERO_CELSIUS_K = 273.15;
+const INHG_HPA = INHG_PA / 100;
 
 const QUANTITY: Record<UnitName, Quantity> = {
   degC: 'temperature',

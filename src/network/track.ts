@@ -13,8 +13,7 @@
 import type { StationMeta } from '../ingest/types.js';
 import type { BoundaryKind, PassageEvent } from '../detect/types.js';
 import { projectLocalKm, stationDistanceKm } from '../physics/geo.js';
-
-const HOUR = 3_600_000;
+import { MS_PER_HOUR } from '../physics/constants.js';
 
 export interface TrackOptions {
   /** Kinds to track (default cold, warm and occluded fronts, drylines). */
@@ -243,7 +242,7 @@ export function trackFronts(events: readonly PassageEvent[], stations: readonly 
         .sort((a, b) => a.e.timeMs - b.e.timeMs || a.station - b.station);
       if (pts.length < minStations) continue;
       const ref = pts[0]!.e.timeMs;
-      for (const p of pts) p.t = (p.e.timeMs - ref) / HOUR;
+      for (const p of pts) p.t = (p.e.timeMs - ref) / MS_PER_HOUR;
       // Largest plausible spread of passage times over this network.
       let diameter = 0;
       for (let i = 0; i < net.length; i++) for (let j = i + 1; j < net.length; j++) diameter = Math.max(diameter, Math.hypot(proj.xKm[i]! - proj.xKm[j]!, proj.yKm[i]! - proj.yKm[j]!));
@@ -332,13 +331,13 @@ function buildTrack(
   const expected = net
     .map((s, i) => ({ s, i }))
     .filter(({ s }) => !have.has(s.id))
-    .map(({ s, i }) => ({ station: s.id, timeMs: refMs + (plane.t0 + plane.sx * proj.xKm[i]! + plane.sy * proj.yKm[i]!) * HOUR }));
+    .map(({ s, i }) => ({ station: s.id, timeMs: refMs + (plane.t0 + plane.sx * proj.xKm[i]! + plane.sy * proj.yKm[i]!) * MS_PER_HOUR }));
   void tolH;
   return {
     id: '',
     kind,
     members,
-    t0Ms: refMs + plane.t0 * HOUR,
+    t0Ms: refMs + plane.t0 * MS_PER_HOUR,
     speedKmh: motion.speedKmh,
     directionDeg: motion.directionDeg,
     rmsResidualMin: rms,

@@ -14,7 +14,7 @@
  *   DWD (VuB 2 BUFR, p. 28; C_h = 0.12 K/hPa) and used in the US with T_s the mean of the current and 12-h-old
  *   temperatures (WMO-No. 8 Part I Ch. 3 discusses the reduction; its exact equation number is not cited here).
  */
-import { G0, HOUR_MS, HPA_PER_INHG, RD, STANDARD_PRESSURE_HPA, ZERO_CELSIUS_K } from './constants.js';
+import { G0, HPA_PER_INHG, MS_PER_HOUR, RD, STANDARD_PRESSURE_HPA, ZERO_CELSIUS_K } from './constants.js';
 
 /**
  * Inches of mercury to hPa (conventional inch of mercury, 33.8638864 hPa; NIST SP 811 App. B.8).
@@ -221,5 +221,5 @@ export function decodePressureTendencyGroup(group: string): PressureTendencyGrou
 }
 
 /** 1 h and 3 h in ms, for {@link pressureTendencySeries}. */
-export const TENDENCY_WINDOW_1H_MS = HOUR_MS;
-export const TENDENCY_WINDOW_3H_MS = 3 * HOUR_MS;
+export const TENDENCY_WINDOW_1H_MS = MS_PER_HOUR;
+export const TENDENCY_WINDOW_3H_MS = 3 * MS_PER_HOUR;

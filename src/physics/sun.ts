@@ -11,10 +11,9 @@
  * - Meeus1998: Meeus, J., 1998: Astronomical Algorithms, 2nd ed., Willmann-Bell, ch. 25 (Example 25.a).
  * - NOAAsolar: NOAA GML Solar Calculator and its "NOAA_Solar_Calculations" spreadsheet (equations as above).
  */
-import { HOUR_MS } from './constants.js';
+import { MS_PER_DAY, MS_PER_HOUR, MS_PER_MINUTE } from './constants.js';
 
 const DEG = Math.PI / 180;
-const DAY_MS = 86_400_000;
 /** Julian date of the Unix epoch 1970-01-01T00:00Z. */
 const JD_UNIX_EPOCH = 2440587.5;
 /** Standard zenith angle for sunrise/sunset (refraction 34′ + semi-diameter 16′), degrees. */
@@ -22,7 +21,7 @@ export const SUNRISE_ZENITH_DEG = 90.833;
 
 /** Julian date from epoch ms (UTC). @example julianDate(Date.UTC(2000, 0, 1, 12)) // 2451545 */
 export function julianDate(timeMs: number): number {
-  return timeMs / DAY_MS + JD_UNIX_EPOCH;
+  return timeMs / MS_PER_DAY + JD_UNIX_EPOCH;
 }
 
 /** Apparent geocentric Sun coordinates and equation of time (Meeus1998 ch. 25 low precision, NOAAsolar). */
@@ -121,7 +120,7 @@ export interface SolarPosition {
  */
 export function solarPosition(timeMs: number, latDeg: number, lonDeg: number): SolarPosition {
   const sun = sunEquatorial(timeMs);
-  const minutesOfDay = (((timeMs % DAY_MS) + DAY_MS) % DAY_MS) / 60000;
+  const minutesOfDay = (((timeMs % MS_PER_DAY) + MS_PER_DAY) % MS_PER_DAY) / MS_PER_MINUTE;
   const trueSolarMin = mod1440(minutesOfDay + sun.equationOfTimeMin + 4 * lonDeg);
   let ha = trueSolarMin / 4 - 180;
   if (ha < -180) ha += 360;
@@ -165,9 +164,9 @@ export interface SunTimes {
  * @example sunTimes(Date.UTC(2021, 5, 21, 12), 35.2226, -97.4395).sunriseMs // ≈ Date.UTC(2021, 5, 21, 11, 15, 38)
  */
 export function sunTimes(dayMs: number, latDeg: number, lonDeg: number): SunTimes {
-  const day0 = Math.floor((dayMs + (lonDeg / 15) * HOUR_MS) / DAY_MS) * DAY_MS;
+  const day0 = Math.floor((dayMs + (lonDeg / 15) * MS_PER_HOUR) / MS_PER_DAY) * MS_PER_DAY;
   if (Number.isNaN(day0) || Number.isNaN(latDeg)) return { sunriseMs: NaN, solarNoonMs: NaN, sunsetMs: NaN, kind: 'normal' };
-  const atMin = (min: number) => day0 + min * 60000;
+  const atMin = (min: number) => day0 + min * MS_PER_MINUTE;
   let noonMin = 720 - 4 * lonDeg;
   for (let k = 0; k < 3; k++) noonMin = 720 - 4 * lonDeg - sunEquatorial(atMin(noonMin)).equationOfTimeMin;
   const phi = latDeg * DEG;
@@ -206,6 +205,6 @@ export function isDaylight(timeMs: number, latDeg: number, lonDeg: number): bool
  */
 export function localSolarHour(timeMs: number, lonDeg: number): number {
   if (Number.isNaN(timeMs) || Number.isNaN(lonDeg)) return NaN;
-  const minutesOfDay = (((timeMs % DAY_MS) + DAY_MS) % DAY_MS) / 60000;
+  const minutesOfDay = (((timeMs % MS_PER_DAY) + MS_PER_DAY) % MS_PER_DAY) / MS_PER_MINUTE;
   return mod1440(minutesOfDay + 4 * lonDeg + sunEquatorial(timeMs).equationOfTimeMin) / 60;
 }

@@ -8,9 +8,7 @@
  * the error is at most about 16 min (early November; about −14 min in mid February) — small against hourly
  * profile bins. Computed here on purpose, independent of any other module.
  */
-
-const HOUR_MS = 3600000;
-const DAY_MS = 86400000;
+import { MS_PER_DAY, MS_PER_HOUR, MS_PER_MINUTE } from '../physics/constants.js';
 
 /**
  * Equation of time (apparent minus mean solar time), minutes:
@@ -22,14 +20,14 @@ const DAY_MS = 86400000;
 export function equationOfTimeMinutes(timeMs: number): number {
   const d = new Date(timeMs);
   if (Number.isNaN(d.getTime())) return NaN;
-  const n = Math.floor((timeMs - Date.UTC(d.getUTCFullYear(), 0, 1)) / DAY_MS) + 1;
+  const n = Math.floor((timeMs - Date.UTC(d.getUTCFullYear(), 0, 1)) / MS_PER_DAY) + 1;
   const b = (2 * Math.PI * (n - 81)) / 364;
   return 9.87 * Math.sin(2 * b) - 7.53 * Math.cos(b) - 1.5 * Math.sin(b);
 }
 
 /** Local solar time as epoch-like ms: timeMs + lon/15 h (+ EoT). */
 function solarMs(timeMs: number, lonDeg: number, eot: boolean): number {
-  return timeMs + (lonDeg / 15) * HOUR_MS + (eot ? equationOfTimeMinutes(timeMs) * 60000 : 0);
+  return timeMs + (lonDeg / 15) * MS_PER_HOUR + (eot ? equationOfTimeMinutes(timeMs) * MS_PER_MINUTE : 0);
 }
 
 /**
@@ -41,7 +39,7 @@ function solarMs(timeMs: number, lonDeg: number, eot: boolean): number {
 export function solarHour(timeMs: number, lonDeg: number, equationOfTime = false): number {
   const s = solarMs(timeMs, lonDeg, equationOfTime);
   if (Number.isNaN(s)) return NaN;
-  const h = (s / HOUR_MS) % 24;
+  const h = (s / MS_PER_HOUR) % 24;
   return h < 0 ? h + 24 : h;
 }
 
@@ -112,7 +110,7 @@ export function meanDiurnalAnomaly(
   if (!Number.isInteger(B) || B < 4 || B > 1440) throw new RangeError('meanDiurnalAnomaly binsPerDay must be an integer in 4–1440');
   const minDays = opts.minDays ?? 10;
   const eot = opts.equationOfTime ?? false;
-  const binMs = DAY_MS / B;
+  const binMs = MS_PER_DAY / B;
 
   // Absolute solar-time bins.
   let aMin = Infinity;
@@ -288,7 +286,7 @@ export function fallbackDiurnalProfile(opts: FallbackDiurnalOptions): DiurnalPro
   const t = opts.timeMs;
   if (lat !== undefined && Number.isFinite(lat) && t !== undefined && Number.isFinite(t)) {
     const y = new Date(t).getUTCFullYear();
-    const doy = Math.floor((t - Date.UTC(y, 0, 1)) / DAY_MS) + 1;
+    const doy = Math.floor((t - Date.UTC(y, 0, 1)) / MS_PER_DAY) + 1;
     const decl = ((23.44 * Math.PI) / 180) * Math.sin((2 * Math.PI * (284 + doy)) / 365);
     const c = -Math.tan((lat * Math.PI) / 180) * Math.tan(decl);
     if (c >= 1 || c <= -1) return none(); // polar night or polar day

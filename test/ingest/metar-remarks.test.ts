@@ -5,7 +5,8 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { assertClose } from '../helpers/assert.js';
-import { decodeMetar, isParseIssue, KNOT_MS, type MetarReport } from '../../src/ingest/metar.js';
+import { decodeMetar, isParseIssue, type MetarReport } from '../../src/ingest/metar.js';
+import { KNOT_MS } from '../../src/physics/constants.js';
 import { WX } from '../../src/ingest/types.js';
 
 const REF = { year: 2020, month: 2, file: 'rmk.txt', line: 3 };

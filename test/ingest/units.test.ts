@@ -6,14 +6,12 @@ import {
   converter,
   fromCanonical,
   inferUnit,
-  INHG_HPA,
-  KNOT_MS,
-  MPH_MS,
   parseUnitName,
   toCanonical,
   unitFromHeader,
   UNIT_NAMES,
   type UnitName, conversionOf } from '../../src/ingest/units.js';
+import { KNOT_MS, MPH_MS } from '../../src/physics/constants.js';
 
 // NIST SP 811 (2008 ed.) Appendix B.8: exact definitions (ft, in, mi, nmi) and the conventional inHg.
 test('unit factors equal the NIST SP 811 Appendix B.8 definitions', () => {
@@ -23,7 +21,7 @@ test('unit factors equal the NIST SP 811 Appendix B.8 definitions', () => {
   assert.is(MPH_MS, 1609.344 / 3600); // statute mile 1609.344 m
   assertClose(MPH_MS, 0.44704, 1e-15); // so 1 mph = 0.44704 m/s exactly
   assertClose(toCanonical(1, 'km/h'), 1 / 3.6, 1e-16); // SI
-  assertClose(INHG_HPA, 33.86389, 1e-12); // inch of mercury, conventional: 3.386 389 E+03 Pa
+  assertClose(toCanonical(1, 'inHg'), 33.86389, 1e-12); // inch of mercury, conventional: 3.386 389 E+03 Pa
   assert.is(toCanonical(1, 'kPa'), 10);
   assert.is(toCanonical(101325, 'Pa'), 1013.25);
 });

@@ -6,7 +6,7 @@ import {
   ALTIMETER_K, altimeterFromStationPressureHpa, decodePressureTendencyGroup, hpaToInHg, inHgToHpa,
   pressureTendencySeries, seaLevelPressureHpa, stationPressureFromAltimeterHpa, tendencyCharacteristic,
 } from '../../src/physics/pressure.js';
-import { FOOT_M, HOUR_MS, MINUTE_MS } from '../../src/physics/constants.js';
+import { FOOT_M, MS_PER_HOUR, MS_PER_MINUTE } from '../../src/physics/constants.js';
 
 test('inHgToHpa / hpaToInHg: 29.92 inHg = 1013.2075 hPa, 1013.25 hPa = 29.92126 inHg, 30.00 inHg = 1015.9166 hPa (conventional inHg, NIST SP 811 B.8)', () => {
   assertClose(inHgToHpa(29.92), 1013.2075, 1e-4);
@@ -74,19 +74,19 @@ test('seaLevelPressureHpa: zero elevation is the identity; humidity term raises 
 });
 
 test('pressureTendencySeries picks the report closest to t − window within the tolerance, skipping NaN pressures', () => {
-  const m = MINUTE_MS;
+  const m = MS_PER_MINUTE;
   const t = [0, 20 * m, 55 * m, 60 * m, 80 * m, 115 * m, 200 * m];
   const p = [1000, 1000.5, NaN, 1001, 1001.2, 1002, 1003];
-  const d = pressureTendencySeries(t, p, HOUR_MS);
+  const d = pressureTendencySeries(t, p, MS_PER_HOUR);
   // i=3 (60 min): target 0 → report 0 exactly → +1.0; i=4 (80): target 20 → +0.7;
   // i=5 (115): target 55 has NaN; nearest finite within 10 min: 60 (5 min) → +1.0; i=6 (200): target 140, none within 10 min → NaN
   assertAllClose(d, [NaN, NaN, NaN, 1.0, 0.7, 1.0, NaN], 1e-12);
   // a wider tolerance accepts 115 min for t = 200 min (target 140, 25 min away)
-  assertClose(pressureTendencySeries(t, p, HOUR_MS, 30 * m)[6]!, 1.0, 1e-12);
+  assertClose(pressureTendencySeries(t, p, MS_PER_HOUR, 30 * m)[6]!, 1.0, 1e-12);
   // ties take the earlier report: target 40 min is 20 min from both 20 and 60 min
-  const tie = pressureTendencySeries([20 * m, 60 * m, 100 * m], [1, 2, 4], HOUR_MS, 20 * m);
+  const tie = pressureTendencySeries([20 * m, 60 * m, 100 * m], [1, 2, 4], MS_PER_HOUR, 20 * m);
   assertClose(tie[2]!, 3, 1e-12);
-  assert.throws(() => pressureTendencySeries([0], [1, 2], HOUR_MS), RangeError);
+  assert.throws(() => pressureTendencySeries([0], [1, 2], MS_PER_HOUR), RangeError);
   assert.throws(() => pressureTendencySeries([0], [1], 0), RangeError);
 });
 

@@ -25,7 +25,7 @@ import {
   tempGroup,
   windGroup,
 } from './groups.js';
-import { INCH_MM, INHG_HPA, KNOT_MS, STATUTE_MILE_M } from './units.js';
+import { HPA_PER_INHG, INCH_MM, KNOT_MS, STATUTE_MILE_M } from '../../physics/constants.js';
 import { weatherFlagsAt } from './weather.js';
 
 const K_RMK = kw('RMK');
@@ -283,7 +283,7 @@ export function decodeBytesInto(r: MetarReport, u: Uint8Array, start: number, en
       } else if (len === 5 && c0 === 65) {
         const v = digits(u, a + 1, b);
         if (v >= 0) {
-          r.altimeterHpa = (v / 100) * INHG_HPA;
+          r.altimeterHpa = (v / 100) * HPA_PER_INHG;
           continue;
         }
       }

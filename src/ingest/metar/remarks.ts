@@ -6,7 +6,7 @@ import type { ObserverRemark } from '../types.js';
 import { WX } from '../types.js';
 import { unknown, type MetarReport } from './decodeMetar.js';
 import { beginEnd, dg, digits, hhmm, isWord, peakWind, remarkTimeMs, signedTenths, slashes } from './groups.js';
-import { INCH_MM } from './units.js';
+import { INCH_MM } from '../../physics/constants.js';
 import { weatherFlagsAt } from './weather.js';
 
 const COMPASS = new Set(['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW', 'NNE', 'ENE', 'ESE', 'SSE', 'SSW', 'WSW', 'WNW', 'NNW', 'OHD', 'ALQDS']);
