@@ -10,6 +10,7 @@ import { signedTurnDeg, windFromComponents } from '../physics/wind.js';
 import type { DetectGrid } from './grid.js';
 import { argExtremeIn, at, meanIn } from './window.js';
 import { MS_PER_HOUR } from '../physics/constants.js';
+import { solarHour as solarHourAt } from '../physics/sun.js';
 
 export interface Features {
   /** Grid index of the anchor (leading edge estimate). */
@@ -215,7 +216,7 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     }
   }
   const lon = s.meta?.lonDeg;
-  const solarHour = lon === undefined || Number.isNaN(lon) ? NaN : (((tMs / MS_PER_HOUR + lon / 15) % 24) + 24) % 24;
+  const solarHour = lon === undefined ? NaN : solarHourAt(tMs, lon);
   const zoneEndMs = zoneEnd >= 0 ? g.timeMs[zoneEnd]! : NaN;
   return {
     index: i,

@@ -199,12 +199,27 @@ export function isDaylight(timeMs: number, latDeg: number, lonDeg: number): bool
 }
 
 /**
- * Local apparent (true) solar time in hours [0, 24): UTC time + 4 min per degree of east longitude + equation of
- * time (NOAAsolar "true solar time"). 12 = local apparent noon. NaN in → NaN.
- * @example localSolarHour(Date.UTC(2021, 2, 20, 12, 7, 22), 0) // ≈ 12.0
+ * Local solar time as an epoch-like ms count: timeMs + lonDeg/15 h (east positive), plus the equation of time
+ * when `apparent` is true. Mean solar time (`apparent` false) = UTC + 4 min per degree of east longitude;
+ * apparent (true) solar time adds the equation of time of `sunEquatorial` (NOAAsolar "true solar time").
+ * Dividing by MS_PER_HOUR and wrapping to [0, 24) gives `solarHour`; binning it by fractions of a day gives
+ * solar-time bins that do not wrap at midnight. NaN time or longitude → NaN.
+ * @example solarTimeMs(Date.UTC(2024, 0, 1, 12), -90) // Date.UTC(2024, 0, 1, 6)
  */
-export function localSolarHour(timeMs: number, lonDeg: number): number {
-  if (Number.isNaN(timeMs) || Number.isNaN(lonDeg)) return NaN;
-  const minutesOfDay = (((timeMs % MS_PER_DAY) + MS_PER_DAY) % MS_PER_DAY) / MS_PER_MINUTE;
-  return mod1440(minutesOfDay + 4 * lonDeg + sunEquatorial(timeMs).equationOfTimeMin) / 60;
+export function solarTimeMs(timeMs: number, lonDeg: number, apparent = false): number {
+  return timeMs + (lonDeg / 15) * MS_PER_HOUR + (apparent ? sunEquatorial(timeMs).equationOfTimeMin * MS_PER_MINUTE : 0);
+}
+
+/**
+ * Local solar hour in [0, 24): UTC hour + lonDeg/15 (east positive) — mean solar time — or, with `apparent`,
+ * apparent (true) solar time including the equation of time (NOAAsolar "true solar time"; 12 = local apparent
+ * noon). Mean solar time differs from apparent by at most about 16 min (early November). NaN in → NaN.
+ * @example solarHour(Date.UTC(2024, 0, 1, 12), -90) // 6
+ * @example solarHour(Date.UTC(2021, 2, 20, 12, 7, 22), 0, true) // ≈ 12.0
+ */
+export function solarHour(timeMs: number, lonDeg: number, apparent = false): number {
+  const s = solarTimeMs(timeMs, lonDeg, apparent);
+  if (Number.isNaN(s)) return NaN;
+  const h = (s / MS_PER_HOUR) % 24;
+  return h < 0 ? h + 24 : h;
 }
