@@ -34,7 +34,7 @@ test('readCsvText() reads IEM °F/kt/inHg columns into canonical units', () => {
   assertClose(o.temperatureC, (67 - 32) / 1.8, 1e-12, 0, 'SI °F definition');
   assertClose(o.windSpeedMs, (22 * 1852) / 3600, 1e-12, 0, 'NIST SP 811 knot');
   assertClose(o.gustMs, (34 * 1852) / 3600, 1e-12, 0, 'gust takes the wind-speed unit');
-  assertClose(o.altimeterHpa, 29.66 * 33.86389, 1e-9, 0, 'NIST SP 811 inHg');
+  assertClose(o.altimeterHpa, 29.66 * 33.8638864034, 1e-9, 0, 'conventional inHg, 0.0254 m × 13595.1 kg/m³ × g0 (NIST SP 811 B.8)');
   assert.is(o.seaLevelPressureHpa, 1004.3);
   assert.ok(Number.isNaN(r.observations[0]!.seaLevelPressureHpa)); // `M` = missing
   assert.is(o.precipMm, 0);
@@ -94,7 +94,7 @@ test('readCsvText() reads an NCEI LCD layout: standard time, flags, report types
   assert.is(b.source, 'SPECI');
   assertClose(a.temperatureC, (45 - 32) / 1.8, 1e-12, 0, "`45s`: suspect flag stripped, value kept");
   assertClose(a.windSpeedMs, 15 * 0.44704, 1e-12, 0, 'LCD wind in mph');
-  assertClose(a.stationPressureHpa, 29.1 * 33.86389, 1e-9, 0, 'LCD station pressure in inHg');
+  assertClose(a.stationPressureHpa, 29.1 * 33.8638864034, 1e-9, 0, 'LCD station pressure in inHg (conventional inHg)');
   assert.ok(Number.isNaN(b.windDirDeg)); // VRB
   assert.is(b.precipMm, 0); // trace
   assertClose(c.precipMm, 0.02 * 25.4, 1e-12);
