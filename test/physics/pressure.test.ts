@@ -3,7 +3,7 @@ import * as assert from 'uvu/assert';
 import fc from 'fast-check';
 import { assertAllClose, assertClose } from '../helpers/assert.js';
 import {
-  ALTIMETER_K, altimeterFromStationPressureHpa, decodePressureTendencyGroup, hpaToInHg, inHgToHpa,
+  ALTIMETER_K, altimeterFromStationPressureHpa, decodePressureTendencyGroup, hpaToInHg, inHgToHpa, pressureChangeFromTendencyHpa,
   pressureTendencySeries, seaLevelPressureHpa, stationPressureFromAltimeterHpa, tendencyCharacteristic,
 } from '../../src/physics/pressure.js';
 import { FOOT_M, MS_PER_HOUR, MS_PER_MINUTE } from '../../src/physics/constants.js';
@@ -113,6 +113,23 @@ test('tendencyCharacteristic follows the wording of WMO-No. 306 code table 0200 
   for (const [v, a, why] of cases) assert.is(tendencyCharacteristic(v), a, why);
   assert.ok(Number.isNaN(tendencyCharacteristic([1010])));
   assert.is(tendencyCharacteristic([1010, NaN, 1011, 1012]), 2, 'NaN dropped');
+});
+
+test('pressureChangeFromTendencyHpa(a, ppp): sign from WMO-No. 306 code table 0200', () => {
+  const rows: [number, number, number, string][] = [
+    [2, 32, 3.2, 'WMO-No. 306 table 0200: a = 2 increasing, higher'],
+    [8, 33, -3.3, 'WMO-No. 306 table 0200: a = 8, lower'],
+    [0, 10, 1.0, 'WMO-No. 306 table 0200: a = 0 same or higher'],
+    [5, 4, -0.4, 'WMO-No. 306 table 0200: a = 5 same or lower'],
+    [4, 0, 0, 'WMO-No. 306 table 0200: a = 4 steady, the same'],
+    [7, 0, 0, 'ppp = 000 is no change whatever a says'],
+  ];
+  for (const [a, ppp, v, source] of rows) assertClose(pressureChangeFromTendencyHpa(a, ppp), v, 1e-12, 0, source);
+  assert.ok(Object.is(pressureChangeFromTendencyHpa(7, 0), 0), 'never −0');
+  // a = 4 with ppp ≠ 000 contradicts table 0200 ("the same"): sign unknown → NaN (our rule, documented)
+  assert.ok(Number.isNaN(pressureChangeFromTendencyHpa(4, 3)));
+  assert.ok(Number.isNaN(pressureChangeFromTendencyHpa(9, 3)), 'a = 9 not in the table');
+  assert.ok(Number.isNaN(pressureChangeFromTendencyHpa(2, NaN)));
 });
 
 test('decodePressureTendencyGroup: FMH-1 / AFMAN 15-111 examples 52032 → +3.2, 58033 → −3.3, 53016 → +1.6, 55004 → −0.4', () => {

@@ -27,6 +27,7 @@ import {
 } from './groups.js';
 import { HPA_PER_INHG, INCH_MM, KNOT_MS, STATUTE_MILE_M } from '../../physics/constants.js';
 import { weatherFlagsAt } from './weather.js';
+import { pressureChangeFromTendencyHpa } from '../../physics/pressure.js';
 
 const K_RMK = kw('RMK');
 const K_FEW = kw('FEW');
@@ -104,9 +105,8 @@ export function decodeBytesInto(r: MetarReport, u: Uint8Array, start: number, en
           const code = dg(u, a + 1);
           const ppp = digits(u, a + 2, b);
           if (code >= 0 && code <= 8 && ppp >= 0) {
-            const v = ppp / 10;
             r.pressureTendencyCode = code;
-            r.pressureTendency3hHpa = code === 4 ? 0 : code <= 3 ? v : v === 0 ? 0 : -v;
+            r.pressureTendency3hHpa = pressureChangeFromTendencyHpa(code, ppp); // WMO-No. 306 code table 0200
             continue;
           }
         }
