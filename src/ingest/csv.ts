@@ -45,6 +45,7 @@ import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMa
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
 import { makeTimeReader, parseOffsetMinutes, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
+import { weatherFlags } from './metar/weather.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
 export type RawReportDecoded = Partial<Observation> & { tempFromRemarks?: boolean };
@@ -114,69 +115,20 @@ function dewpointFromRh(tC: number, rhPct: number): number {
 
 const MISSING = new Set(['', 'm', 'mm', 'na', 'n/a', 'nan', 'null', 'none', '-', '--', 'missing', '#n/a']);
 
-/** WMO-No. 306 code table 4678 letters → WX flags (only those fronts care about). */
-const WX_CODES: Record<string, number> = {
-  RA: WX.RAIN | WX.PRECIP,
-  SN: WX.SNOW | WX.PRECIP,
-  SG: WX.SNOW | WX.PRECIP,
-  DZ: WX.DRIZZLE | WX.PRECIP,
-  GR: WX.HAIL | WX.PRECIP,
-  GS: WX.HAIL | WX.PRECIP,
-  PL: WX.ICE_PELLETS | WX.PRECIP,
-  IC: WX.PRECIP,
-  UP: WX.PRECIP,
-  TS: WX.THUNDER | WX.CONVECTIVE,
-  SH: WX.SHOWER,
-  FZ: WX.FREEZING,
-  FG: WX.FOG,
-  SQ: WX.SQUALL,
-  DU: WX.DUST,
-  SA: WX.DUST,
-  DS: WX.DUST,
-  SS: WX.DUST,
-  PO: WX.DUST,
-  BR: 0,
-  HZ: 0,
-  FU: 0,
-  VA: 0,
-  PY: 0,
-  FC: 0,
-  MI: 0,
-  PR: 0,
-  BC: 0,
-  DR: 0,
-  BL: 0,
-};
-
 /**
- * WX flags of a present-weather text such as `-RA BR`, `+TSRA`, or LCD `-RA:02 BR:1 |RA BR |`
- * (WMO-No. 306 FM 15 w'w' groups). Tokens that are not made only of known letter pairs are ignored.
+ * WX flags of a present-weather text such as `-RA BR`, `+TSRA`, or LCD `-RA:02 BR:1 |RA BR |`: each token
+ * (split on blanks, `|`, `,`, `;`; an LCD `:n` suffix dropped) is one FM 15 w'w' group read by the METAR
+ * decoder's table (`weatherFlags`, WMO-No. 306 code table 4678; FMH-1 §12.6.8), so `VC` groups keep only
+ * their SH/TS flags. Tokens that are not weather groups are ignored.
+ * @example weatherFlagsFromCodes('-RA BR') // WX.RAIN | WX.PRECIP
  */
 export function weatherFlagsFromCodes(text: string): number {
   let flags = 0;
   for (const raw of text.toUpperCase().split(/[\s|,;]+/)) {
-    let tok = raw.split(':')[0]!;
+    const tok = raw.split(':')[0]!;
     if (tok === '') continue;
-    let heavy = false;
-    if (tok[0] === '+') {
-      heavy = true;
-      tok = tok.slice(1);
-    } else if (tok[0] === '-') tok = tok.slice(1);
-    if (tok.startsWith('VC')) tok = tok.slice(2);
-    if (tok.length === 0 || tok.length % 2 !== 0) continue;
-    let f = 0;
-    let ok = true;
-    for (let i = 0; i < tok.length; i += 2) {
-      const v = WX_CODES[tok.slice(i, i + 2)];
-      if (v === undefined) {
-        ok = false;
-        break;
-      }
-      f |= v;
-    }
-    if (!ok) continue;
-    if (heavy) f |= WX.HEAVY;
-    flags |= f;
+    const f = weatherFlags(tok, 0, tok.length);
+    if (f > 0) flags |= f;
   }
   return flags;
 }
