@@ -27,8 +27,11 @@
  * - NCEI LCD cell flags (LCD documentation, from memory): a trailing `s` (suspect) or `*`/`A`/`E` is
  *   stripped and the value kept and counted; `T` (trace) reads as 0 for precipitation; `VRB` wind
  *   direction is NaN (variable).
- * - Dew point missing but temperature and relative humidity present → dew point from the Magnus form with
- *   Alduchov & Eskridge (1996) coefficients (see `dewpointFromRh`), counted in a note.
+ * - Dew point missing but temperature and relative humidity present → dew point from the inverse Magnus form
+ *   (`dewpointFromRelativeHumidity`, physics/dewpoint.ts) with the AlduchovEskridge1996 eq. 21 coefficients
+ *   (`MAGNUS_AERK1996`: the set recommended there for −40…50 °C, and the one the reader has always used; the
+ *   Bolton1980 default differs by about 0.01 °C at 20 °C, 50 %); RH outside (0, 100] % → NaN;
+ *   counted in a note.
  * - Raw report column (IEM `metar`, LCD `REM`) with a `decodeRawReport` callback: the decoded report fills
  *   every field the columns leave missing; temperature and dew point from the decoder REPLACE the column
  *   values when the decoder sets `tempFromRemarks` (tenths of °C from the US `T` remark group, FMH-1
@@ -46,6 +49,8 @@ import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from 
 import { makeTimeReader, parseOffsetMinutes, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
 import { weatherFlags } from './metar/weather.js';
+import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
+import { MAGNUS_AERK1996 } from '../physics/vapor.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
 export type RawReportDecoded = Partial<Observation> & { tempFromRemarks?: boolean };
@@ -98,19 +103,6 @@ export interface CsvResult {
   valueCounts: Record<string, number>;
   /** Unit decided per numeric field, with its source and reason. */
   units: Partial<Record<NumericField, UnitChoice>>;
-}
-
-/**
- * Dew point from temperature and relative humidity, Magnus form inverted:
- * γ = ln(RH/100) + b·T/(c + T), Td = c·γ/(b − γ), with b = 17.625, c = 243.04 °C
- * ([AlduchovEskridge1996] eq. 21 coefficients; es = 6.1094 exp(17.625 T/(T + 243.04)) hPa).
- * T in °C, RH in % (0 < RH ≤ 100, else NaN). NaN in → NaN out.
- * @example dewpointFromRh(20, 50) // ≈ 9.2611
- */
-function dewpointFromRh(tC: number, rhPct: number): number {
-  if (!(rhPct > 0 && rhPct <= 100)) return NaN;
-  const g = Math.log(rhPct / 100) + (17.625 * tC) / (243.04 + tC);
-  return (243.04 * g) / (17.625 - g);
 }
 
 const MISSING = new Set(['', 'm', 'mm', 'na', 'n/a', 'nan', 'null', 'none', '-', '--', 'missing', '#n/a']);
@@ -820,7 +812,8 @@ export class CsvCore {
     if (o.dewpointC !== o.dewpointC && cols.relativeHumidity !== undefined) {
       const rh = this.val(cols.relativeHumidity, line);
       if (rh === rh && o.temperatureC === o.temperatureC) {
-        o.dewpointC = dewpointFromRh(o.temperatureC, rh);
+        // RH above 100 % is bad data here, not supersaturation
+        o.dewpointC = rh > 0 && rh <= 100 ? dewpointFromRelativeHumidity(o.temperatureC, rh / 100, MAGNUS_AERK1996) : NaN;
         if (o.dewpointC === o.dewpointC) this.count('derived-from-rh', 'dewpoint', line, `${rh}%`);
       }
     }
