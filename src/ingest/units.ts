@@ -15,6 +15,7 @@
  */
 
 import { FOOT_M, HPA_PER_INHG, INCH_M, KNOT_MS, MPH_MS, ZERO_CELSIUS_K } from '../physics/constants.js';
+import { medianInPlace } from '../signal/median.js';
 
 export type UnitName =
   | 'degC'
@@ -274,14 +275,18 @@ export interface InferredUnit {
 }
 
 function finiteMedianMax(values: ArrayLike<number>): { median: number; max: number; n: number } {
-  const a: number[] = [];
+  let n = 0;
+  let max = -Infinity;
   for (let i = 0; i < values.length; i++) {
     const v = values[i]!;
-    if (Number.isFinite(v)) a.push(v);
+    if (Number.isFinite(v)) {
+      n++;
+      if (v > max) max = v;
+    }
   }
-  if (a.length === 0) return { median: NaN, max: NaN, n: 0 };
-  a.sort((x, y) => x - y);
-  return { median: a[(a.length - 1) >> 1]!, max: a[a.length - 1]!, n: a.length };
+  if (n === 0) return { median: NaN, max: NaN, n: 0 };
+  const finite = Float64Array.from(values).map((v) => (Number.isFinite(v) ? v : NaN));
+  return { median: medianInPlace(finite), max, n };
 }
 
 /**

@@ -15,6 +15,7 @@ import { windComponents } from '../physics/wind.js';
 import { planeGradient } from './gradient.js';
 import type { FrontTrack } from './track.js';
 import { MS_PER_HOUR } from '../physics/constants.js';
+import { median } from '../signal/median.js';
 
 /** K m⁻¹ s⁻¹ → K per 100 km per 3 h (10⁵ m × 10 800 s). */
 export const PER_M_PER_S_TO_PER_100KM_PER_3H = 1e5 * 10800;
@@ -139,8 +140,7 @@ export function withFrontogenesis(tracks: readonly FrontTrack[], series: readonl
       const f = petterssenFrontogenesis({ thetaX: th.dfdxPerKm / 1000, thetaY: th.dfdyPerKm / 1000, ux: u.dfdxPerKm / 1000, uy: u.dfdyPerKm / 1000, vx: v.dfdxPerKm / 1000, vy: v.dfdyPerKm / 1000 });
       return { ...m, frontogenesisKPer100kmPer3h: f.fKPer100kmPer3h };
     });
-    const vals = members.map((m) => m.frontogenesisKPer100kmPer3h).filter(Number.isFinite).sort((a, b) => a - b);
-    const median = vals.length ? (vals.length % 2 ? vals[vals.length >> 1]! : (vals[vals.length / 2 - 1]! + vals[vals.length / 2]!) / 2) : NaN;
-    return { ...t, members, frontogenesisKPer100kmPer3h: median };
+    const finite = members.map((m) => m.frontogenesisKPer100kmPer3h).filter(Number.isFinite);
+    return { ...t, members, frontogenesisKPer100kmPer3h: median(finite) };
   });
 }

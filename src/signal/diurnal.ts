@@ -10,6 +10,7 @@
  */
 import { MS_PER_DAY } from '../physics/constants.js';
 import { solarHour, solarTimeMs } from '../physics/sun.js';
+import { median } from './median.js';
 
 /** A diurnal anomaly profile in local solar time (anomaly from the daily mean; mean over the day ≈ 0). */
 export interface DiurnalProfile {
@@ -44,12 +45,6 @@ export interface DiurnalOptions {
   defaultRange?: number;
 }
 
-function median(a: number[]): number {
-  if (a.length === 0) return NaN;
-  const s = a.slice().sort((x, y) => x - y);
-  const h = s.length >> 1;
-  return s.length % 2 ? s[h]! : 0.5 * (s[h - 1]! + s[h]!);
-}
 
 /**
  * The station's own mean diurnal anomaly by local solar time, or a fallback when the record is short.

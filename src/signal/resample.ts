@@ -143,6 +143,7 @@ export interface ResampledWind {
 export { windComponents, windFromComponents } from '../physics/wind.js';
 import { windComponents, windFromComponents } from '../physics/wind.js';
 import { MS_PER_MINUTE } from '../physics/constants.js';
+import { medianInPlace } from './median.js';
 
 /**
  * Resample wind as vector components, never averaging raw directions: each report becomes
@@ -213,8 +214,7 @@ export function chooseStepMs(timeMs: ArrayLike<number>): number {
     if (dt > 0) d[k++] = dt;
   }
   if (k === 0) return 60 * MS_PER_MINUTE;
-  const s = d.subarray(0, k).sort();
-  const med = k % 2 ? s[k >> 1]! : 0.5 * (s[(k >> 1) - 1]! + s[k >> 1]!);
+  const med = medianInPlace(d, k);
   const medMin = med / MS_PER_MINUTE;
   let step: number = STEP_LADDER_MIN[0];
   for (const c of STEP_LADDER_MIN) if (c <= medMin * 1.1) step = c;
