@@ -16,10 +16,10 @@ import { classify, type Classification } from './classify.js';
 import { changeStart, windSplit, type SplitTime } from './timing.js';
 import { runningMean, meanIn } from './window.js';
 import type { DetectOptions } from './types.js';
+import { MS_PER_HOUR, MS_PER_MINUTE } from '../physics/constants.js';
 
-const HOUR = 3_600_000;
 /** Candidates closer than this before timing are one change (the strongest is kept). common practice, no source. */
-const SUPPRESS_MS = 1 * HOUR;
+const SUPPRESS_MS = 1 * MS_PER_HOUR;
 /** Default confidence floor. */
 export const DEFAULT_MIN_CONFIDENCE = 0.4;
 
@@ -35,7 +35,7 @@ interface Candidate {
 
 /** Change-point indices on the grid from every channel, sorted and de-duplicated. */
 export function changePointCandidates(g: DetectGrid): number[] {
-  const perH = HOUR / g.stepMs;
+  const perH = MS_PER_HOUR / g.stepMs;
   const minSegment = Math.max(2, Math.round(perH / 2));
   const maxSegment = Math.round(72 * perH);
   const set = new Set<number>();
@@ -80,7 +80,7 @@ export function detectStation(series: StationSeries, opts: DetectOptions = {}): 
   if (!g) return [];
   const hemisphere: 1 | -1 = (series.meta?.latDeg ?? 1) < 0 ? -1 : 1;
   const raw = rawColumns(series);
-  const perH = HOUR / g.stepMs;
+  const perH = MS_PER_HOUR / g.stepMs;
   const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
   const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
 
@@ -126,11 +126,11 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
   const thermalSign = (e: PassageEvent) => (e.kind === 'cold-front' || e.kind === 'outflow-boundary' ? -1 : e.kind === 'warm-front' ? 1 : 0);
   for (const e of byStrength) {
     const clash = kept.some((k) => {
-      if (Math.abs(k.timeMs - e.timeMs) < 2 * HOUR) return true;
-      if ((k.kind === 'warm-front' || k.kind === 'dryline') && e.kind === k.kind && Math.abs(k.timeMs - e.timeMs) < 6 * HOUR) return true;
+      if (Math.abs(k.timeMs - e.timeMs) < 2 * MS_PER_HOUR) return true;
+      if ((k.kind === 'warm-front' || k.kind === 'dryline') && e.kind === k.kind && Math.abs(k.timeMs - e.timeMs) < 6 * MS_PER_HOUR) return true;
       const sameSign = k.kind === e.kind && thermalSign(k) !== 0;
-      if (sameSign && e.timeMs > k.timeMs && e.timeMs <= (Number.isNaN(k.zoneEndMs) ? k.timeMs : k.zoneEndMs) + HOUR) return true;
-      if (k.kind === 'cold-front' && e.kind === 'cold-front' && e.timeMs > k.timeMs && e.timeMs - k.timeMs < 9 * HOUR) {
+      if (sameSign && e.timeMs > k.timeMs && e.timeMs <= (Number.isNaN(k.zoneEndMs) ? k.timeMs : k.zoneEndMs) + MS_PER_HOUR) return true;
+      if (k.kind === 'cold-front' && e.kind === 'cold-front' && e.timeMs > k.timeMs && e.timeMs - k.timeMs < 9 * MS_PER_HOUR) {
         return !(e.windTurnDeg * Math.sign(k.windTurnDeg || 1) >= 30 && e.pressureRise3hHpa > 0.5);
       }
       return false;
@@ -148,9 +148,9 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
 export function markPrefrontalTroughs(events: PassageEvent[]): PassageEvent[] {
   return events.map((e) => {
     if (e.kind !== 'occluded-front' && e.kind !== 'wind-shift') return e;
-    const front = events.find((c) => c.kind === 'cold-front' && c.timeMs - e.timeMs >= HOUR && c.timeMs - e.timeMs <= 8 * HOUR);
+    const front = events.find((c) => c.kind === 'cold-front' && c.timeMs - e.timeMs >= MS_PER_HOUR && c.timeMs - e.timeMs <= 8 * MS_PER_HOUR);
     if (!front) return e;
-    const lead = ((front.timeMs - e.timeMs) / HOUR).toFixed(1);
+    const lead = ((front.timeMs - e.timeMs) / MS_PER_HOUR).toFixed(1);
     return { ...e, kind: 'wind-shift', evidence: [...e.evidence, `+ cold front follows ${lead} h later: prefrontal trough (wind shift and trough ahead of the front)`] };
   });
 }
@@ -163,22 +163,22 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
   let start: SplitTime | null = null;
   const thermal = kind === 'cold-front' || kind === 'warm-front' || kind === 'outflow-boundary' || kind === 'sea-breeze-front';
   if (thermal && !Number.isNaN(f.zoneEndMs)) {
-    const level = meanIn(raw.tC, lowerBound(s.timeMs, f.timeMs - 2 * HOUR), lowerBound(s.timeMs, f.timeMs - 0.25 * HOUR));
-    start = changeStart(s.timeMs, raw.tC, Number.isNaN(level) ? meanIn(g.tC, f.index - HOUR / g.stepMs, f.index) : level, f.tempChangeC, f.timeMs - 3 * HOUR, f.zoneEndMs + 1);
+    const level = meanIn(raw.tC, lowerBound(s.timeMs, f.timeMs - 2 * MS_PER_HOUR), lowerBound(s.timeMs, f.timeMs - 0.25 * MS_PER_HOUR));
+    start = changeStart(s.timeMs, raw.tC, Number.isNaN(level) ? meanIn(g.tC, f.index - MS_PER_HOUR / g.stepMs, f.index) : level, f.tempChangeC, f.timeMs - 3 * MS_PER_HOUR, f.zoneEndMs + 1);
   } else if (kind === 'dryline') {
-    const level = meanIn(g.tdC, f.index - HOUR / g.stepMs, f.index + 1);
-    start = changeStart(s.timeMs, raw.tdC, level, f.dewpointDropMaxC, f.timeMs - 3 * HOUR, f.timeMs + 3 * HOUR);
+    const level = meanIn(g.tdC, f.index - MS_PER_HOUR / g.stepMs, f.index + 1);
+    start = changeStart(s.timeMs, raw.tdC, level, f.dewpointDropMaxC, f.timeMs - 3 * MS_PER_HOUR, f.timeMs + 3 * MS_PER_HOUR);
   }
   let chosen: SplitTime | null = null;
   let prefrontal: number | undefined;
   if (wind && start) {
     // A wind shift well ahead of the temperature change is a prefrontal trough (Schultz2005): time the front at the change.
     // "Well ahead": more than 1.5 h, or two report intervals when the reports are sparser than that.
-    const lead = Math.max(1.5 * HOUR, 2 * g.cadenceMin * 60_000);
+    const lead = Math.max(1.5 * MS_PER_HOUR, 2 * g.cadenceMin * MS_PER_MINUTE);
     if (kind === 'cold-front' && wind.timeMs < start.timeMs - lead) {
       chosen = start;
       prefrontal = wind.timeMs;
-    } else chosen = Math.abs(wind.timeMs - start.timeMs) <= 2 * HOUR ? wind : start;
+    } else chosen = Math.abs(wind.timeMs - start.timeMs) <= 2 * MS_PER_HOUR ? wind : start;
   } else chosen = wind ?? start;
   if (!chosen) return c;
   const basis = chosen === wind ? 'timed at the wind shift' : kind === 'dryline' ? 'timed at the start of the dew-point fall' : 'timed at the start of the temperature change';
@@ -200,12 +200,12 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
   const evidence = [...c.c.evidence];
   if (c.basis) evidence.push(`${c.basis}, between the reports at ${hhmm(c.timing!.earliestMs)} and ${hhmm(c.timing!.latestMs)} UTC`);
   if (c.prefrontalShiftMs !== undefined) {
-    evidence.push(`+ wind shift ${((timeMs - c.prefrontalShiftMs) / HOUR).toFixed(1)} h ahead of the temperature fall: prefrontal trough; the front is placed at the fall`);
+    evidence.push(`+ wind shift ${((timeMs - c.prefrontalShiftMs) / MS_PER_HOUR).toFixed(1)} h ahead of the temperature fall: prefrontal trough; the front is placed at the fall`);
   }
   // Moisture boundaries: the zone is where the dew point changes, not the temperature.
   const rawZoneEnd = c.c.kind === 'dryline' && !Number.isNaN(f.moistureZoneEndMs) ? f.moistureZoneEndMs : f.zoneEndMs;
   const zoneEndMs = Math.max(rawZoneEnd, timeMs);
-  const zoneHours = Number.isNaN(rawZoneEnd) ? NaN : (zoneEndMs - timeMs) / HOUR;
+  const zoneHours = Number.isNaN(rawZoneEnd) ? NaN : (zoneEndMs - timeMs) / MS_PER_HOUR;
   const speed = opts.frontSpeedKmh;
   const zoneDepthKm = speed !== undefined && speed > 0 && !Number.isNaN(zoneHours) ? zoneHours * speed : NaN;
   const gradient = zoneDepthKm > 0 ? (Math.abs(f.tempChangeC) / zoneDepthKm) * 100 : NaN;
@@ -213,8 +213,8 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
     station: s.station,
     kind: c.c.kind,
     timeMs,
-    timeEarliestMs: c.timing?.earliestMs ?? timeMs - 0.5 * HOUR,
-    timeLatestMs: c.timing?.latestMs ?? timeMs + 0.5 * HOUR,
+    timeEarliestMs: c.timing?.earliestMs ?? timeMs - 0.5 * MS_PER_HOUR,
+    timeLatestMs: c.timing?.latestMs ?? timeMs + 0.5 * MS_PER_HOUR,
     confidence: Math.round(c.c.confidence * 100) / 100,
     tempChangeC: f.tempChangeC,
     tempChangeAdjustedC: f.frontalChangeAdjC,
@@ -252,7 +252,7 @@ function attachRemarks(s: StationSeries, events: PassageEvent[]): void {
     if (seen.has(key)) continue;
     seen.add(key);
     let best: PassageEvent | undefined;
-    for (const e of events) if (Math.abs(e.timeMs - t) <= 3 * HOUR && (!best || Math.abs(e.timeMs - t) < Math.abs(best.timeMs - t))) best = e;
+    for (const e of events) if (Math.abs(e.timeMs - t) <= 3 * MS_PER_HOUR && (!best || Math.abs(e.timeMs - t) < Math.abs(best.timeMs - t))) best = e;
     if (!best) continue;
     if (Number.isNaN(best.observerFropaTimeMs) || r.frontal) {
       best.observerFropaTimeMs = t;

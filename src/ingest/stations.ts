@@ -9,7 +9,7 @@
  */
 import Papa from 'papaparse';
 import { addIssue, newFileReport, type FileReport, type StationMeta } from '../model/index.js';
-import { FOOT_M } from './units.js';
+import { FOOT_M } from '../physics/constants.js';
 
 type StationColumn = 'id' | 'lat' | 'lon' | 'elevationM' | 'elevationFt' | 'name' | 'alias' | 'coastal' | 'seaBearing';
 

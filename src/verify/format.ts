@@ -12,6 +12,7 @@ import { CAUTION } from '../report/caution.js';
 import { alignColumns, csvCell, isoUtc, roundOrNull, type RecordValue } from '../report/format.js';
 import type { ForecastPassage } from './forecasts.js';
 import type { VerifiedPair, VerifyResult, VerifyScores } from './verify.js';
+import { MS_PER_HOUR } from '../physics/constants.js';
 
 export const VERIFY_COLUMNS = ['station', 'kind', 'forecast_time', 'issued_time', 'lead_hours', 'observed_time', 'observed_kind', 'error_min', 'outcome'] as const;
 export type VerifyColumn = (typeof VERIFY_COLUMNS)[number];
@@ -26,7 +27,7 @@ function forecastPart(f: ForecastPassage) {
     kind: f.kind ?? '',
     forecast_time: isoUtc(f.forecastMs),
     issued_time: isoUtc(f.issuedMs),
-    lead_hours: roundOrNull((f.forecastMs - f.issuedMs) / 3_600_000, 1),
+    lead_hours: roundOrNull((f.forecastMs - f.issuedMs) / MS_PER_HOUR, 1),
   };
 }
 
@@ -135,7 +136,7 @@ export function verificationToTable(r: VerifyResult, ctx: VerifyTableContext = {
   }
   const listRows: string[][] = [];
   const line = (p: { station: string; kind: string; f: number; i: number; o: number; ok: string; err: number; outcome: string }) =>
-    listRows.push([p.station, p.kind, clock(p.f), clock(p.i), num((p.f - p.i) / 3_600_000, 1), clock(p.o), p.ok, num(p.err, 0, true), p.outcome]);
+    listRows.push([p.station, p.kind, clock(p.f), clock(p.i), num((p.f - p.i) / MS_PER_HOUR, 1), clock(p.o), p.ok, num(p.err, 0, true), p.outcome]);
   const recs: { t: number; s: string; fn: () => void }[] = [];
   for (const p of r.pairs) {
     recs.push({ t: p.forecast.forecastMs, s: p.forecast.station, fn: () => line({ station: p.forecast.station, kind: p.forecast.kind ?? 'any', f: p.forecast.forecastMs, i: p.forecast.issuedMs, o: p.event.timeMs, ok: p.event.kind, err: p.errorMin, outcome: 'hit' }) });

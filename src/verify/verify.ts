@@ -26,8 +26,7 @@ import type { BoundaryKind, PassageEvent } from '../model/index.js';
 import { csi, far, frequencyBias, matchOneToOne, pod, type Timed } from './contingency.js';
 import { ANY_FRONT_KINDS, type ForecastPassage } from './forecasts.js';
 import { quantile } from './quantile.js';
-
-const HOUR_MS = 3_600_000;
+import { MS_PER_HOUR, MS_PER_MINUTE } from '../physics/constants.js';
 
 export interface VerifyOptions {
   /** Matching window, hours either side (default 6). */
@@ -89,7 +88,7 @@ export interface VerifyResult {
  * @example leadBin(Date.UTC(2026, 2, 2, 12), Date.UTC(2026, 2, 1, 12)) // '24-48h'
  */
 export function leadBin(forecastMs: number, issuedMs: number): LeadBin {
-  const h = (forecastMs - issuedMs) / HOUR_MS;
+  const h = (forecastMs - issuedMs) / MS_PER_HOUR;
   if (!Number.isFinite(h)) return 'unknown';
   return h < 12 ? '0-12h' : h < 24 ? '12-24h' : h < 48 ? '24-48h' : '48h+';
 }
@@ -128,7 +127,7 @@ export function scoresOf(hits: number, misses: number, falseAlarms: number, erro
 export function verifyForecasts(forecasts: readonly ForecastPassage[], events: readonly PassageEvent[], opts: VerifyOptions = {}): VerifyResult {
   const windowHours = opts.windowHours ?? 6;
   if (!(windowHours > 0 && Number.isFinite(windowHours))) throw new RangeError('verifyForecasts requires windowHours > 0');
-  const windowMs = windowHours * HOUR_MS;
+  const windowMs = windowHours * MS_PER_HOUR;
   const only = opts.kinds ? new Set(opts.kinds) : null;
   const used = forecasts.filter((f) => !only || f.kind === null || only.has(f.kind));
   const excluded = forecasts.filter((f) => only && f.kind !== null && !only.has(f.kind));
@@ -209,5 +208,5 @@ export function verifyForecasts(forecasts: readonly ForecastPassage[], events: r
 }
 
 function pair(forecast: ForecastPassage, event: PassageEvent): VerifiedPair {
-  return { forecast, event, errorMin: (forecast.forecastMs - event.timeMs) / 60000 };
+  return { forecast, event, errorMin: (forecast.forecastMs - event.timeMs) / MS_PER_MINUTE };
 }

@@ -14,7 +14,7 @@ const T = Date.UTC(2026, 2, 10, 12, 0);
 /** Quiet features: steady 200° wind at 8 m/s, no temperature, moisture or pressure change, midday. */
 function quiet(over: Partial<Features> = {}): Features {
   return {
-    index: 100, timeMs: T,
+    index: 100, timeMs: T, fmh1WindShiftNear: false,
     windBeforeDeg: 200, windAfterDeg: 200, speedBeforeMs: 8, speedAfterMs: 8, turnDeg: 0,
     tempChangeC: 0, frontalChangeAdjC: 0, tempAdjChangeC: 0, abruptChangeC: 0, recoveryFraction: 0,
     dewpointChangeC: 0, dewpointDropMaxC: 0, thetaEChangeK: 0,

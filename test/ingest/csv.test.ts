@@ -30,7 +30,7 @@ test('readCsvText() reads IEM °F/kt/inHg columns into canonical units', () => {
   assertClose(o.temperatureC, (67 - 32) / 1.8, 1e-12, 0, 'SI °F definition');
   assertClose(o.windSpeedMs, (22 * 1852) / 3600, 1e-12, 0, 'NIST SP 811 knot');
   assertClose(o.gustMs, (34 * 1852) / 3600, 1e-12, 0, 'gust takes the wind-speed unit');
-  assertClose(o.altimeterHpa, 29.66 * 33.86389, 1e-9, 0, 'NIST SP 811 inHg');
+  assertClose(o.altimeterHpa, 29.66 * 33.8638864034, 1e-9, 0, 'conventional inHg, 0.0254 m × 13595.1 kg/m³ × g0 (NIST SP 811 B.8)');
   assert.is(o.seaLevelPressureHpa, 1004.3);
   assert.ok(Number.isNaN(r.observations[0]!.seaLevelPressureHpa)); // `M` = missing
   assert.is(o.precipMm, 0);
@@ -90,7 +90,7 @@ test('readCsvText() reads an NCEI LCD layout: standard time, flags, report types
   assert.is(b.source, 'SPECI');
   assertClose(a.temperatureC, (45 - 32) / 1.8, 1e-12, 0, "`45s`: suspect flag stripped, value kept");
   assertClose(a.windSpeedMs, 15 * 0.44704, 1e-12, 0, 'LCD wind in mph');
-  assertClose(a.stationPressureHpa, 29.1 * 33.86389, 1e-9, 0, 'LCD station pressure in inHg');
+  assertClose(a.stationPressureHpa, 29.1 * 33.8638864034, 1e-9, 0, 'LCD station pressure in inHg (conventional inHg)');
   assert.ok(Number.isNaN(b.windDirDeg)); // VRB
   assert.is(b.precipMm, 0); // trace
   assertClose(c.precipMm, 0.02 * 25.4, 1e-12);
@@ -219,9 +219,14 @@ test('readCsvText() collects station positions from lat/lon columns', () => {
 // WMO-No. 306 FM 15 present-weather groups (code table 4678).
 test('weatherFlagsFromCodes() reads METAR weather groups', () => {
   assert.is(weatherFlagsFromCodes('-RA BR'), WX.RAIN | WX.PRECIP);
-  assert.is(weatherFlagsFromCodes('+TSRA'), WX.THUNDER | WX.CONVECTIVE | WX.RAIN | WX.PRECIP | WX.HEAVY);
+  // WMO-No. 306 code table 4678: TS is the thunderstorm descriptor; CONVECTIVE is kept for lightning/CB reports
+  assert.is(weatherFlagsFromCodes('+TSRA'), WX.THUNDER | WX.RAIN | WX.PRECIP | WX.HEAVY);
+  assert.is(weatherFlagsFromCodes('TS'), WX.THUNDER);
   assert.is(weatherFlagsFromCodes('FZDZ'), WX.FREEZING | WX.DRIZZLE | WX.PRECIP);
   assert.is(weatherFlagsFromCodes('VCSH'), WX.SHOWER);
+  // FMH-1 §12.6.8 / WMO-No. 306: VC = in the vicinity, not at the station: no precipitation flag
+  assert.is(weatherFlagsFromCodes('VCSHRA'), WX.SHOWER);
+  assert.is(weatherFlagsFromCodes('-RA:02 BR:1 |RA BR |'), WX.RAIN | WX.PRECIP); // NCEI LCD layout
   assert.is(weatherFlagsFromCodes('SQ'), WX.SQUALL);
   assert.is(weatherFlagsFromCodes('M'), 0);
 });

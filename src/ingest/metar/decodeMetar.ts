@@ -9,7 +9,7 @@ import { reportTimeMs, type MonthRef } from './calendar.js';
 import { asciiBytes } from './ascii.js';
 import { asciiView, compassSuffix, dg, digits, isWord, k3, kw, pressureGroup, skyGroup, slashes, statuteMiles, tempGroup, windGroup } from './groups.js';
 import { decodeRemarks } from './remarks.js';
-import { STATUTE_MILE_M } from './units.js';
+import { STATUTE_MILE_M } from '../../physics/constants.js';
 import { weatherFlagsAt } from './weather.js';
 import { newMetarReport, resetReport, unknown, type MetarReport } from './metarReport.js';
 

@@ -9,7 +9,7 @@ import * as assert from 'uvu/assert';
 import { assertClose } from '../../helpers/assert.js';
 import { decodeBytesInto } from '../../../src/ingest/metar/byteMetar.js';
 import { decodeInto, newMetarReport, type MetarReport } from '../../../src/ingest/metar/decodeMetar.js';
-import { INHG_HPA, INCH_MM, KNOT_MS, STATUTE_MILE_M } from '../../../src/ingest/metar/units.js';
+import { HPA_PER_INHG as INHG_HPA, INCH_MM, KNOT_MS, STATUTE_MILE_M } from '../../../src/physics/constants.js';
 import { WX } from '../../../src/ingest/types.js';
 
 const REF = { year: 2024, month: 3, file: 'bytes.txt', line: 1 };

@@ -27,7 +27,7 @@ import {
 } from '../../../src/ingest/metar/groups.js';
 import { asciiBytes } from '../../../src/ingest/metar/ascii.js';
 import { newMetarReport, type MetarReport } from '../../../src/ingest/metar/decodeMetar.js';
-import { INHG_HPA, KMH_MS, KNOT_MS, STATUTE_MILE_M } from '../../../src/ingest/metar/units.js';
+import { HPA_PER_INHG as INHG_HPA, KMH_MS, KNOT_MS, STATUTE_MILE_M } from '../../../src/physics/constants.js';
 import { WX } from '../../../src/ingest/types.js';
 
 const kt = (v: number) => v * KNOT_MS;

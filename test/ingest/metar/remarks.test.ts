@@ -5,7 +5,8 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { assertClose } from '../../helpers/assert.js';
-import { decodeMetar, isParseIssue, KNOT_MS, type MetarReport } from '../../../src/ingest/metar.js';
+import { decodeMetar, isParseIssue, type MetarReport } from '../../../src/ingest/metar.js';
+import { KNOT_MS } from '../../../src/physics/constants.js';
 import { WX } from '../../../src/model/index.js';
 import { decodeRemarks } from '../../../src/ingest/metar/remarks.js';
 import { newMetarReport } from '../../../src/ingest/metar/decodeMetar.js';
@@ -61,6 +62,11 @@ test('5appp signed by WMO-No. 306 code table 0200 (examples: 52032 +3.2, 58033 �
     assertClose(r.pressureTendency3hHpa, v, 1e-12, 0, g);
   }
   assert.equal(rmk('59012').unknownGroups, ['59012']); // a = 9 is not in code table 0200
+  // WMO-No. 306 code table 0200: a = 4 is "the same as 3 h ago"; with ppp ≠ 000 the group contradicts itself
+  // and the sign is unknown, so the change is NaN (our documented rule); the characteristic is kept.
+  const odd = rmk('54003');
+  assert.is(odd.pressureTendencyCode, 4);
+  assert.ok(Number.isNaN(odd.pressureTendency3hHpa), '54003');
 });
 
 test('6-h max/min 1snTTT / 2snTTT (AFMAN 15-111 Att. 3: −2.1 → 11021, 14.2 → 10142, −0.1 → 21001, 1.2 → 20012)', () => {

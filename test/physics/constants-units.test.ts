@@ -1,17 +1,17 @@
-/** Unit factors of the METAR decoder (src/ingest/metar/units.ts) against their exact definitions. */
+/** Unit factors (src/physics/constants.ts, used by the METAR and CSV readers) against their exact definitions. */
 import { test } from 'uvu';
-import { assertClose } from '../../helpers/assert.js';
+import { assertClose } from '../helpers/assert.js';
 import {
   FOOT_M,
   INCH_MM,
-  INHG_HPA,
+  HPA_PER_INHG as INHG_HPA,
   KMH_MS,
   KNOT_MS,
-  MERCURY_DENSITY_CONVENTIONAL,
+  MERCURY_DENSITY_KG_M3 as MERCURY_DENSITY_CONVENTIONAL,
   NAUTICAL_MILE_M,
-  STANDARD_GRAVITY,
+  G0 as STANDARD_GRAVITY,
   STATUTE_MILE_M,
-} from '../../../src/ingest/metar/units.js';
+} from '../../src/physics/constants.js';
 
 test('NAUTICAL_MILE_M and KNOT_MS are the international nautical mile and knot', () => {
   // NIST SP 811 (2008) App. B.8: nautical mile 1852 m exactly
