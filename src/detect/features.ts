@@ -6,7 +6,7 @@
 import type { StationSeries } from '../series/series.js';
 import { WX } from '../ingest/types.js';
 import { cleanColumn } from '../qc/qc.js';
-import { signedTurnDeg, windFromComponents } from '../physics/wind.js';
+import { fmh1WindShifts, signedTurnDeg, windFromComponents } from '../physics/wind.js';
 import type { DetectGrid } from './grid.js';
 import { argExtremeIn, at, meanIn } from './window.js';
 import { MS_PER_HOUR } from '../physics/constants.js';
@@ -49,6 +49,8 @@ export interface Features {
   gustMaxMs: number;
   precipNear: boolean;
   convectiveNear: boolean;
+  /** The raw reports within 30 min of the anchor hold an FMH-1 §5.4.6 wind shift (`fmh1WindShifts`). */
+  fmh1WindShiftNear: boolean;
   /** Local solar hour at the anchor (NaN without longitude). */
   solarHour: number;
   zoneEndMs: number;
@@ -215,6 +217,9 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
       if (s.weather[k]! & (WX.THUNDER | WX.CONVECTIVE | WX.HAIL | WX.SQUALL)) convectiveNear = true;
     }
   }
+  const kLo = lowerBound(s.timeMs, tMs - 0.5 * MS_PER_HOUR);
+  const kHi = lowerBound(s.timeMs, tMs + 0.5 * MS_PER_HOUR + 1);
+  const fmh1WindShiftNear = kHi - kLo >= 2 && fmh1WindShifts(s.timeMs.subarray(kLo, kHi), raw.dir.subarray(kLo, kHi), spd.subarray(kLo, kHi)).length > 0;
   const lon = s.meta?.lonDeg;
   const solarHour = lon === undefined ? NaN : solarHourAt(tMs, lon);
   const zoneEndMs = zoneEnd >= 0 ? g.timeMs[zoneEnd]! : NaN;
@@ -243,6 +248,7 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     gustMaxMs: gustMax,
     precipNear,
     convectiveNear,
+    fmh1WindShiftNear,
     solarHour,
     zoneEndMs,
     zoneHours: (zoneEndMs - tMs) / MS_PER_HOUR,
