@@ -3,7 +3,8 @@
  * looks at (wind before/after and its turn, temperature, dew point and θe change, pressure trough,
  * jump and rise, gusts, precipitation, recovery) plus the transition zone.
  */
-import { WX, type StationSeries } from '../model/index.js';
+import type { StationSeries } from '../series/series.js';
+import { WX } from '../ingest/types.js';
 import { cleanColumn } from '../qc/qc.js';
 import { fmh1WindShifts, signedTurnDeg, windFromComponents } from '../physics/wind.js';
 import type { DetectGrid } from './grid.js';
@@ -48,7 +49,7 @@ export interface Features {
   gustMaxMs: number;
   precipNear: boolean;
   convectiveNear: boolean;
-  /** The raw reports from 1 h before to 2 h after the anchor hold an FMH-1 §5.4.6 wind shift (`fmh1WindShifts`). */
+  /** The raw reports within 30 min of the anchor hold an FMH-1 §5.4.6 wind shift (`fmh1WindShifts`). */
   fmh1WindShiftNear: boolean;
   /** Local solar hour at the anchor (NaN without longitude). */
   solarHour: number;
@@ -216,8 +217,8 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
       if (s.weather[k]! & (WX.THUNDER | WX.CONVECTIVE | WX.HAIL | WX.SQUALL)) convectiveNear = true;
     }
   }
-  const kLo = lowerBound(s.timeMs, tMs - MS_PER_HOUR);
-  const kHi = lowerBound(s.timeMs, tMs + 2 * MS_PER_HOUR + 1);
+  const kLo = lowerBound(s.timeMs, tMs - 0.5 * MS_PER_HOUR);
+  const kHi = lowerBound(s.timeMs, tMs + 0.5 * MS_PER_HOUR + 1);
   const fmh1WindShiftNear = kHi - kLo >= 2 && fmh1WindShifts(s.timeMs.subarray(kLo, kHi), raw.dir.subarray(kLo, kHi), spd.subarray(kLo, kHi)).length > 0;
   const lon = s.meta?.lonDeg;
   const solarHour = lon === undefined ? NaN : solarHourAt(tMs, lon);
