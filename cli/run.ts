@@ -102,7 +102,7 @@ function parser(onSelect: (s: Selected) => void) {
           .option('bootstrap-seed', { type: 'number', default: 1, describe: 'Seed of the bootstrap (output is deterministic)', group: 'Verification:' })
           .option('kinds', { type: 'string', describe: `Verify only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Verification:' })
           .option('min-confidence', { type: 'number', describe: 'Observed passages: drop those below this confidence, 0 to 1 (detector default 0.4)', group: 'Verification:' })
-          .option('format', { choices: ['table', 'csv', 'json'] as const, default: 'table', describe: 'Output format (CSV/JSON: one record per forecast, plus the misses)', group: 'Output:' })
+          .option('format', { choices: ['table', 'csv', 'json', 'scores'] as const, default: 'table', describe: 'Output format (CSV/JSON: one record per forecast and per miss of every issue; scores: CSV of the scores per group, with the headline intervals)', group: 'Output:' })
           .example('$0 verify stations-demo --forecasts stations-demo/forecasts/forecast_passages.csv', 'Demo forecasts against the demo observations: scores per station and lead time')
           .example('$0 verify obs/ --stations stations.csv --forecasts fc.csv --kinds cold-front --window-hours 3', 'Cold fronts only, matched within ±3 h')
           .example('$0 verify obs/ --forecasts fc.csv --format csv --out verification.csv', 'One row per forecast (hit or false alarm) and per miss, every issue')

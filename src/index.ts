@@ -79,3 +79,4 @@ export { CI_SCORES, LEAD_BINS, leadBin, scoresOf, scoresOfOutcomes } from './ver
 export type { CiScore, CoveragePeriod, LeadBin, OutcomeKind, VerifiedOutcome, VerifiedPair, VerifyScores } from './verify/verify.js';
 export { seriesForecasts, seriesSpans } from './verify/seriesForecasts.js';
 export type { ForecastSeriesSpan } from './verify/seriesForecasts.js';
+export { SCORE_COLUMNS, verificationScoresToCsv } from './verify/format.js';

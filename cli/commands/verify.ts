@@ -6,7 +6,7 @@
 import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import {
-  analyseSeries, buildStationIndex, issueLine, loadPaths, readForecastsText, seriesForecasts, seriesSpans, verificationToCsv, verificationToJson,
+  analyseSeries, buildStationIndex, issueLine, loadPaths, readForecastsText, seriesForecasts, seriesSpans, verificationScoresToCsv, verificationToCsv, verificationToJson,
   verificationToTable, verifyForecasts, UsageError, type CoveragePeriod, type FileReport, type ForecastPassage,
 } from '../../src/index.js';
 import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
@@ -114,6 +114,8 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
       ? verificationToCsv(r)
       : format === 'json'
         ? verificationToJson(r)
+        : format === 'scores'
+          ? verificationScoresToCsv(r)
         : verificationToTable(r, {
             forecastFile: [forecastFile, ...seriesPaths].filter(Boolean).join(', '),
             observedCount: events.length,

@@ -65,6 +65,41 @@ export function verificationToJson(r: VerifyResult): string {
   return '[\n' + recs.map((x) => '  ' + JSON.stringify(x)).join(',\n') + '\n]\n';
 }
 
+const SCORE_FIELDS: [string, keyof VerifyScores, number][] = [
+  ['hits', 'hits', 0], ['misses', 'misses', 0], ['false_alarms', 'falseAlarms', 0], ['pod', 'pod', 3], ['far', 'far', 3], ['csi', 'csi', 3], ['bias', 'bias', 3],
+  ['error_mean_min', 'timingErrorMeanMin', 1], ['error_median_min', 'timingErrorMedianMin', 1], ['error_mae_min', 'timingErrorMaeMin', 1],
+  ['error_rmse_min', 'timingErrorRmseMin', 1], ['error_p90_abs_min', 'p90AbsMin', 1], ['n_late', 'nLate', 0], ['n_early', 'nEarly', 0],
+];
+const CI_FIELD: Record<CiScore, string> = {
+  pod: 'pod', far: 'far', csi: 'csi', bias: 'bias', timingErrorMeanMin: 'error_mean_min', timingErrorMedianMin: 'error_median_min',
+  timingErrorMaeMin: 'error_mae_min', timingErrorRmseMin: 'error_rmse_min', p90AbsMin: 'error_p90_abs_min',
+};
+
+/** Columns of the scores CSV (`--format scores`). */
+export const SCORE_COLUMNS = ['group', 'key', ...SCORE_FIELDS.map((f) => f[0]), ...CI_SCORES.flatMap((k) => [`${CI_FIELD[k]}_lo`, `${CI_FIELD[k]}_hi`])];
+
+/**
+ * Scores as CSV, one row per group: `all` (headline, with the bootstrap interval ends `*_lo`, `*_hi`),
+ * `station`, `kind`, `source` (headline), `lead` (every issue). Missing = empty cell.
+ */
+export function verificationScoresToCsv(r: VerifyResult): string {
+  const lines = [SCORE_COLUMNS.join(',')];
+  const row = (group: string, key: string, sc: VerifyScores, iv?: Record<CiScore, Interval>) => {
+    const cells: RecordValue[] = [group, key, ...SCORE_FIELDS.map(([, k, d]) => roundOrNull(sc[k], d))];
+    for (const k of CI_SCORES) {
+      const d = SCORE_FIELDS.find((f) => f[1] === k)![2];
+      cells.push(iv ? roundOrNull(iv[k].lo, d) : null, iv ? roundOrNull(iv[k].hi, d) : null);
+    }
+    lines.push(cells.map(csvCell).join(','));
+  };
+  row('all', 'all', r.scores, r.intervals);
+  for (const [k, sc] of r.byStation) row('station', k, sc);
+  for (const [k, sc] of r.byKind) row('kind', k, sc);
+  for (const [k, sc] of r.bySource) row('source', k, sc);
+  for (const [k, sc] of r.byLeadTime) row('lead', k, sc);
+  return lines.join('\n') + '\n';
+}
+
 function num(x: number, digits: number, signed = false): string {
   const v = roundOrNull(x, digits);
   if (v === null) return '-';

@@ -4,7 +4,7 @@ import * as assert from 'uvu/assert';
 import type { PassageEvent } from '../../src/model/index.js';
 import type { ForecastPassage } from '../../src/verify/forecasts.js';
 import { verifyForecasts } from '../../src/verify/verify.js';
-import { verificationToCsv, verificationToJson, verificationToTable, VERIFY_COLUMNS } from '../../src/verify/format.js';
+import { SCORE_COLUMNS, verificationScoresToCsv, verificationToCsv, verificationToJson, verificationToTable, VERIFY_COLUMNS } from '../../src/verify/format.js';
 import { CAUTION } from '../../src/report/caution.js';
 
 const H = 3_600_000;
@@ -49,6 +49,15 @@ test('verificationToTable: sign convention stated, kind mismatch listed, caution
   assert.ok(lines.some((l) => /^\s+POD \S+ \[\S+, \S+\]; FAR/.test(l)), 'headline scores with bootstrap intervals');
   assert.ok(lines.some((l) => /^all\s+1\s+2\s+2\s/.test(l)), 'headline: 1 hit, 2 misses, 2 false alarms');
   assert.is(lines[lines.length - 1], CAUTION);
+});
+
+test('verificationScoresToCsv: one row per group, the headline row with interval ends, the others without', () => {
+  const rows = verificationScoresToCsv(r).trimEnd().split('\n');
+  assert.is(rows[0], SCORE_COLUMNS.join(','));
+  // headline: 1 hit, 2 misses, 2 false alarms → POD 1/3, FAR 2/3, CSI 1/5, bias 3/3 (Wilks 2011 ch. 8, by hand)
+  assert.match(rows[1]!, /^all,all,1,2,2,0\.333,0\.667,0\.2,1,30,30,30,30,30,1,0,/);
+  assert.equal(rows.slice(1).map((l) => l.split(',').slice(0, 2).join(',')), ['all,all', 'station,A', 'station,B', 'kind,any', 'kind,cold-front', 'kind,occluded-front', 'source,f.csv', 'lead,12-24h', 'lead,24-48h', 'lead,unknown']);
+  assert.ok(rows[2]!.endsWith(',,'), 'intervals only for the headline row');
 });
 
 test.run();
