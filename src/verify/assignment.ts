@@ -91,17 +91,37 @@ export function matchOptimal(
   const nO = observedMs.length;
   const nF = forecastMs.length;
   const ok = (i: number, j: number) => Math.abs(forecastMs[j]! - observedMs[i]!) <= windowMs && compatible(i, j);
-  // Only observed and forecast items with at least one admissible partner enter the matrix.
-  const rows: number[] = [];
-  const colSet = new Set<number>();
+  // Admissible pairs split the items into independent groups (connected components, union–find);
+  // each group is one small assignment problem. Items without an admissible partner stay unmatched.
+  const parent = Array.from({ length: nO + nF }, (_, k) => k);
+  const find = (k: number): number => {
+    while (parent[k] !== k) k = parent[k] = parent[parent[k]!]!;
+    return k;
+  };
+  const edges: [number, number][] = [];
   for (let i = 0; i < nO; i++) {
-    let any = false;
-    for (let j = 0; j < nF; j++) if (ok(i, j)) (any = true), colSet.add(j);
-    if (any) rows.push(i);
+    for (let j = 0; j < nF; j++) {
+      if (!ok(i, j)) continue;
+      edges.push([i, j]);
+      const a = find(i);
+      const b = find(nO + j);
+      if (a !== b) parent[Math.max(a, b)] = Math.min(a, b);
+    }
   }
-  const cols = [...colSet].sort((a, b) => a - b);
+  const comps = new Map<number, { rows: number[]; cols: number[] }>();
+  const seenCol = new Uint8Array(nF);
+  const seenRow = new Uint8Array(nO);
+  for (const [i, j] of edges) {
+    const r = find(i);
+    let c = comps.get(r);
+    if (!c) comps.set(r, (c = { rows: [], cols: [] }));
+    if (!seenRow[i]) (seenRow[i] = 1), c.rows.push(i);
+    if (!seenCol[j]) (seenCol[j] = 1), c.cols.push(j);
+  }
   const pairs: [number, number][] = [];
-  if (rows.length) {
+  for (const { rows, cols } of comps.values()) {
+    rows.sort((x, y) => x - y);
+    cols.sort((x, y) => x - y);
     const maxErr = Math.max(windowMs, 1);
     const B = maxErr * (Math.min(rows.length, cols.length) + 1);
     const forbidden = B * (rows.length + cols.length + 2);
@@ -116,6 +136,7 @@ export function matchOptimal(
       if (c < cols.length && ok(i, cols[c]!)) pairs.push([i, cols[c]!]);
     });
   }
+  pairs.sort((x, y) => x[0] - y[0]);
   const mo = new Uint8Array(nO);
   const mf = new Uint8Array(nF);
   for (const [i, j] of pairs) (mo[i] = 1), (mf[j] = 1);
