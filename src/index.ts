@@ -70,3 +70,13 @@ export { CAUTION } from './report/caution.js';
 
 // Formulas (dew point, potential temperature, pressure reduction, wind, sun, geodesy), as a namespace.
 export * as physics from './physics/index.js';
+
+// Verification: optimal matching, issues and lead times, forecast series, bootstrap intervals.
+export { matchOptimal, minCostAssignment } from './verify/assignment.js';
+export { bootstrapIntervals, mulberry32 } from './verify/bootstrap.js';
+export type { BootstrapOptions, Interval } from './verify/bootstrap.js';
+export { CI_SCORES, LEAD_BINS, leadBin, scoresOf, scoresOfOutcomes } from './verify/verify.js';
+export type { CiScore, CoveragePeriod, LeadBin, OutcomeKind, VerifiedOutcome, VerifiedPair, VerifyScores } from './verify/verify.js';
+export { seriesForecasts, seriesSpans } from './verify/seriesForecasts.js';
+export type { ForecastSeriesSpan } from './verify/seriesForecasts.js';
+export { SCORE_COLUMNS, verificationScoresToCsv } from './verify/format.js';
