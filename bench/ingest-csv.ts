@@ -16,7 +16,7 @@ import { pathToFileURL } from 'node:url';
 import Papa from 'papaparse';
 import { readCsvBytes, readCsvStream, readCsvText } from '../src/ingest/csv.js';
 import { SeriesBuilder } from '../src/series/seriesBuilder.js';
-import { makeRng } from '../src/synth/random.js';
+import { makeRng } from '../tools/synth/random.js';
 
 
 const HEADER = 'station,valid,tmpf,dwpf,relh,drct,sknt,gust,alti,mslp,p01i,vsby';

@@ -22,7 +22,7 @@ import { decodeBytesInto } from '../src/ingest/metar/byteMetar.js';
 import { archiveStampInto } from '../src/ingest/metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef } from '../src/ingest/metar/decodeMetar.js';
 import { SeriesBuilder } from '../src/series/seriesBuilder.js';
-import { makeRng } from '../src/synth/random.js';
+import { makeRng } from '../tools/synth/random.js';
 
 const pad = (n: number, w: number) => String(Math.trunc(n)).padStart(w, '0');
 const tc = (t: number) => (t < 0 ? 'M' + pad(-Math.round(t), 2) : pad(Math.round(t), 2));

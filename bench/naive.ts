@@ -5,7 +5,7 @@
  * Calm or missing winds carry no direction: the rule uses the nearest reported direction with a
  * speed of at least 1 m/s, within 1 h.
  */
-import type { StationSeries } from '../src/series/series.js';
+import type { StationSeries } from '../src/model/index.js';
 
 export interface NaiveEvent {
   station: string;

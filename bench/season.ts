@@ -6,10 +6,10 @@
  * network of 1,000 stations on one core, and the peak resident memory.
  * Usage: npm run bench:season [-- --stations 6 --days 365 --seed 20260301]
  */
-import { generateNetwork } from '../src/synth/generateNetwork.js';
-import { allocSeries, SERIES_FIELDS, type StationSeries } from '../src/series/series.js';
+import { generateNetwork } from '../tools/synth/generateNetwork.js';
+import { allocSeries, SERIES_FIELDS, type StationSeries } from '../src/model/index.js';
 import { applyQc } from '../src/qc/qc.js';
-import { analyseSeries } from '../src/analyse.js';
+import { analyseSeries } from '../src/pipeline.js';
 import { naiveDetect } from './naive.js';
 import { benchStations } from './skill-data.js';
 

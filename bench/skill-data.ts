@@ -6,10 +6,10 @@
 import { mkdirSync, mkdtempSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import type { StationMeta } from '../src/ingest/types.js';
-import { generateNetwork } from '../src/synth/generateNetwork.js';
-import { toCsvText, type CsvConvention } from '../src/synth/toCsvText.js';
-import { toMetarLines } from '../src/synth/toMetarLines.js';
+import type { StationMeta } from '../src/model/index.js';
+import { generateNetwork } from '../tools/synth/generateNetwork.js';
+import { toCsvText, type CsvConvention } from '../tools/synth/toCsvText.js';
+import { toMetarLines } from '../tools/synth/toMetarLines.js';
 
 const HOUR = 3_600_000;
 
@@ -41,6 +41,15 @@ export function benchStations(): StationMeta[] {
   }));
 }
 
+/** A stations file the readers accept (id, alias, name, position, coastal flag, sea bearing). */
+export function stationsCsvText(stations: readonly StationMeta[]): string {
+  return (
+    'id,alias,name,lat,lon,elevation_m,coastal,sea_bearing_deg\n' +
+    stations.map((s) => [s.id, s.aliases[0], s.name, s.latDeg, s.lonDeg, s.elevationM, s.coastal ? 'yes' : 'no', s.seaBearingDeg ?? ''].join(',')).join('\n') +
+    '\n'
+  );
+}
+
 /** Generate the network for `seed` over `days` from 1 March 2026 and write it under a new temporary folder. */
 export function writeBenchNetwork(seed: number, days: number) {
   const stations = benchStations();
@@ -61,12 +70,8 @@ export function writeBenchNetwork(seed: number, days: number) {
   const metarDir = join(dir, 'metar');
   mkdirSync(csvDir);
   mkdirSync(metarDir);
-  const stationsCsv =
-    'id,alias,name,lat,lon,elevation_m,coastal,sea_bearing_deg\n' +
-    stations.map((s) => [s.id, s.aliases[0], s.name, s.latDeg, s.lonDeg, s.elevationM, s.coastal ? 'yes' : 'no', s.seaBearingDeg ?? ''].join(',')).join('\n') +
-    '\n';
   const stationsFile = join(dir, 'stations.csv');
-  writeFileSync(stationsFile, stationsCsv);
+  writeFileSync(stationsFile, stationsCsvText(stations));
   const conventions: CsvConvention[] = ['iem', 'metric', 'local-offset'];
   stations.forEach((s, k) => {
     const series = net.obs.get(s.id)!;

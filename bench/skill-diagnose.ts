@@ -7,9 +7,9 @@
  *        [--show false|misses|kinds|late] [--min-confidence X]
  */
 import { rmSync } from 'node:fs';
-import { loadPaths } from '../src/ingest/load.js';
+import { loadPaths } from '../src/pipeline.js';
 import { detectStation } from '../src/detect/detect.js';
-import type { TruthEvent } from '../src/synth/types.js';
+import type { TruthEvent } from '../tools/synth/types.js';
 import { writeBenchNetwork } from './skill-data.js';
 import { matchOneToOne } from '../src/verify/contingency.js';
 import { quantile } from '../src/verify/quantile.js';

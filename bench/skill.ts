@@ -7,14 +7,12 @@
  * Usage: npm run bench:skill [-- --seed 20260301 --days 90 --json out.json]
  */
 import { rmSync, writeFileSync } from 'node:fs';
-import type { StationSeries } from '../src/series/series.js';
+import type { StationSeries } from '../src/model/index.js';
 import { writeBenchNetwork } from './skill-data.js';
-import type { TruthEvent } from '../src/synth/types.js';
+import type { TruthEvent } from '../tools/synth/types.js';
 import { naiveDetect } from './naive.js';
-import { contingencyForKind, csi, far, matchOneToOne, pod, type Contingency } from '../src/verify/contingency.js';
-import { quantile } from '../src/verify/quantile.js';
+import { score, type Detected, type Scores } from './skill-score.js';
 
-const HOUR = 3_600_000;
 const args = process.argv.slice(2);
 const arg = (name: string, def: string) => {
   const i = args.indexOf(`--${name}`);
@@ -24,12 +22,6 @@ const seed = Number(arg('seed', '20260301'));
 const days = Number(arg('days', '90'));
 const jsonOut = args.includes('--json') ? arg('json', '') : '';
 
-interface Detected {
-  station: string;
-  kind: string;
-  timeMs: number;
-  zoneHours: number;
-}
 type LoadFn = (paths: string[], opts?: { stationsFile?: string }) => Promise<{ series: StationSeries[] }> | { series: StationSeries[] };
 type DetectFn = (s: StationSeries) => Detected[];
 
@@ -37,77 +29,18 @@ async function importOrExplain(): Promise<{ loadPaths: LoadFn; detectStation: De
   let loadPaths: LoadFn;
   let detectStation: DetectFn;
   try {
-    ({ loadPaths } = (await import('../src/ingest/load.js')) as unknown as { loadPaths: LoadFn });
+    ({ loadPaths } = (await import('../src/pipeline.js')) as unknown as { loadPaths: LoadFn });
   } catch (e) {
-    throw new Error(`bench:skill needs src/ingest/load.ts (loadPaths), which could not be loaded: ${(e as Error).message}`);
+    throw new Error(`bench:skill needs src/pipeline.ts (loadPaths), which could not be loaded: ${(e as Error).message}`);
   }
   try {
     ({ detectStation } = (await import('../src/detect/detect.js')) as unknown as { detectStation: DetectFn });
   } catch (e) {
     throw new Error(`bench:skill needs src/detect/detect.ts (detectStation), which could not be loaded: ${(e as Error).message}`);
   }
-  if (typeof loadPaths !== 'function') throw new Error('src/ingest/load.ts does not export loadPaths');
+  if (typeof loadPaths !== 'function') throw new Error('src/pipeline.ts does not export loadPaths');
   if (typeof detectStation !== 'function') throw new Error('src/detect/detect.ts does not export detectStation');
   return { loadPaths, detectStation };
-}
-
-const FRONT_KINDS = new Set(['cold-front', 'warm-front', 'occluded-front']);
-const REAL_KINDS = new Set(['cold-front', 'warm-front', 'occluded-front', 'dryline']);
-
-interface Scores {
-  detections: number;
-  cold: Contingency & { pod: number; far: number; csi: number };
-  warm: Contingency & { pod: number; far: number; csi: number };
-  matched: number;
-  kindAccuracy: number;
-  timingMedianMin: number;
-  timingP90Min: number;
-  zoneHoursMedianAbsErr: number;
-  decoysCalledFront: Record<string, { n: number; called: number; pct: number }>;
-}
-
-function score(truth: readonly TruthEvent[], det: readonly Detected[]): Scores {
-  const real = truth.filter((e) => !e.isDecoy && REAL_KINDS.has(e.kind));
-  const decoys = truth.filter((e) => e.isDecoy);
-  const m = matchOneToOne(real, det, 3 * HOUR);
-  const tk = real.map((e) => e.kind as string);
-  const dk = det.map((d) => d.kind);
-  const withScores = (c: Contingency) => ({ ...c, pod: pod(c), far: far(c), csi: csi(c) });
-  const cold = withScores(contingencyForKind(tk, dk, m, 'cold-front'));
-  const warm = withScores(contingencyForKind(tk, dk, m, 'warm-front'));
-  let right = 0;
-  const timing: number[] = [];
-  const zoneErr: number[] = [];
-  for (const [i, j] of m.pairs) {
-    const t = real[i]!;
-    const d = det[j]!;
-    if (t.kind === d.kind) right++;
-    if (t.kind === 'cold-front' || t.kind === 'warm-front') {
-      timing.push(Math.abs(d.timeMs - t.timeMs) / 60000);
-      if (t.zoneEndMs !== undefined && Number.isFinite(d.zoneHours)) zoneErr.push(Math.abs(d.zoneHours - (t.zoneEndMs - t.timeMs) / HOUR));
-    }
-  }
-  const free = m.unmatchedDetections.map((j) => det[j]!).filter((d) => FRONT_KINDS.has(d.kind));
-  const decoysCalledFront: Scores['decoysCalledFront'] = {};
-  for (const e of decoys) {
-    const r = (decoysCalledFront[e.kind] ??= { n: 0, called: 0, pct: NaN });
-    r.n++;
-    const a = e.zoneEndMs !== undefined ? e.timeMs - HOUR : e.timeMs - 3 * HOUR;
-    const b = e.zoneEndMs !== undefined ? e.zoneEndMs + HOUR : e.timeMs + 3 * HOUR;
-    if (free.some((d) => d.station === e.station && d.timeMs >= a && d.timeMs <= b)) r.called++;
-  }
-  for (const r of Object.values(decoysCalledFront)) r.pct = (100 * r.called) / r.n;
-  return {
-    detections: det.length,
-    cold,
-    warm,
-    matched: m.pairs.length,
-    kindAccuracy: m.pairs.length ? right / m.pairs.length : NaN,
-    timingMedianMin: quantile(timing, 0.5),
-    timingP90Min: quantile(timing, 0.9),
-    zoneHoursMedianAbsErr: quantile(zoneErr, 0.5),
-    decoysCalledFront,
-  };
 }
 
 async function main(): Promise<void> {

@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Argv } from 'yargs';
-import type { LoadOptions } from '../src/ingest/load.js';
+import { loadMappingFile, parseColumnOverride, UsageError, type LoadOptions } from '../src/index.js';
 
 /** Standard streams of one CLI run, injectable for in-process tests. */
 export interface CliIo {
@@ -12,11 +12,6 @@ export interface CliIo {
   stderr(text: string): void;
   /** All of standard input as text (called only when a path is `-`). */
   readStdin(): Promise<string>;
-}
-
-/** A problem with how fropa was called (exit code 2). Same name as the loader's UsageError, which run.ts also maps to 2. */
-export class ArgumentError extends Error {
-  override name = 'UsageError';
 }
 
 /** Last value when an option was given more than once (yargs collects repeats into an array). */
@@ -62,7 +57,7 @@ export function withInputOptions<T>(y: Argv<T>) {
 /** Normalise the repeatable options yargs may give as a string, an array or undefined. */
 export function inputArgs(a: Record<string, unknown>): InputArgs {
   const paths = all(a.paths).map((p) => (p === STDIN_TOKEN ? '-' : p));
-  if (paths.length === 0) throw new ArgumentError('name at least one file or folder to read (- for standard input)');
+  if (paths.length === 0) throw new UsageError('name at least one file or folder to read (- for standard input)');
   return {
     paths,
     stations: a.stations as string | undefined,
@@ -82,19 +77,18 @@ export function inputArgs(a: Record<string, unknown>): InputArgs {
 /**
  * Check the shared options and build the loader's options: `--month` YYYY-MM, `--tz` a valid IANA zone,
  * `--utc-offset` within ±14 h, every `--column` parsed, the mapping file read (CLI values win over
- * it), standard input read when a path is `-`. Throws ArgumentError (exit code 2).
+ * it), standard input read when a path is `-`. Throws UsageError (exit code 2).
  */
 export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<LoadOptions> {
   const { IANAZone } = await import('luxon');
-  const { parseColumnOverride, loadMappingFile } = await import('../src/ingest/columns.js');
   const opts: LoadOptions = {};
   if (args.month !== undefined) {
-    if (!/^\d{4}-(0[1-9]|1[0-2])$/.test(args.month)) throw new ArgumentError(`--month "${args.month}" must be YYYY-MM, e.g. 2024-02`);
+    if (!/^\d{4}-(0[1-9]|1[0-2])$/.test(args.month)) throw new UsageError(`--month "${args.month}" must be YYYY-MM, e.g. 2024-02`);
     opts.month = args.month;
   }
   if (args.utcOffset !== undefined) {
     if (!Number.isFinite(args.utcOffset) || Math.abs(args.utcOffset) > 14 * 60) {
-      throw new ArgumentError(`--utc-offset must be minutes between -840 and 840, e.g. -360 for UTC−6`);
+      throw new UsageError(`--utc-offset must be minutes between -840 and 840, e.g. -360 for UTC−6`);
     }
     opts.offsetMinutes = args.utcOffset;
   }
@@ -103,7 +97,7 @@ export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<Lo
     try {
       text = readFileSync(args.mapping, 'utf8');
     } catch {
-      throw new ArgumentError(`${args.mapping}: cannot read the mapping file`);
+      throw new UsageError(`${args.mapping}: cannot read the mapping file`);
     }
     try {
       const m = loadMappingFile(text);
@@ -112,19 +106,19 @@ export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<Lo
       if (m.zone !== undefined && args.utcOffset === undefined) opts.zone = m.zone;
       if (m.standardTime !== undefined) opts.standardTime = m.standardTime;
     } catch (e) {
-      throw new ArgumentError(`${args.mapping}: ${(e as Error).message}`);
+      throw new UsageError(`${args.mapping}: ${(e as Error).message}`);
     }
   }
   if (args.tz !== undefined) opts.zone = args.tz;
   if (opts.zone !== undefined && !IANAZone.isValidZone(opts.zone)) {
-    throw new ArgumentError(`${args.tz !== undefined ? '--tz' : `${args.mapping}: tz`} "${opts.zone}" is not an IANA time zone name (e.g. America/Chicago, Europe/Berlin, UTC)`);
+    throw new UsageError(`${args.tz !== undefined ? '--tz' : `${args.mapping}: tz`} "${opts.zone}" is not an IANA time zone name (e.g. America/Chicago, Europe/Berlin, UTC)`);
   }
   if (args.standardTime !== undefined) opts.standardTime = args.standardTime;
   for (const spec of args.column) {
     try {
       (opts.overrides ??= []).push(parseColumnOverride(spec));
     } catch (e) {
-      throw new ArgumentError(`--column: ${(e as Error).message}`);
+      throw new UsageError(`--column: ${(e as Error).message}`);
     }
   }
   if (args.missing.length) opts.missing = [...(opts.missing ?? []), ...args.missing];

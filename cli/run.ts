@@ -6,8 +6,7 @@
  */
 import { readFileSync } from 'node:fs';
 import yargs, { type Argv } from 'yargs';
-import { BOUNDARY_KINDS } from '../src/detect/types.js';
-import { CAUTION } from '../src/report/caution.js';
+import { BOUNDARY_KINDS, CAUTION, UsageError } from '../src/index.js';
 import { STDIN_TOKEN, withInputOptions, type CliIo } from './options.js';
 
 export type { CliIo } from './options.js';
@@ -95,15 +94,21 @@ function parser(onSelect: (s: Selected) => void) {
       'Verify forecast passage times against the passages found in the observations',
       (y) =>
         withInputOptions(y)
-          .option('forecasts', { type: 'string', demandOption: 'name the forecast file: --forecasts FILE (CSV: station, kind, forecast_time, issued_time)', describe: 'Forecast passages, CSV: station, kind, forecast_time, issued_time (kind and issued_time optional)', group: 'Verification:' })
+          .option('forecasts', { type: 'string', describe: 'Forecast passages, CSV: station, kind, forecast_time, issued_time, valid_from, valid_to (all but station and forecast_time optional)', group: 'Verification:' })
+          .option('forecast-series', { type: 'string', describe: 'Forecast point series in any format fropa reads (e.g. model output at a station); its passages are detected as the observed ones; repeatable, one source each', group: 'Verification:' })
           .option('window-hours', { type: 'number', default: 6, describe: 'A forecast and an observed passage match when within this many hours', group: 'Verification:' })
+          .option('valid-hours', { type: 'number', describe: 'An issue covers issued time … + this many hours (misses counted there) unless valid_from/valid_to are given; default: ±window around each forecast', group: 'Verification:' })
+          .option('bootstrap-resamples', { type: 'number', default: 1000, describe: 'Bootstrap resamples of the headline intervals (0: none)', group: 'Verification:' })
+          .option('bootstrap-seed', { type: 'number', default: 1, describe: 'Seed of the bootstrap (output is deterministic)', group: 'Verification:' })
           .option('kinds', { type: 'string', describe: `Verify only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Verification:' })
           .option('min-confidence', { type: 'number', describe: 'Observed passages: drop those below this confidence, 0 to 1 (detector default 0.4)', group: 'Verification:' })
-          .option('format', { choices: ['table', 'csv', 'json'] as const, default: 'table', describe: 'Output format (CSV/JSON: one record per forecast, plus the misses)', group: 'Output:' })
+          .option('format', { choices: ['table', 'csv', 'json', 'scores'] as const, default: 'table', describe: 'Output format (CSV/JSON: one record per forecast and per miss of every issue; scores: CSV of the scores per group, with the headline intervals)', group: 'Output:' })
           .example('$0 verify stations-demo --forecasts stations-demo/forecasts/forecast_passages.csv', 'Demo forecasts against the demo observations: scores per station and lead time')
           .example('$0 verify obs/ --stations stations.csv --forecasts fc.csv --kinds cold-front --window-hours 3', 'Cold fronts only, matched within ±3 h')
-          .example('$0 verify obs/ --forecasts fc.csv --format csv --out verification.csv', 'One row per forecast (hit or false alarm) and per miss')
-          .epilogue('Timing error = forecast − observed, minutes: positive = forecast late. Kinds are strict: a cold-front forecast never matches an observed occluded front (such near misses are listed).\n\n' + EPILOGUE),
+          .example('$0 verify obs/ --forecasts fc.csv --format csv --out verification.csv', 'One row per forecast (hit or false alarm) and per miss, every issue')
+          .example('$0 verify obs/ --forecasts fc.csv --valid-hours 48', 'Each issue covers 48 h from its issued time: passages there it did not forecast are misses')
+          .example('$0 verify obs/ --forecast-series model/', 'Detect passages in model output at the stations and verify them with the same detector')
+          .epilogue('Timing error = forecast − observed, minutes: positive = forecast late. Kinds are strict: a cold-front forecast never matches an observed occluded front (such near misses are listed). Each issue is verified on its own; the headline takes the latest issue before each passage.\n\n' + EPILOGUE),
       (a) => onSelect({ command: 'verify', args: a as Record<string, unknown> }),
     )
     .command(
@@ -132,7 +137,7 @@ function parser(onSelect: (s: Selected) => void) {
     .strict()
     .exitProcess(false)
     .fail((msg, err) => {
-      throw Object.assign(new Error(msg || err?.message || 'invalid arguments'), { name: 'UsageError', fromParser: true });
+      throw Object.assign(new UsageError(msg || err?.message || 'invalid arguments'), { fromParser: true });
     })
     .help()
     .alias('h', 'help')
@@ -172,7 +177,7 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
     return await mod.run(sel.args, io);
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));
-    const usage = err.name === 'UsageError';
+    const usage = err instanceof UsageError;
     io.stderr(`fropa: ${err.message.split(STDIN_TOKEN).join('-')}\n`);
     if ((err as { fromParser?: boolean }).fromParser) io.stderr('Run fropa --help (or fropa <command> --help) for usage.\n');
     if (verbose && err.stack) io.stderr(err.stack + '\n');

@@ -1,20 +1,82 @@
-/** fropa library surface. The CLI lives in cli/ and is not exported here. */
-export * from './ingest/types.js';
-export * from './series/series.js';
-export { loadPaths, UsageError, type LoadOptions, type LoadResult } from './ingest/load.js';
-export { readMetarText, readMetarBytes, decodeMetar } from './ingest/metar.js';
-export { readCsvText, readCsvBytes, readCsvStream } from './ingest/csv.js';
-export { readStationsText } from './ingest/stations.js';
-export { applyQc, cleanColumn } from './qc/qc.js';
-export { detectStation } from './detect/detect.js';
-export * from './detect/types.js';
-export * from './report/format.js';
-export * from './report/fronts.js';
-export * from './network/track.js';
-export { withFrontogenesis, petterssenFrontogenesis } from './network/frontogenesis.js';
-export { planeGradient } from './network/gradient.js';
-export * from './verify/contingency.js';
-export { verifyForecasts } from './verify/verify.js';
+/**
+ * fropa library surface: the pipeline, the readers, the writers and the domain types. The CLI (cli/) imports
+ * only this module; nothing here imports the CLI. Internals (cell formatters, builder helpers, issue counters)
+ * stay behind it.
+ */
+
+// Domain model (canonical units: °C, hPa, m/s, degrees true, epoch ms UTC; missing is NaN).
+export { BOUNDARY_KINDS, QC, SERIES_FIELDS, UsageError, WX } from './model/index.js';
+export type {
+  BoundaryKind,
+  DuplicateNote,
+  FieldColumns,
+  FileReport,
+  FrontTrack,
+  Observation,
+  ObserverRemark,
+  ParseIssue,
+  PassageEvent,
+  SeriesField,
+  SourceLine,
+  StationMeta,
+  StationSeries,
+  StrengthTrend,
+  TrackMember,
+} from './model/index.js';
+
+// The pipeline: read → series → station pressure → QC (loadPaths); detect → track → frontogenesis (analyseSeries).
+export { analyseSeries, loadPaths, sortEvents } from './pipeline.js';
+export type { AnalyseOptions, Analysis, LoadOptions, LoadResult } from './pipeline.js';
+
+// Readers: text or bytes → observations (or parse issues) and a file report.
+export { decodeMetar, isParseIssue, readMetarBytes, readMetarText } from './ingest/metar.js';
+export type { MetarReadOptions, MetarReport } from './ingest/metar.js';
+export { readCsvBytes, readCsvStream, readCsvText } from './ingest/csv.js';
+export type { CsvOptions, CsvResult } from './ingest/csv.js';
+export { buildStationIndex, readStationsText, resolveStation } from './ingest/stations.js';
+export type { ResolvedStation, StationIndex } from './ingest/stations.js';
+export { loadMappingFile, parseColumnOverride } from './ingest/columns.js';
+export type { ColumnOverride, MappingFile } from './ingest/columns.js';
 export { readForecastsText } from './verify/forecasts.js';
+export type { ForecastPassage, ForecastReadOptions } from './verify/forecasts.js';
+
+// Stages, for callers who assemble their own pipeline.
+export { buildSeries } from './series/series.js';
+export { applyQc } from './qc/qc.js';
+export type { QcSummary } from './qc/qc.js';
+export { checkDetectOptions, detectStation } from './detect/detect.js';
+export type { DetectOptions } from './detect/types.js';
+export { trackFronts } from './network/track.js';
+export type { TrackOptions } from './network/track.js';
+export { withFrontogenesis } from './network/frontogenesis.js';
+export { verifyForecasts } from './verify/verify.js';
+export type { VerifyOptions, VerifyResult } from './verify/verify.js';
+export { csi, far, frequencyBias, pod, proportionCorrect, type Contingency } from './verify/contingency.js';
+
+// Writers: records, CSV, JSON, NDJSON, tables, the output folder, the HTML report, inspect, verification.
+export { EVENT_COLUMNS, eventToRecord, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, summaryLines } from './report/format.js';
+export type { EventColumn, EventRecord, RecordValue, TableOptions } from './report/format.js';
+export { FRONT_COLUMNS, passagesToTable, trackToRecord, tracksToCsv, tracksToJson, tracksToTable } from './report/fronts.js';
+export type { FrontColumn } from './report/fronts.js';
+export { outputFolderFiles, writeOutputFolder, type OutputFile } from './report/outputFolder.js';
+export { eventsInPeriod, parsePeriodTime, periodOutsideData, selectStations } from './report/period.js';
+export { reportHtml } from './report/html/reportHtml.js';
+export type { ReportFile, ReportInput } from './report/html/reportHtml.js';
+export { buildInspect, inspectToTable, issueLine, noDataMessage } from './report/inspect.js';
+export type { InspectFile, InspectStation } from './report/inspect.js';
+export { VERIFY_COLUMNS, verificationRecords, verificationToCsv, verificationToJson, verificationToTable } from './verify/format.js';
+export type { VerifyColumn, VerifyRecord, VerifyTableContext } from './verify/format.js';
+export { CAUTION } from './report/caution.js';
+
+// Formulas (dew point, potential temperature, pressure reduction, wind, sun, geodesy), as a namespace.
 export * as physics from './physics/index.js';
-export { analyseSeries, sortEvents, type AnalyseOptions, type Analysis } from './analyse.js';
+
+// Verification: optimal matching, issues and lead times, forecast series, bootstrap intervals.
+export { matchOptimal, minCostAssignment } from './verify/assignment.js';
+export { bootstrapIntervals, mulberry32 } from './verify/bootstrap.js';
+export type { BootstrapOptions, Interval } from './verify/bootstrap.js';
+export { CI_SCORES, LEAD_BINS, leadBin, scoresOf, scoresOfOutcomes } from './verify/verify.js';
+export type { CiScore, CoveragePeriod, LeadBin, OutcomeKind, VerifiedOutcome, VerifiedPair, VerifyScores } from './verify/verify.js';
+export { seriesForecasts, seriesSpans } from './verify/seriesForecasts.js';
+export type { ForecastSeriesSpan } from './verify/seriesForecasts.js';
+export { SCORE_COLUMNS, verificationScoresToCsv } from './verify/format.js';

@@ -5,12 +5,12 @@
 import { mkdirSync, writeFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { join } from 'node:path';
-import type { StationMeta } from '../src/ingest/types.js';
-import { generateNetwork } from '../src/synth/generateNetwork.js';
-import { makeRng } from '../src/synth/random.js';
-import { toCsvText, type CsvConvention } from '../src/synth/toCsvText.js';
-import { toMetarLines } from '../src/synth/toMetarLines.js';
-import type { SynthNetwork, TruthEvent } from '../src/synth/types.js';
+import type { StationMeta } from '../src/model/index.js';
+import { generateNetwork } from '../tools/synth/generateNetwork.js';
+import { makeRng } from '../tools/synth/random.js';
+import { toCsvText, type CsvConvention } from '../tools/synth/toCsvText.js';
+import { toMetarLines } from '../tools/synth/toMetarLines.js';
+import type { SynthNetwork, TruthEvent } from '../tools/synth/types.js';
 
 export const DEMO_SEED = 20260301;
 const here = fileURLToPath(new URL('.', import.meta.url));

@@ -1,6 +1,8 @@
 /**
  * Runs every `*.test.ts` under test/ in one process with uvu, then prints one closing line
- * `tests: N passed, N failed` (N skipped follows) for CI. Optional argument: a substring filter on paths.
+ * `tests: N passed, N failed, N skipped` for CI. Optional argument: a substring filter on paths.
+ * Skipped tests are those registered with uvu's `test.skip`, e.g. the real-data checks when the shared
+ * folder is absent (test/helpers/realdata.ts; FROPA_SHARED=/nonexistent forces that path).
  */
 import { readdirSync, statSync } from 'node:fs';
 import { join, relative, resolve } from 'node:path';

@@ -1,39 +1,31 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { mkdirSync, writeFileSync } from 'node:fs';
-import { join } from 'node:path';
-import { loadPaths } from '../../src/ingest/load.js';
-import { analyseSeries } from '../../src/analyse.js';
-import { BOUNDARY_KINDS, type BoundaryKind, type DetectOptions } from '../../src/detect/types.js';
-import { eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, summaryLines } from '../../src/report/format.js';
-import { CAUTION } from '../../src/report/caution.js';
-import { tracksToCsv, tracksToJson, tracksToTable } from '../../src/report/fronts.js';
-import { ArgumentError, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
-import { noDataMessage } from './inspect.js';
+import { analyseSeries, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
+import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 
-/** Parse `--kinds a,b` against the known kinds (ArgumentError on an unknown one). */
+/** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
 export function parseKinds(spec: unknown): Set<BoundaryKind> | null {
   if (spec === undefined) return null;
   const parts = (Array.isArray(spec) ? spec : [spec]).flatMap((s) => String(s).split(',')).map((s) => s.trim()).filter(Boolean);
   const out = new Set<BoundaryKind>();
   for (const p of parts) {
-    if (!(BOUNDARY_KINDS as readonly string[]).includes(p)) throw new ArgumentError(`--kinds: unknown kind "${p}"; known kinds: ${BOUNDARY_KINDS.join(', ')}`);
+    if (!(BOUNDARY_KINDS as readonly string[]).includes(p)) throw new UsageError(`--kinds: unknown kind "${p}"; known kinds: ${BOUNDARY_KINDS.join(', ')}`);
     out.add(p as BoundaryKind);
   }
-  if (out.size === 0) throw new ArgumentError(`--kinds needs at least one kind: ${BOUNDARY_KINDS.join(', ')}`);
+  if (out.size === 0) throw new UsageError(`--kinds needs at least one kind: ${BOUNDARY_KINDS.join(', ')}`);
   return out;
 }
 
-/** Detection options from the arguments, range-checked (ArgumentError). */
+/** Detection options from the arguments, range-checked (UsageError). */
 export function detectOptions(raw: Record<string, unknown>): DetectOptions {
   const opts: DetectOptions = {};
   const mc = lastNumber(raw.minConfidence);
   if (mc !== undefined) {
-    if (!(mc >= 0 && mc <= 1)) throw new ArgumentError('--min-confidence must be a number from 0 to 1');
+    if (!(mc >= 0 && mc <= 1)) throw new UsageError('--min-confidence must be a number from 0 to 1');
     opts.minConfidence = mc;
   }
   const fs = lastNumber(raw.frontSpeed);
   if (fs !== undefined) {
-    if (!(fs > 0 && fs < 500)) throw new ArgumentError('--front-speed must be a speed in km/h above 0 (typical fronts move 10 to 60 km/h)');
+    if (!(fs > 0 && fs < 500)) throw new UsageError('--front-speed must be a speed in km/h above 0 (typical fronts move 10 to 60 km/h)');
     opts.frontSpeedKmh = fs;
   }
   return opts;
@@ -45,15 +37,13 @@ function lastNumber(v: unknown): number | undefined {
   return typeof x === 'number' ? x : Number(x);
 }
 
-export { sortEvents } from '../../src/analyse.js';
-
 /** Run detect; returns the exit code (1 when no station has data). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
   const args = inputArgs(raw);
   const kinds = parseKinds(raw.kinds);
   const dopts = detectOptions(raw);
   const local = Boolean(raw.local);
-  if (local && args.tz === undefined) throw new ArgumentError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
+  if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
   const opts = await resolveLoadOptions(args, io);
   const result = loadPaths(args.paths, opts);
   if (result.series.length === 0) {
@@ -64,22 +54,9 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const stations = result.series.map((s) => s.station);
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {
-    const network = tracksToTable(tracks);
-    const summary = [...summaryLines(events, stations), ...(network ? ['', network.trimEnd()] : []), CAUTION].join('\n') + '\n';
-    const files: [string, string][] = [
-      ['events.csv', eventsToCsv(events)],
-      ['events.json', eventsToJson(events)],
-      ['fronts.csv', tracksToCsv(tracks)],
-      ['fronts.json', tracksToJson(tracks)],
-      ['summary.txt', summary],
-    ];
-    try {
-      mkdirSync(outDir, { recursive: true });
-      for (const [name, text] of files) writeFileSync(join(outDir, name), text);
-    } catch (e) {
-      throw new Error(`${outDir}: cannot write the output folder (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-    }
-    io.stdout(summary + files.map(([name]) => `wrote ${join(outDir, name)}`).join('\n') + '\n');
+    const { summary, files } = outputFolderFiles(events, tracks, stations);
+    const written = writeOutputFolder(outDir, files);
+    io.stdout(summary + written.map((p) => `wrote ${p}`).join('\n') + '\n');
     return 0;
   }
   const format = String(raw.format ?? 'table');
@@ -90,14 +67,8 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
         ? eventsToJson(events)
         : format === 'ndjson'
           ? eventsToNdjson(events)
-          : withNetwork(eventsToTable(events, { zone: local ? opts.zone : undefined, stations }), tracksToTable(tracks));
+          : passagesToTable(events, tracks, { zone: local ? opts.zone : undefined, stations });
   await writeOutput(text, args.out, io);
   return 0;
 }
 
-/** Put the network table before the table's closing caution line. */
-function withNetwork(table: string, network: string): string {
-  if (!network) return table;
-  const at = table.lastIndexOf(CAUTION);
-  return at < 0 ? table + '\n' + network : table.slice(0, at) + '\n' + network + table.slice(at);
-}

@@ -1,6 +1,5 @@
 /** `fropa inspect <paths...>`: how each file was read, and what each station holds. */
-import { loadPaths } from '../../src/ingest/load.js';
-import { buildInspect, inspectToTable, issueLine } from '../../src/report/inspect.js';
+import { buildInspect, inspectToTable, loadPaths, noDataMessage } from '../../src/index.js';
 import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 
 /** Run inspect; returns the exit code (1 when no file yielded an observation). */
@@ -16,16 +15,4 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     return 1;
   }
   return 0;
-}
-
-/** `fropa: no usable data in …` plus the first issues and notes that say why, each naming its file. */
-export function noDataMessage(paths: readonly string[], reports: ReturnType<typeof loadPaths>['reports']): string {
-  const lines = [`fropa: no usable data in ${paths.join(', ')}`];
-  for (const r of reports) {
-    if (r.format === 'stations') continue;
-    const reasons = Object.entries(r.rejectedByReason).map(([k, n]) => `${k} ${n}`);
-    lines.push(`  ${r.file}: ${r.format}, ${r.parsed} parsed, ${r.rejected} rejected${reasons.length ? ` (${reasons.join(', ')})` : ''}${r.issues.length === 0 && r.notes.length ? `; ${r.notes[0]}` : ''}`);
-    for (const i of r.issues.slice(0, 3)) lines.push(`  ${issueLine(i)}`);
-  }
-  return lines.join('\n') + '\n';
 }

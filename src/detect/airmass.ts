@@ -7,8 +7,8 @@
  */
 import type { DetectGrid } from './grid.js';
 import { meanIn } from './window.js';
+import { MS_PER_HOUR } from '../physics/constants.js';
 
-const HOUR = 3_600_000;
 
 export interface AirMassChange {
   /** Temperature 6–12 h after minus the same hours one day earlier (°C). */
@@ -33,7 +33,7 @@ export interface AirMassChange {
 
 /** Measure the lasting change at grid index i. NaN where a window has no data. */
 export function airMassChange(g: DetectGrid, i: number): AirMassChange {
-  const perH = HOUR / g.stepMs;
+  const perH = MS_PER_HOUR / g.stepMs;
   const after = (v: Float64Array) => meanIn(v, i + 6 * perH, i + 12 * perH);
   const dayBefore = (v: Float64Array) => meanIn(v, i - 18 * perH, i - 12 * perH);
   const lasting = (v: Float64Array) => meanIn(v, i + 4 * perH, i + 10 * perH) - meanIn(v, i - 3 * perH, i);

@@ -4,8 +4,7 @@
  * boundary: Wakimoto1982; sea-breeze front: Miller2003; wind shift: FMH-1 §5.4.6), with the criteria
  * that held and failed written as evidence. Thresholds are common practice, no source.
  */
-import type { StationMeta } from '../ingest/types.js';
-import type { BoundaryKind } from './types.js';
+import type { BoundaryKind, StationMeta } from '../model/index.js';
 import type { Features } from './features.js';
 import { angularDifferenceDeg } from '../physics/wind.js';
 
@@ -104,9 +103,12 @@ export function classify(f: Features, meta: StationMeta | undefined, hemisphere:
   // a cloudy day) little change of θe.
   const littleChange = (1 - ramp(Math.abs(dTh), 3, 7)) * (1 - ramp(Math.min(Math.abs(dT), Math.abs(f.tempChangeC)), 2, 5));
   const occluded = ramp(absTurn, 30, 60) * windy * Math.max(trough, kink) * littleChange * 0.9;
-  // An unclassified wind shift in the FMH-1 §5.4.6 sense: 45° or more with about 10 kt (5.1 m/s) or more
-  // on both sides (mean winds over an hour or two each side, so the criterion is approximated).
-  const shift = ramp(absTurn, 35, 50) * ramp(Math.min(f.speedBeforeMs, f.speedAfterMs), 3.5, 5.1) * 0.6;
+  // An unclassified wind shift in the FMH-1 §5.4.6 sense: met outright when the raw reports near the anchor
+  // hold one by the physics/wind.ts predicate (fmh1WindShifts: ≥ 45° in < 15 min, ≥ 10 kt throughout). Hourly
+  // reports can never show "< 15 min", so otherwise it is judged on the mean winds an hour or two each side,
+  // graded around the same thresholds (45°, 10 kt ≈ 5.1 m/s; ramp ends common practice, no source).
+  const shiftOnMeans = ramp(absTurn, 35, 50) * ramp(Math.min(f.speedBeforeMs, f.speedAfterMs), 3.5, 5.1);
+  const shift = 0.6 * (f.fmh1WindShiftNear ? 1 : shiftOnMeans);
 
   const scores: Record<BoundaryKind, number> = {
     'cold-front': cold,

@@ -7,7 +7,7 @@
  * 4. keep the strongest candidate within ±3 h, time it on the raw reports (timing.ts), re-measure at
  *    that time, and add the transition zone, zone depth and observer remarks.
  */
-import type { StationSeries } from '../series/series.js';
+import type { PassageEvent, StationSeries } from '../model/index.js';
 import { medianCadenceMinutes } from '../series/series.js';
 import { pelt, peltMulti } from '../signal/pelt.js';
 import { buildGrid, type DetectGrid } from './grid.js';
@@ -20,11 +20,11 @@ import { inferSeaBreezeSector } from './seaBreeze.js';
 import type { StationMeta } from '../ingest/types.js';
 import { changeStart, windSplit, type SplitTime } from './timing.js';
 import { runningMean, meanIn } from './window.js';
-import type { DetectOptions, PassageEvent } from './types.js';
+import type { DetectOptions } from './types.js';
+import { MS_PER_HOUR, MS_PER_MINUTE } from '../physics/constants.js';
 
-const HOUR = 3_600_000;
 /** Candidates closer than this before timing are one change (the strongest is kept). common practice, no source. */
-const SUPPRESS_MS = 1 * HOUR;
+const SUPPRESS_MS = 1 * MS_PER_HOUR;
 /** Default confidence floor. */
 export const DEFAULT_MIN_CONFIDENCE = 0.4;
 
@@ -43,7 +43,7 @@ interface Candidate {
 
 /** Change-point indices on the grid from every channel, sorted and de-duplicated. */
 export function changePointCandidates(g: DetectGrid): number[] {
-  const perH = HOUR / g.stepMs;
+  const perH = MS_PER_HOUR / g.stepMs;
   const minSegment = Math.max(2, Math.round(perH / 2));
   const maxSegment = Math.round(72 * perH);
   const set = new Set<number>();
@@ -86,7 +86,7 @@ export function modelCandidates(series: StationSeries): ModelCandidate[] {
   if (!g) return [];
   const hemisphere: 1 | -1 = (series.meta?.latDeg ?? 1) < 0 ? -1 : 1;
   const raw = rawColumns(series);
-  const perH = HOUR / g.stepMs;
+  const perH = MS_PER_HOUR / g.stepMs;
   const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
   const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
   const meta = classificationMeta(series, g);
@@ -102,15 +102,31 @@ function gridIndex(g: DetectGrid, tMs: number): number {
   return Math.max(0, Math.min(g.n - 1, Math.round((tMs - g.timeMs[0]!) / g.stepMs)));
 }
 
-/** Detect every boundary passage at one station. Pure: same series and options → same events. */
+/**
+ * Check detection options: `frontSpeedKmh` must be a finite speed above 0 km/h, `minConfidence` a number from 0
+ * to 1. Throws RangeError naming the field (never a silent NaN downstream).
+ * @example checkDetectOptions({ frontSpeedKmh: 0 }) // throws RangeError
+ */
+export function checkDetectOptions(opts: DetectOptions): void {
+  const fs = opts.frontSpeedKmh;
+  if (fs !== undefined && !(Number.isFinite(fs) && fs > 0)) throw new RangeError(`frontSpeedKmh must be a speed in km/h above 0, got ${fs}`);
+  const mc = opts.minConfidence;
+  if (mc !== undefined && !(mc >= 0 && mc <= 1)) throw new RangeError(`minConfidence must be a number from 0 to 1, got ${mc}`);
+}
+
+/**
+ * Detect every boundary passage at one station. Pure: same series and options → same events.
+ * Throws RangeError for bad options (see checkDetectOptions).
+ */
 export function detectStation(series: StationSeries, opts: DetectOptions = {}): PassageEvent[] {
+  checkDetectOptions(opts);
   const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
   const cadence = medianCadenceMinutes(series.timeMs);
   const g = buildGrid(series, cadence);
   if (!g) return [];
   const hemisphere: 1 | -1 = (series.meta?.latDeg ?? 1) < 0 ? -1 : 1;
   const raw = rawColumns(series);
-  const perH = HOUR / g.stepMs;
+  const perH = MS_PER_HOUR / g.stepMs;
   const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
   const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
 
@@ -166,23 +182,23 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
   for (const e of byStrength) {
     // Two cold-front candidates within 4 h are one passage seen at the wind shift and at the fall: keep the
     // stronger, timed at the wind shift when the shift came first (FMH-1), with both times reported.
-    const twin = kept.find((k) => k.kind === 'cold-front' && e.kind === 'cold-front' && Math.abs(k.timeMs - e.timeMs) < 4 * HOUR);
+    const twin = kept.find((k) => k.kind === 'cold-front' && e.kind === 'cold-front' && Math.abs(k.timeMs - e.timeMs) < 4 * MS_PER_HOUR);
     if (twin) {
-      if (e.timeBasis === 'wind-shift' && twin.timeBasis !== 'wind-shift' && e.timeMs < twin.timeMs && twin.timeMs - e.timeMs <= 3 * HOUR) {
+      if (e.timeBasis === 'wind-shift' && twin.timeBasis !== 'wind-shift' && e.timeMs < twin.timeMs && twin.timeMs - e.timeMs <= 3 * MS_PER_HOUR) {
         const fall = twin.timeMs;
         Object.assign(twin, { timeMs: e.timeMs, timeEarliestMs: e.timeEarliestMs, timeLatestMs: e.timeLatestMs, windShiftTimeMs: e.windShiftTimeMs, timeBasis: 'wind-shift', zoneStartMs: e.timeMs });
         if (Number.isNaN(twin.changeStartTimeMs)) twin.changeStartTimeMs = fall;
-        twin.zoneHours = Number.isNaN(twin.zoneEndMs) ? NaN : (twin.zoneEndMs - twin.timeMs) / HOUR;
+        twin.zoneHours = Number.isNaN(twin.zoneEndMs) ? NaN : (twin.zoneEndMs - twin.timeMs) / MS_PER_HOUR;
         twin.evidence = [...twin.evidence.filter((x) => !x.startsWith('timed at')), `timed at the wind shift, between the reports at ${hhmm(e.timeEarliestMs)} and ${hhmm(e.timeLatestMs)} UTC; the temperature fall starts at ${hhmm(twin.changeStartTimeMs)} UTC`];
       }
       continue;
     }
     const clash = kept.some((k) => {
-      if (Math.abs(k.timeMs - e.timeMs) < 2 * HOUR) return true;
-      if ((k.kind === 'warm-front' || k.kind === 'dryline') && e.kind === k.kind && Math.abs(k.timeMs - e.timeMs) < 6 * HOUR) return true;
+      if (Math.abs(k.timeMs - e.timeMs) < 2 * MS_PER_HOUR) return true;
+      if ((k.kind === 'warm-front' || k.kind === 'dryline') && e.kind === k.kind && Math.abs(k.timeMs - e.timeMs) < 6 * MS_PER_HOUR) return true;
       const sameSign = k.kind === e.kind && thermalSign(k) !== 0;
-      if (sameSign && e.timeMs > k.timeMs && e.timeMs <= (Number.isNaN(k.zoneEndMs) ? k.timeMs : k.zoneEndMs) + HOUR) return true;
-      if (k.kind === 'cold-front' && e.kind === 'cold-front' && e.timeMs > k.timeMs && e.timeMs - k.timeMs < 9 * HOUR) {
+      if (sameSign && e.timeMs > k.timeMs && e.timeMs <= (Number.isNaN(k.zoneEndMs) ? k.timeMs : k.zoneEndMs) + MS_PER_HOUR) return true;
+      if (k.kind === 'cold-front' && e.kind === 'cold-front' && e.timeMs > k.timeMs && e.timeMs - k.timeMs < 9 * MS_PER_HOUR) {
         return !(e.windTurnDeg * Math.sign(k.windTurnDeg || 1) >= 30 && e.pressureRise3hHpa > 0.5);
       }
       return false;
@@ -200,9 +216,9 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
 export function markPrefrontalTroughs(events: PassageEvent[]): PassageEvent[] {
   return events.map((e) => {
     if (e.kind !== 'occluded-front' && e.kind !== 'wind-shift') return e;
-    const front = events.find((c) => c.kind === 'cold-front' && c.timeMs - e.timeMs >= HOUR && c.timeMs - e.timeMs <= 8 * HOUR);
+    const front = events.find((c) => c.kind === 'cold-front' && c.timeMs - e.timeMs >= MS_PER_HOUR && c.timeMs - e.timeMs <= 8 * MS_PER_HOUR);
     if (!front) return e;
-    const lead = ((front.timeMs - e.timeMs) / HOUR).toFixed(1);
+    const lead = ((front.timeMs - e.timeMs) / MS_PER_HOUR).toFixed(1);
     return { ...e, kind: 'wind-shift', evidence: [...e.evidence, `+ cold front follows ${lead} h later: prefrontal trough (wind shift and trough ahead of the front)`] };
   });
 }
@@ -215,11 +231,11 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
   let start: SplitTime | null = null;
   const thermal = kind === 'cold-front' || kind === 'warm-front' || kind === 'outflow-boundary' || kind === 'sea-breeze-front';
   if (thermal && !Number.isNaN(f.zoneEndMs)) {
-    const level = meanIn(raw.tC, lowerBound(s.timeMs, f.timeMs - 2 * HOUR), lowerBound(s.timeMs, f.timeMs - 0.25 * HOUR));
-    start = changeStart(s.timeMs, raw.tC, Number.isNaN(level) ? meanIn(g.tC, f.index - HOUR / g.stepMs, f.index) : level, f.tempChangeC, f.timeMs - 3 * HOUR, f.zoneEndMs + 1);
+    const level = meanIn(raw.tC, lowerBound(s.timeMs, f.timeMs - 2 * MS_PER_HOUR), lowerBound(s.timeMs, f.timeMs - 0.25 * MS_PER_HOUR));
+    start = changeStart(s.timeMs, raw.tC, Number.isNaN(level) ? meanIn(g.tC, f.index - MS_PER_HOUR / g.stepMs, f.index) : level, f.tempChangeC, f.timeMs - 3 * MS_PER_HOUR, f.zoneEndMs + 1);
   } else if (kind === 'dryline') {
-    const level = meanIn(g.tdC, f.index - HOUR / g.stepMs, f.index + 1);
-    start = changeStart(s.timeMs, raw.tdC, level, f.dewpointDropMaxC, f.timeMs - 3 * HOUR, f.timeMs + 3 * HOUR);
+    const level = meanIn(g.tdC, f.index - MS_PER_HOUR / g.stepMs, f.index + 1);
+    start = changeStart(s.timeMs, raw.tdC, level, f.dewpointDropMaxC, f.timeMs - 3 * MS_PER_HOUR, f.timeMs + 3 * MS_PER_HOUR);
   }
   let chosen: SplitTime | null = null;
   let prefrontal: number | undefined;
@@ -228,10 +244,10 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
     // front's temperature fall is a prefrontal trough (Schultz2005): the front is timed at the fall and the
     // shift is reported beside it. common practice, no source, for the 3 h.
     const lead = start.timeMs - wind.timeMs;
-    if (kind === 'cold-front' && lead > 3 * HOUR) {
+    if (kind === 'cold-front' && lead > 3 * MS_PER_HOUR) {
       chosen = start;
       prefrontal = wind.timeMs;
-    } else chosen = Math.abs(lead) <= 3 * HOUR ? wind : start;
+    } else chosen = Math.abs(lead) <= 3 * MS_PER_HOUR ? wind : start;
   } else chosen = wind ?? start;
   if (!chosen) return c;
   const basis = chosen === wind ? 'timed at the wind shift' : kind === 'dryline' ? 'timed at the start of the dew-point fall' : 'timed at the start of the temperature change';
@@ -256,12 +272,12 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
   const evidence = [...c.c.evidence];
   if (c.basis) evidence.push(`${c.basis}, between the reports at ${hhmm(c.timing!.earliestMs)} and ${hhmm(c.timing!.latestMs)} UTC`);
   if (c.prefrontalShiftMs !== undefined) {
-    evidence.push(`+ wind shift ${((timeMs - c.prefrontalShiftMs) / HOUR).toFixed(1)} h ahead of the temperature fall: prefrontal trough; the front is placed at the fall`);
+    evidence.push(`+ wind shift ${((timeMs - c.prefrontalShiftMs) / MS_PER_HOUR).toFixed(1)} h ahead of the temperature fall: prefrontal trough; the front is placed at the fall`);
   }
   // Moisture boundaries: the zone is where the dew point changes, not the temperature.
   const rawZoneEnd = c.c.kind === 'dryline' && !Number.isNaN(f.moistureZoneEndMs) ? f.moistureZoneEndMs : f.zoneEndMs;
   const zoneEndMs = Math.max(rawZoneEnd, timeMs);
-  const zoneHours = Number.isNaN(rawZoneEnd) ? NaN : (zoneEndMs - timeMs) / HOUR;
+  const zoneHours = Number.isNaN(rawZoneEnd) ? NaN : (zoneEndMs - timeMs) / MS_PER_HOUR;
   const speed = opts.frontSpeedKmh;
   const zoneDepthKm = speed !== undefined && speed > 0 && !Number.isNaN(zoneHours) ? zoneHours * speed : NaN;
   const gradient = zoneDepthKm > 0 ? (Math.abs(f.tempChangeC) / zoneDepthKm) * 100 : NaN;
@@ -269,8 +285,8 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
     station: s.station,
     kind: c.c.kind,
     timeMs,
-    timeEarliestMs: c.timing?.earliestMs ?? timeMs - 0.5 * HOUR,
-    timeLatestMs: c.timing?.latestMs ?? timeMs + 0.5 * HOUR,
+    timeEarliestMs: c.timing?.earliestMs ?? timeMs - 0.5 * MS_PER_HOUR,
+    timeLatestMs: c.timing?.latestMs ?? timeMs + 0.5 * MS_PER_HOUR,
     confidence: Math.round(c.c.confidence * 100) / 100,
     tempChangeC: f.tempChangeC,
     tempChangeAdjustedC: f.frontalChangeAdjC,
@@ -311,7 +327,7 @@ function attachRemarks(s: StationSeries, events: PassageEvent[]): void {
     if (seen.has(key)) continue;
     seen.add(key);
     let best: PassageEvent | undefined;
-    for (const e of events) if (Math.abs(e.timeMs - t) <= 3 * HOUR && (!best || Math.abs(e.timeMs - t) < Math.abs(best.timeMs - t))) best = e;
+    for (const e of events) if (Math.abs(e.timeMs - t) <= 3 * MS_PER_HOUR && (!best || Math.abs(e.timeMs - t) < Math.abs(best.timeMs - t))) best = e;
     if (!best) continue;
     if (Number.isNaN(best.observerFropaTimeMs) || r.frontal) {
       best.observerFropaTimeMs = t;

@@ -8,6 +8,7 @@
  */
 import { meanDiurnalAnomaly, removeDiurnal } from '../signal/diurnal.js';
 import { runningMean } from './window.js';
+import { MS_PER_HOUR } from '../physics/constants.js';
 
 export interface DiurnalAdjustment {
   adjusted: Float64Array;
@@ -22,7 +23,7 @@ export function diurnalAdjustment(timeMs: Float64Array, tC: Float64Array, tdC: F
   const stepMs = timeMs[1]! - timeMs[0]!;
   const depression = new Float64Array(tC.length);
   for (let i = 0; i < tC.length; i++) depression[i] = tC[i]! - tdC[i]!;
-  const smooth = runningMean(depression, Math.max(1, Math.round((1.5 * 3_600_000) / stepMs)));
+  const smooth = runningMean(depression, Math.max(1, Math.round((1.5 * MS_PER_HOUR) / stepMs)));
   const adjusted = new Float64Array(tC.length);
   for (let i = 0; i < tC.length; i++) {
     const d = smooth[i]!;

@@ -6,11 +6,11 @@
 import type { StationSeries } from '../series/series.js';
 import { WX } from '../ingest/types.js';
 import { cleanColumn } from '../qc/qc.js';
-import { signedTurnDeg, windFromComponents } from '../physics/wind.js';
+import { fmh1WindShifts, signedTurnDeg, windFromComponents } from '../physics/wind.js';
 import type { DetectGrid } from './grid.js';
 import { argExtremeIn, at, meanIn } from './window.js';
-
-const HOUR = 3_600_000;
+import { MS_PER_HOUR } from '../physics/constants.js';
+import { solarHour as solarHourAt } from '../physics/sun.js';
 
 export interface Features {
   /** Grid index of the anchor (leading edge estimate). */
@@ -49,6 +49,8 @@ export interface Features {
   gustMaxMs: number;
   precipNear: boolean;
   convectiveNear: boolean;
+  /** The raw reports within 30 min of the anchor hold an FMH-1 §5.4.6 wind shift (`fmh1WindShifts`). */
+  fmh1WindShiftNear: boolean;
   /** Local solar hour at the anchor (NaN without longitude). */
   solarHour: number;
   zoneEndMs: number;
@@ -111,7 +113,7 @@ function meanWind(g: DetectGrid, lo: number, hi: number): { dirDeg: number; spee
 
 /** Measure the features of a candidate at grid index i. `tSmooth` is the 30-min running mean of tAdjC. */
 export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: number, tSmooth: Float64Array, tRawSmooth: Float64Array): Features {
-  const perH = HOUR / g.stepMs;
+  const perH = MS_PER_HOUR / g.stepMs;
   const before = meanWind(g, i - 2 * perH, i - Math.max(1, perH / 6));
   const after = meanWind(g, i + Math.max(1, perH / 3), i + 2 * perH);
   const beforeLong = meanWind(g, i - 3 * perH, i - perH / 2);
@@ -207,16 +209,19 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
   let gustMax = NaN;
   let precipNear = false;
   let convectiveNear = false;
-  for (let k = lowerBound(s.timeMs, tMs - HOUR); k < s.length && s.timeMs[k]! <= tMs + 2 * HOUR; k++) {
+  for (let k = lowerBound(s.timeMs, tMs - MS_PER_HOUR); k < s.length && s.timeMs[k]! <= tMs + 2 * MS_PER_HOUR; k++) {
     const cand = Math.max(gust[k]! || 0, peak[k]! || 0, spd[k]! || 0);
     if (cand > 0 && !(cand <= gustMax)) gustMax = cand;
-    if (Math.abs(s.timeMs[k]! - tMs) <= HOUR) {
+    if (Math.abs(s.timeMs[k]! - tMs) <= MS_PER_HOUR) {
       if (s.weather[k]! & WX.PRECIP || s.precipMm[k]! > 0) precipNear = true;
       if (s.weather[k]! & (WX.THUNDER | WX.CONVECTIVE | WX.HAIL | WX.SQUALL)) convectiveNear = true;
     }
   }
+  const kLo = lowerBound(s.timeMs, tMs - 0.5 * MS_PER_HOUR);
+  const kHi = lowerBound(s.timeMs, tMs + 0.5 * MS_PER_HOUR + 1);
+  const fmh1WindShiftNear = kHi - kLo >= 2 && fmh1WindShifts(s.timeMs.subarray(kLo, kHi), raw.dir.subarray(kLo, kHi), spd.subarray(kLo, kHi)).length > 0;
   const lon = s.meta?.lonDeg;
-  const solarHour = lon === undefined || Number.isNaN(lon) ? NaN : (((tMs / HOUR + lon / 15) % 24) + 24) % 24;
+  const solarHour = lon === undefined ? NaN : solarHourAt(tMs, lon);
   const zoneEndMs = zoneEnd >= 0 ? g.timeMs[zoneEnd]! : NaN;
   return {
     index: i,
@@ -243,9 +248,10 @@ export function measure(g: DetectGrid, s: StationSeries, raw: RawColumns, i: num
     gustMaxMs: gustMax,
     precipNear,
     convectiveNear,
+    fmh1WindShiftNear,
     solarHour,
     zoneEndMs,
-    zoneHours: (zoneEndMs - tMs) / HOUR,
+    zoneHours: (zoneEndMs - tMs) / MS_PER_HOUR,
     moistureZoneEndMs: moistureZoneEnd >= 0 ? g.timeMs[moistureZoneEnd]! : NaN,
     windReturnDeg,
     pressureFallAfterPeakHpa,

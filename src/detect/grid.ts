@@ -2,11 +2,12 @@
  * The detection grid: one station's QC-clean series put on a regular cadence (never interpolated across
  * long gaps), with wind as u/v, θe, the chosen pressure and a diurnally adjusted temperature.
  */
-import { QC, type StationSeries } from '../series/series.js';
+import { QC, type StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { resampleRegular, resampleWindUV } from '../signal/resample.js';
 import { diurnalAdjustment } from './diurnal.js';
 import { thetaESeries } from '../physics/theta.js';
+import { MS_PER_MINUTE } from '../physics/constants.js';
 
 export interface DetectGrid {
   stepMs: number;
@@ -29,18 +30,16 @@ export interface DetectGrid {
   cadenceMin: number;
 }
 
-const MIN = 60_000;
-
 /** Grid step for a report cadence: 5 min for dense data, 10 min for 10–20 min data, 15 min for hourly reports. common practice, no source. */
 export function gridStepMs(cadenceMin: number): number {
-  if (!(cadenceMin > 0) || cadenceMin <= 7) return 5 * MIN;
-  if (cadenceMin <= 20) return 10 * MIN;
-  return 15 * MIN;
+  if (!(cadenceMin > 0) || cadenceMin <= 7) return 5 * MS_PER_MINUTE;
+  if (cadenceMin <= 20) return 10 * MS_PER_MINUTE;
+  return 15 * MS_PER_MINUTE;
 }
 
 /** Longest gap bridged by interpolation: 2.5 report intervals, at least 90 min. common practice, no source. */
 export function gridMaxGapMs(cadenceMin: number): number {
-  return Math.max(90 * MIN, 2.5 * cadenceMin * MIN);
+  return Math.max(90 * MS_PER_MINUTE, 2.5 * cadenceMin * MS_PER_MINUTE);
 }
 
 /** Fraction of finite values. */

@@ -5,11 +5,11 @@
  * and Local Winds"). A station whose afternoon turns cluster in one sector on many days is coastal
  * with the sea there. Thresholds: common practice, no source.
  */
-import { localSolarHour } from '../physics/sun.js';
+import { solarHour } from '../physics/sun.js';
 import { windFromComponents } from '../physics/wind.js';
 import type { DetectGrid } from './grid.js';
+import { MS_PER_HOUR } from '../physics/constants.js';
 
-const HOUR = 3_600_000;
 
 export interface SeaBreezeSector {
   /** Mean afternoon wind direction on sea-breeze days: the bearing of the sea, degrees true. */
@@ -43,11 +43,11 @@ export function inferSeaBreezeSector(g: DetectGrid, lonDeg: number | undefined):
   const slot = (h: number) => (h >= 6 && h < 9 ? 0 : h >= 13 && h < 16 ? 1 : h >= 22 || h < 2 ? 2 : -1);
   for (let i = 0; i < g.n; i++) {
     const t = g.timeMs[i]!;
-    const h = localSolarHour(t, lonDeg);
+    const h = solarHour(t, lonDeg);
     const k = slot(h);
     if (k < 0) continue;
     // Night after the afternoon belongs to the same day (22–02 h: shift the early hours back).
-    const day = Math.floor((t + (lonDeg / 15) * HOUR - (k === 2 && h < 2 ? 24 * HOUR : 0)) / (24 * HOUR));
+    const day = Math.floor((t + (lonDeg / 15) * MS_PER_HOUR - (k === 2 && h < 2 ? 24 * MS_PER_HOUR : 0)) / (24 * MS_PER_HOUR));
     let acc = days.get(day);
     if (!acc) days.set(day, (acc = [0, 1, 2].map(() => ({ u: 0, v: 0, n: 0, t: 0, td: 0, nt: 0 }))));
     const a = acc[k]!;

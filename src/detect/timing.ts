@@ -7,8 +7,7 @@
 import { windComponents, windFromComponents, signedTurnDeg } from '../physics/wind.js';
 import type { RawColumns } from './features.js';
 import { lowerBound } from './features.js';
-
-const HOUR = 3_600_000;
+import { MS_PER_HOUR, MS_PER_MINUTE } from '../physics/constants.js';
 
 export interface SplitTime {
   timeMs: number;
@@ -23,7 +22,7 @@ export interface SplitTime {
  * Best wind split among reports within ±`searchMs` of `aroundMs`, each side averaged over up to `sideMs`.
  * Returns null when no split turns the wind by at least `minTurnDeg`.
  */
-export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: number, searchMs = 2 * HOUR, sideMs = 1.5 * HOUR, minTurnDeg = 30): SplitTime | null {
+export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: number, searchMs = 2 * MS_PER_HOUR, sideMs = 1.5 * MS_PER_HOUR, minTurnDeg = 30): SplitTime | null {
   const lo = lowerBound(timeMs, aroundMs - searchMs - sideMs);
   const hi = lowerBound(timeMs, aroundMs + searchMs + sideMs);
   const idx: number[] = [];
@@ -69,8 +68,8 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
         while (k - 1 > 0) {
           const tk = timeMs[idx[k - 1]!]!;
           let ur = 0, vr = 0, nr = 0;
-          for (let q = k - 2; q >= 0 && timeMs[idx[q]!]! >= tk - 2 * HOUR; q--) {
-            if (timeMs[idx[q]!]! > tk - 0.5 * HOUR) continue;
+          for (let q = k - 2; q >= 0 && timeMs[idx[q]!]! >= tk - 2 * MS_PER_HOUR; q--) {
+            if (timeMs[idx[q]!]! > tk - 0.5 * MS_PER_HOUR) continue;
             ur += us[q]!; vr += vs[q]!; nr++;
           }
           if (nr === 0) break;
@@ -80,12 +79,12 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
           const part = signedTurnDeg(ref.dirDeg, raw.dir[kd]!);
           // A tenth of the turn, and more than one step of the reports' direction resolution (noise).
           // Between sparse reports (over 20 min apart) a third of the turn: drift is not yet the shift.
-          const need = timeMs[idx[k]!]! - timeMs[kd]! > 20 * 60_000 ? 0.3 : 0.1;
+          const need = timeMs[idx[k]!]! - timeMs[kd]! > 20 * MS_PER_MINUTE ? 0.3 : 0.1;
           if (!(part / turn >= need && Math.abs(part) >= 1.5 * raw.dirResolutionDeg)) break;
           // An abrupt jump into report k means the shift began there, whatever drifted before it.
           const jump = raw.spd[idx[k]!]! > 0 ? signedTurnDeg(raw.dir[kd]!, raw.dir[idx[k]!]!) : NaN;
           // (Only when the reports are close enough to tell: FMH-1 calls a shift abrupt within 15 min.)
-          if (jump / turn >= 0.5 && timeMs[idx[k]!]! - timeMs[kd]! <= 20 * 60_000) break;
+          if (jump / turn >= 0.5 && timeMs[idx[k]!]! - timeMs[kd]! <= 20 * MS_PER_MINUTE) break;
           k--;
         }
         const t0 = timeMs[idx[k - 1]!]!;

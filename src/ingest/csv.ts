@@ -27,8 +27,11 @@
  * - NCEI LCD cell flags (LCD documentation, from memory): a trailing `s` (suspect) or `*`/`A`/`E` is
  *   stripped and the value kept and counted; `T` (trace) reads as 0 for precipitation; `VRB` wind
  *   direction is NaN (variable).
- * - Dew point missing but temperature and relative humidity present → dew point from the Magnus form with
- *   Alduchov & Eskridge (1996) coefficients (see `dewpointFromRh`), counted in a note.
+ * - Dew point missing but temperature and relative humidity present → dew point from the inverse Magnus form
+ *   (`dewpointFromRelativeHumidity`, physics/dewpoint.ts) with the AlduchovEskridge1996 eq. 21 coefficients
+ *   (`MAGNUS_AERK1996`: the set recommended there for −40…50 °C, and the one the reader has always used; the
+ *   Bolton1980 default differs by about 0.01 °C at 20 °C, 50 %); RH outside (0, 100] % → NaN;
+ *   counted in a note.
  * - Raw report column (IEM `metar`, LCD `REM`) with a `decodeRawReport` callback: the decoded report fills
  *   every field the columns leave missing; temperature and dew point from the decoder REPLACE the column
  *   values when the decoder sets `tempFromRemarks` (tenths of °C from the US `T` remark group, FMH-1
@@ -40,11 +43,14 @@
  *   (noted). Ids are trimmed, case kept.
  */
 import Papa from 'papaparse';
-import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from './types.js';
+import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from '../model/index.js';
 import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
 import { makeTimeReader, parseOffsetMinutes, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
+import { weatherFlags } from './metar/weather.js';
+import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
+import { MAGNUS_AERK1996 } from '../physics/vapor.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
 export type RawReportDecoded = Partial<Observation> & { tempFromRemarks?: boolean };
@@ -99,84 +105,22 @@ export interface CsvResult {
   units: Partial<Record<NumericField, UnitChoice>>;
 }
 
-/**
- * Dew point from temperature and relative humidity, Magnus form inverted:
- * γ = ln(RH/100) + b·T/(c + T), Td = c·γ/(b − γ), with b = 17.625, c = 243.04 °C
- * ([AlduchovEskridge1996] eq. 21 coefficients; es = 6.1094 exp(17.625 T/(T + 243.04)) hPa).
- * T in °C, RH in % (0 < RH ≤ 100, else NaN). NaN in → NaN out.
- * @example dewpointFromRh(20, 50) // ≈ 9.2611
- */
-function dewpointFromRh(tC: number, rhPct: number): number {
-  if (!(rhPct > 0 && rhPct <= 100)) return NaN;
-  const g = Math.log(rhPct / 100) + (17.625 * tC) / (243.04 + tC);
-  return (243.04 * g) / (17.625 - g);
-}
-
 const MISSING = new Set(['', 'm', 'mm', 'na', 'n/a', 'nan', 'null', 'none', '-', '--', 'missing', '#n/a']);
 
-/** WMO-No. 306 code table 4678 letters → WX flags (only those fronts care about). */
-const WX_CODES: Record<string, number> = {
-  RA: WX.RAIN | WX.PRECIP,
-  SN: WX.SNOW | WX.PRECIP,
-  SG: WX.SNOW | WX.PRECIP,
-  DZ: WX.DRIZZLE | WX.PRECIP,
-  GR: WX.HAIL | WX.PRECIP,
-  GS: WX.HAIL | WX.PRECIP,
-  PL: WX.ICE_PELLETS | WX.PRECIP,
-  IC: WX.PRECIP,
-  UP: WX.PRECIP,
-  TS: WX.THUNDER | WX.CONVECTIVE,
-  SH: WX.SHOWER,
-  FZ: WX.FREEZING,
-  FG: WX.FOG,
-  SQ: WX.SQUALL,
-  DU: WX.DUST,
-  SA: WX.DUST,
-  DS: WX.DUST,
-  SS: WX.DUST,
-  PO: WX.DUST,
-  BR: 0,
-  HZ: 0,
-  FU: 0,
-  VA: 0,
-  PY: 0,
-  FC: 0,
-  MI: 0,
-  PR: 0,
-  BC: 0,
-  DR: 0,
-  BL: 0,
-};
-
 /**
- * WX flags of a present-weather text such as `-RA BR`, `+TSRA`, or LCD `-RA:02 BR:1 |RA BR |`
- * (WMO-No. 306 FM 15 w'w' groups). Tokens that are not made only of known letter pairs are ignored.
+ * WX flags of a present-weather text such as `-RA BR`, `+TSRA`, or LCD `-RA:02 BR:1 |RA BR |`: each token
+ * (split on blanks, `|`, `,`, `;`; an LCD `:n` suffix dropped) is one FM 15 w'w' group read by the METAR
+ * decoder's table (`weatherFlags`, WMO-No. 306 code table 4678; FMH-1 §12.6.8), so `VC` groups keep only
+ * their SH/TS flags. Tokens that are not weather groups are ignored.
+ * @example weatherFlagsFromCodes('-RA BR') // WX.RAIN | WX.PRECIP
  */
 export function weatherFlagsFromCodes(text: string): number {
   let flags = 0;
   for (const raw of text.toUpperCase().split(/[\s|,;]+/)) {
-    let tok = raw.split(':')[0]!;
+    const tok = raw.split(':')[0]!;
     if (tok === '') continue;
-    let heavy = false;
-    if (tok[0] === '+') {
-      heavy = true;
-      tok = tok.slice(1);
-    } else if (tok[0] === '-') tok = tok.slice(1);
-    if (tok.startsWith('VC')) tok = tok.slice(2);
-    if (tok.length === 0 || tok.length % 2 !== 0) continue;
-    let f = 0;
-    let ok = true;
-    for (let i = 0; i < tok.length; i += 2) {
-      const v = WX_CODES[tok.slice(i, i + 2)];
-      if (v === undefined) {
-        ok = false;
-        break;
-      }
-      f |= v;
-    }
-    if (!ok) continue;
-    if (heavy) f |= WX.HEAVY;
-    flags |= f;
+    const f = weatherFlags(tok, 0, tok.length);
+    if (f > 0) flags |= f;
   }
   return flags;
 }
@@ -868,7 +812,8 @@ export class CsvCore {
     if (o.dewpointC !== o.dewpointC && cols.relativeHumidity !== undefined) {
       const rh = this.val(cols.relativeHumidity, line);
       if (rh === rh && o.temperatureC === o.temperatureC) {
-        o.dewpointC = dewpointFromRh(o.temperatureC, rh);
+        // RH above 100 % is bad data here, not supersaturation
+        o.dewpointC = rh > 0 && rh <= 100 ? dewpointFromRelativeHumidity(o.temperatureC, rh / 100, MAGNUS_AERK1996) : NaN;
         if (o.dewpointC === o.dewpointC) this.count('derived-from-rh', 'dewpoint', line, `${rh}%`);
       }
     }

@@ -3,18 +3,18 @@
  * → Observations in canonical units, with a FileReport accounting for every line.
  * Code forms: WMO-No. 306 Manual on Codes FM 15 METAR / FM 16 SPECI; US remarks FMH-1 ch. 12.
  */
-import type { FileReport, Observation, ParseIssue } from './types.js';
-import { addIssue, emptyObservation, newFileReport } from './types.js';
+import { addIssue, emptyObservation, newFileReport, type FileReport, type Observation, type ParseIssue } from '../model/index.js';
 import { archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
-import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from './metar/decodeMetar.js';
+import { decodeInto, type DecodeRef } from './metar/decodeMetar.js';
+import { newMetarReport, type MetarReport } from './metar/metarReport.js';
 import { decodeBytesInto } from './metar/byteMetar.js';
+import { MS_PER_DAY } from '../physics/constants.js';
 
 export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';
 export type { MetarReport, SkyLayer } from './metar/decodeMetar.js';
 export { yearMonthFromFileName, reportTimeMs, daysInMonth } from './metar/calendar.js';
 export type { MonthRef, NameDate } from './metar/calendar.js';
 export { weatherFlags } from './metar/weather.js';
-export { INHG_HPA, KNOT_MS, STATUTE_MILE_M, INCH_MM, FOOT_M } from './metar/units.js';
 
 /**
  * Observation from a decoded report. Temperatures prefer the `T` remark tenths; altimeter is the `A`
@@ -257,7 +257,7 @@ function scanMetar(u: Uint8Array, file: string, month: string | undefined, emit:
       continue;
     }
     if (running && !stamped1) {
-      const dayNo = Math.floor(r.timeMs / 86_400_000);
+      const dayNo = Math.floor(r.timeMs / MS_PER_DAY);
       if (dayNo !== lastDay) {
         lastDay = dayNo;
         civilFromDays(dayNo, civil);

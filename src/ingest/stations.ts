@@ -8,8 +8,8 @@
  * Empty lat/lon/elevation cells are NaN (a station may be listed without coordinates).
  */
 import Papa from 'papaparse';
-import { addIssue, newFileReport, type FileReport, type StationMeta } from './types.js';
-import { FOOT_M } from './units.js';
+import { addIssue, newFileReport, type FileReport, type StationMeta } from '../model/index.js';
+import { FOOT_M } from '../physics/constants.js';
 
 type StationColumn = 'id' | 'lat' | 'lon' | 'elevationM' | 'elevationFt' | 'name' | 'alias' | 'coastal' | 'seaBearing';
 

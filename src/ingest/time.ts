@@ -20,6 +20,7 @@
  * holds in the southern hemisphere (Sydney: +10:00, not the January DST offset +11:00).
  */
 import { IANAZone } from 'luxon';
+import { MS_PER_DAY, MS_PER_HOUR, MS_PER_MINUTE } from '../physics/constants.js';
 
 export type TimeError = 'ambiguous' | 'nonexistent' | 'unparsable' | 'needs-zone';
 export type TimeResult = { ms: number } | { error: TimeError; message: string };
@@ -34,9 +35,6 @@ export interface TimeOptions {
   /** The text is an epoch number (seconds, or ms when |value| > 1e11). */
   epoch?: boolean;
 }
-
-const HOUR_MS = 3600000;
-const DAY_MS = 86400000;
 
 /** Fields read from the text; `offset` NaN when the text has none. */
 interface Parts {
@@ -251,11 +249,11 @@ class ZoneOffsets {
   }
   /** Offset in minutes east of UTC at instant `ms`. */
   at(ms: number): number {
-    const hour = Math.floor(ms / HOUR_MS);
+    const hour = Math.floor(ms / MS_PER_HOUR);
     const c = this.cache.get(hour);
     if (c !== undefined) return Number.isNaN(c) ? this.zone.offset(ms) : c;
-    const a = this.zone.offset(hour * HOUR_MS);
-    const b = this.zone.offset(hour * HOUR_MS + HOUR_MS - 1);
+    const a = this.zone.offset(hour * MS_PER_HOUR);
+    const b = this.zone.offset(hour * MS_PER_HOUR + MS_PER_HOUR - 1);
     if (this.cache.size > 200000) this.cache.clear();
     this.cache.set(hour, a === b ? a : NaN);
     return a === b ? a : this.zone.offset(ms);
@@ -283,19 +281,19 @@ function fmtOffset(min: number): string {
  * the zone's offset at that instant equals the candidate offset.
  */
 function localToUtc(wallMs: number, z: ZoneOffsets, text: string): TimeResult {
-  const o1 = z.at(wallMs - DAY_MS);
-  const o2 = z.at(wallMs + DAY_MS);
-  const u1 = wallMs - o1 * 60000;
+  const o1 = z.at(wallMs - MS_PER_DAY);
+  const o2 = z.at(wallMs + MS_PER_DAY);
+  const u1 = wallMs - o1 * MS_PER_MINUTE;
   const ok1 = z.at(u1) === o1;
   if (o1 === o2) {
     if (ok1) return { ms: u1 };
     // Two changes within two days (rare); fall back to the offset at the wall time itself.
     const o = z.at(wallMs);
-    const u = wallMs - o * 60000;
+    const u = wallMs - o * MS_PER_MINUTE;
     if (z.at(u) === o) return { ms: u };
     return { error: 'nonexistent', message: `${text} does not exist in ${z.zone.name} (clock change); give times in UTC or with an offset` };
   }
-  const u2 = wallMs - o2 * 60000;
+  const u2 = wallMs - o2 * MS_PER_MINUTE;
   const ok2 = z.at(u2) === o2;
   if (ok1 && ok2) {
     return {
@@ -388,11 +386,11 @@ export function makeTimeReader(opts: TimeOptions = {}): TimeReader {
       dayD = p.d;
       dayMs = Date.UTC(p.y, p.mo - 1, p.d);
     }
-    const wall = dayMs + p.h * HOUR_MS + p.mi * 60000 + p.s * 1000 + p.ms;
-    if (!Number.isNaN(p.offset)) return wall - p.offset * 60000;
-    if (!Number.isNaN(fixed)) return wall - fixed * 60000;
+    const wall = dayMs + p.h * MS_PER_HOUR + p.mi * MS_PER_MINUTE + p.s * 1000 + p.ms;
+    if (!Number.isNaN(p.offset)) return wall - p.offset * MS_PER_MINUTE;
+    if (!Number.isNaN(fixed)) return wall - fixed * MS_PER_MINUTE;
     if (z) {
-      if (standardTime) return wall - z.standard(p.y) * 60000;
+      if (standardTime) return wall - z.standard(p.y) * MS_PER_MINUTE;
       const r = localToUtc(wall, z, text ?? bytesText());
       if ('ms' in r) return r.ms;
       reader.error = r;

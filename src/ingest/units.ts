@@ -10,9 +10,12 @@
  * - 1 nautical mile = 1852 m, so 1 kn = 1852/3600 m/s.
  * - 1 mph = 1609.344/3600 m/s = 0.44704 m/s; 1 km/h = 1/3.6 m/s (SI).
  * - °C = (°F − 32)/1.8; °C = K − 273.15 (SI definition of the Celsius scale).
- * - inch of mercury, conventional: 3386.389 Pa (SP 811 B.8, 7 significant digits; 0.0254 m × 13595.1 kg/m³
- *   × 9.80665 m/s² = 3386.38864 Pa); 1 hPa = 100 Pa; 1 kPa = 10 hPa.
+ * - inch of mercury, conventional: 0.0254 m × 13595.1 kg/m³ × 9.80665 m/s² = 3386.38864 Pa (HPA_PER_INHG,
+ *   physics/constants.ts; SP 811 B.8 prints 3.386 389 E+03); 1 hPa = 100 Pa; 1 kPa = 10 hPa.
  */
+
+import { FOOT_M, HPA_PER_INHG, INCH_M, KNOT_MS, MPH_MS, ZERO_CELSIUS_K } from '../physics/constants.js';
+import { medianInPlace } from '../signal/median.js';
 
 export type UnitName =
   | 'degC'
@@ -38,27 +41,6 @@ export const UNIT_NAMES: readonly UnitName[] = ['degC', 'degF', 'K', 'm/s', 'kt'
 
 /** Kind of quantity a unit measures. `depth` = precipitation (canonical mm), `height` = elevation (canonical m). */
 export type Quantity = 'temperature' | 'speed' | 'pressure' | 'depth' | 'height' | 'angle' | 'fraction';
-
-/** International foot, m. NIST SP 811 (2008) App. B.8, exact. */
-export const FOOT_M = 0.3048;
-/** Inch, m. NIST SP 811 (2008) App. B.8, exact. */
-export const INCH_M = 0.0254;
-/** Statute mile, m. NIST SP 811 (2008) App. B.8, exact. */
-export const STATUTE_MILE_M = 1609.344;
-/** International nautical mile, m. NIST SP 811 (2008) App. B.8, exact. */
-export const NAUTICAL_MILE_M = 1852;
-/** Knot, m/s: 1852/3600 exactly. NIST SP 811 (2008) App. B.8. */
-export const KNOT_MS = NAUTICAL_MILE_M / 3600;
-/** Mile per hour, m/s: 1609.344/3600 = 0.44704 exactly. NIST SP 811 (2008) App. B.8. */
-export const MPH_MS = STATUTE_MILE_M / 3600;
-/** Kilometre per hour, m/s: 1/3.6 exactly (SI). */
-export const KMH_MS = 1 / 3.6;
-/** Conventional inch of mercury, Pa. NIST SP 811 (2008) App. B.8 (3.386 389 E+03). */
-export const INHG_PA = 3386.389;
-/** Conventional inch of mercury, hPa (derived). */
-export const INHG_HPA = INHG_PA / 100;
-/** 0 °C in kelvin (SI, exact). */
-export const ZERO_CELSIUS_K = 273.15;
 
 const QUANTITY: Record<UnitName, Quantity> = {
   degC: 'temperature',
@@ -122,7 +104,7 @@ export function parseUnitName(text: string): UnitName | null {
 
 /**
  * A fast function converting a value in `unit` to the canonical unit of its quantity.
- * °F: (t − 32)/1.8; K: t − 273.15; kt ×1852/3600; mph ×0.44704; km/h ÷3.6; inHg ×33.86389; kPa ×10; Pa ÷100;
+ * °F: (t − 32)/1.8; K: t − 273.15; kt ×1852/3600; mph ×0.44704; km/h ÷3.6; inHg ×33.8638864; kPa ×10; Pa ÷100;
  * in ×25.4 (to mm); ft ×0.3048 (to m). NaN stays NaN. Sources in the module comment. Built from the one
  * table in `conversionOf`.
  * @example converter('kt')(10) // 5.1444…
@@ -162,7 +144,7 @@ export function conversionOf(unit: UnitName): { op: 0 | 1 | 2 | 3 | 4; k: number
     case 'km/h':
       return { op: 4, k: 3.6 };
     case 'inHg':
-      return { op: 3, k: INHG_HPA };
+      return { op: 3, k: HPA_PER_INHG };
     case 'kPa':
       return { op: 3, k: 10 };
     case 'Pa':
@@ -209,7 +191,7 @@ export function fromCanonical(value: number, unit: UnitName): number {
     case 'km/h':
       return value * 3.6;
     case 'inHg':
-      return value / INHG_HPA;
+      return value / HPA_PER_INHG;
     case 'kPa':
       return value / 10;
     case 'Pa':
@@ -293,14 +275,18 @@ export interface InferredUnit {
 }
 
 function finiteMedianMax(values: ArrayLike<number>): { median: number; max: number; n: number } {
-  const a: number[] = [];
+  let n = 0;
+  let max = -Infinity;
   for (let i = 0; i < values.length; i++) {
     const v = values[i]!;
-    if (Number.isFinite(v)) a.push(v);
+    if (Number.isFinite(v)) {
+      n++;
+      if (v > max) max = v;
+    }
   }
-  if (a.length === 0) return { median: NaN, max: NaN, n: 0 };
-  a.sort((x, y) => x - y);
-  return { median: a[(a.length - 1) >> 1]!, max: a[a.length - 1]!, n: a.length };
+  if (n === 0) return { median: NaN, max: NaN, n: 0 };
+  const finite = Float64Array.from(values).map((v) => (Number.isFinite(v) ? v : NaN));
+  return { median: medianInPlace(finite), max, n };
 }
 
 /**

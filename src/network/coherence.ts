@@ -7,17 +7,14 @@
  * Wakimoto1982 (the gust front is a few tens of km across). The sizes below are common practice, no
  * source.
  */
-import type { StationMeta } from '../ingest/types.js';
-import type { StationSeries } from '../series/series.js';
-import type { PassageEvent } from '../detect/types.js';
-import type { FrontTrack } from './track.js';
+import type { FrontTrack, PassageEvent, StationMeta, StationSeries } from '../model/index.js';
+import { MS_PER_HOUR } from '../physics/constants.js';
 import { stationDistanceKm } from '../physics/geo.js';
 
-const HOUR = 3_600_000;
 /** Neighbours are stations within this distance. */
 export const NEIGHBOUR_KM = 300;
 /** A neighbour's front counts as the same one within this time. */
-const SAME_FRONT_MS = 4 * HOUR;
+const SAME_FRONT_MS = 4 * MS_PER_HOUR;
 /** Confidence gained by a tracked passage (fraction of the remaining doubt removed). */
 const TRACKED_GAIN = 0.3;
 /** Confidence kept by an isolated cooling whose neighbours saw nothing. */
@@ -27,7 +24,7 @@ const FRONTS = new Set(['cold-front', 'warm-front', 'occluded-front']);
 
 function reporting(s: StationSeries | undefined, tMs: number): boolean {
   if (!s || s.length === 0) return false;
-  return s.timeMs[0]! <= tMs - 3 * HOUR && s.timeMs[s.length - 1]! >= tMs + 3 * HOUR;
+  return s.timeMs[0]! <= tMs - 3 * MS_PER_HOUR && s.timeMs[s.length - 1]! >= tMs + 3 * MS_PER_HOUR;
 }
 
 /**
@@ -59,6 +56,6 @@ export function withNetworkCoherence(events: readonly PassageEvent[], tracks: re
     const seen = near.filter((id) => events.some((o) => o.station === id && FRONTS.has(o.kind) && Math.abs(o.timeMs - e.timeMs) <= SAME_FRONT_MS));
     if (seen.length > 0) return e;
     const confidence = Math.round(e.confidence * ISOLATED_FACTOR * 100) / 100;
-    return { ...e, confidence, evidence: [...e.evidence, `− none of ${near.length} neighbouring stations within ${NEIGHBOUR_KM} km saw a front within ${SAME_FRONT_MS / HOUR} h: a local boundary?`] };
+    return { ...e, confidence, evidence: [...e.evidence, `− none of ${near.length} neighbouring stations within ${NEIGHBOUR_KM} km saw a front within ${SAME_FRONT_MS / MS_PER_HOUR} h: a local boundary?`] };
   });
 }

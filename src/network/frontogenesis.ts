@@ -6,14 +6,14 @@
  * between the isentropes and the axis of dilatation. F > 0 is frontogenesis (the gradient tightens), F < 0
  * frontolysis. Gradients come from station planes (gradient.ts).
  */
-import type { StationSeries } from '../series/series.js';
-import type { StationMeta } from '../ingest/types.js';
+import type { FrontTrack, StationMeta, StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { projectLocalKm } from '../physics/geo.js';
 import { potentialTemperatureK } from '../physics/theta.js';
 import { windComponents } from '../physics/wind.js';
 import { planeGradient } from './gradient.js';
-import type { FrontTrack } from './track.js';
+import { MS_PER_HOUR } from '../physics/constants.js';
+import { median } from '../signal/median.js';
 
 /** K m⁻¹ s⁻¹ → K per 100 km per 3 h (10⁵ m × 10 800 s). */
 export const PER_M_PER_S_TO_PER_100KM_PER_3H = 1e5 * 10800;
@@ -63,8 +63,6 @@ export function petterssenFrontogenesis(g: KinematicGradients): Frontogenesis {
   };
 }
 
-const HOUR = 3_600_000;
-
 /** Pressure of the ICAO standard atmosphere at height z (m), hPa: 1013.25 (1 − 2.25577e-5 z)^5.25588 (ICAO Doc 7488). */
 export function standardPressureHpa(elevationM: number): number {
   return 1013.25 * Math.pow(1 - 2.25577e-5 * elevationM, 5.25588);
@@ -84,9 +82,9 @@ export function valueAt(timeMs: ArrayLike<number>, v: ArrayLike<number>, t: numb
   while (b < v.length && !Number.isFinite(v[b]!)) b++;
   const ta = a >= 0 ? timeMs[a]! : NaN;
   const tb = b < v.length ? timeMs[b]! : NaN;
-  if (a >= 0 && b < v.length && tb - ta <= 1.5 * HOUR) return tb === ta ? v[a]! : v[a]! + ((v[b]! - v[a]!) * (t - ta)) / (tb - ta);
-  if (a >= 0 && t - ta <= 0.5 * HOUR) return v[a]!;
-  if (b < v.length && tb - t <= 0.5 * HOUR) return v[b]!;
+  if (a >= 0 && b < v.length && tb - ta <= 1.5 * MS_PER_HOUR) return tb === ta ? v[a]! : v[a]! + ((v[b]! - v[a]!) * (t - ta)) / (tb - ta);
+  if (a >= 0 && t - ta <= 0.5 * MS_PER_HOUR) return v[a]!;
+  if (b < v.length && tb - t <= 0.5 * MS_PER_HOUR) return v[b]!;
   return NaN;
 }
 
@@ -140,8 +138,7 @@ export function withFrontogenesis(tracks: readonly FrontTrack[], series: readonl
       const f = petterssenFrontogenesis({ thetaX: th.dfdxPerKm / 1000, thetaY: th.dfdyPerKm / 1000, ux: u.dfdxPerKm / 1000, uy: u.dfdyPerKm / 1000, vx: v.dfdxPerKm / 1000, vy: v.dfdyPerKm / 1000 });
       return { ...m, frontogenesisKPer100kmPer3h: f.fKPer100kmPer3h };
     });
-    const vals = members.map((m) => m.frontogenesisKPer100kmPer3h).filter(Number.isFinite).sort((a, b) => a - b);
-    const median = vals.length ? (vals.length % 2 ? vals[vals.length >> 1]! : (vals[vals.length / 2 - 1]! + vals[vals.length / 2]!) / 2) : NaN;
-    return { ...t, members, frontogenesisKPer100kmPer3h: median };
+    const finite = members.map((m) => m.frontogenesisKPer100kmPer3h).filter(Number.isFinite);
+    return { ...t, members, frontogenesisKPer100kmPer3h: median(finite) };
   });
 }

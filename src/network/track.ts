@@ -10,11 +10,13 @@
  * Strength along the track: the temperature change regressed on the along-track distance; growing change
  * is strengthening (frontogenesis), shrinking change with a widening zone is weakening (frontolysis).
  */
-import type { StationMeta } from '../ingest/types.js';
-import type { BoundaryKind, PassageEvent } from '../detect/types.js';
+import type { BoundaryKind, FrontTrack, PassageEvent, StationMeta, StrengthTrend, TrackMember } from '../model/index.js';
 import { projectLocalKm, stationDistanceKm } from '../physics/geo.js';
 
-const HOUR = 3_600_000;
+/** @deprecated Re-exported for old import paths; import from src/model/. */
+export type { FrontTrack, StrengthTrend, TrackMember } from '../model/track.js';
+import { MS_PER_HOUR } from '../physics/constants.js';
+import { leastSquaresPlane } from './leastSquaresPlane.js';
 
 export interface TrackOptions {
   /** Kinds to track (default cold, warm and occluded fronts, drylines). */
@@ -28,46 +30,6 @@ export interface TrackOptions {
   linkKm?: number;
   /** Fewest stations for a track (default 3: a plane needs three). */
   minStations?: number;
-}
-
-export interface TrackMember {
-  station: string;
-  event: PassageEvent;
-  xKm: number;
-  yKm: number;
-  /** Observed minus fitted passage time, minutes. */
-  residualMin: number;
-  /** Distance along the direction of motion from the network origin, km. */
-  alongKm: number;
-  /** Petterssen frontogenesis at this passage, K per 100 km per 3 h (see frontogenesis.ts; NaN until computed). */
-  frontogenesisKPer100kmPer3h?: number;
-}
-
-export type StrengthTrend = 'strengthening' | 'weakening' | 'steady' | 'unknown';
-
-export interface FrontTrack {
-  id: string;
-  kind: BoundaryKind;
-  members: TrackMember[];
-  /** Fitted passage time at the network origin. */
-  t0Ms: number;
-  /** Speed normal to the front, km/h. */
-  speedKmh: number;
-  /** Direction the front moves toward, degrees true. */
-  directionDeg: number;
-  /** Root-mean-square residual of the members, minutes. */
-  rmsResidualMin: number;
-  /** Along-track change of |ΔT| (|ΔTd| for drylines), °C per 100 km (positive = strengthening); NaN for warm and occluded fronts. */
-  strengthSlopeCPer100km: number;
-  /** Along-track change of the zone depth, km per 100 km (positive = widening). */
-  zoneSlopeKmPer100km: number;
-  trend: StrengthTrend;
-  /** Median Petterssen frontogenesis over the passages, K per 100 km per 3 h (NaN until computed). */
-  frontogenesisKPer100kmPer3h?: number;
-  /** Stations of the same network without a passage in this track: when the fit says it passed or will pass. */
-  expected: { station: string; timeMs: number }[];
-  /** Origin of the local projection. */
-  origin: { latDeg: number; lonDeg: number };
 }
 
 interface Point {
@@ -84,34 +46,21 @@ interface Plane {
   sy: number;
 }
 
-/** Least-squares plane t = t0 + sx·x + sy·y with weights; null when degenerate. */
+/**
+ * Least-squares plane t = t0 + sx·x + sy·y (t in h, x and y in km, slowness sx, sy in h/km) with optional weights,
+ * by `leastSquaresPlane` (its missing-value and collinearity rules); null when degenerate.
+ */
 export function fitPlane(pts: readonly { x: number; y: number; t: number }[], w?: readonly number[]): Plane | null {
-  let sw = 0, sx = 0, sy = 0, st = 0;
-  for (let i = 0; i < pts.length; i++) {
-    const wi = w ? w[i]! : 1;
-    sw += wi;
-    sx += wi * pts[i]!.x;
-    sy += wi * pts[i]!.y;
-    st += wi * pts[i]!.t;
+  const n = pts.length;
+  const x = new Float64Array(n), y = new Float64Array(n), t = new Float64Array(n);
+  for (let i = 0; i < n; i++) {
+    x[i] = pts[i]!.x;
+    y[i] = pts[i]!.y;
+    t[i] = pts[i]!.t;
   }
-  if (!(sw > 0)) return null;
-  const mx = sx / sw, my = sy / sw, mt = st / sw;
-  let sxx = 0, sxy = 0, syy = 0, sxt = 0, syt = 0;
-  for (let i = 0; i < pts.length; i++) {
-    const wi = w ? w[i]! : 1;
-    const dx = pts[i]!.x - mx, dy = pts[i]!.y - my, dt = pts[i]!.t - mt;
-    sxx += wi * dx * dx;
-    sxy += wi * dx * dy;
-    syy += wi * dy * dy;
-    sxt += wi * dx * dt;
-    syt += wi * dy * dt;
-  }
-  const det = sxx * syy - sxy * sxy;
-  // Collinear stations cannot fix a direction.
-  if (!(Math.abs(det) > 1e-6 * (sxx + syy) * (sxx + syy)) || sxx + syy < 1) return null;
-  const a = (sxt * syy - syt * sxy) / det;
-  const b = (syt * sxx - sxt * sxy) / det;
-  return { t0: mt - a * mx - b * my, sx: a, sy: b };
+  const p = leastSquaresPlane(x, y, t, w);
+  if (Number.isNaN(p.dfdx)) return null;
+  return { t0: p.mean - p.dfdx * p.meanX - p.dfdy * p.meanY, sx: p.dfdx, sy: p.dfdy };
 }
 
 /** Speed (km/h) and direction of motion (degrees true) from a slowness vector in h/km. */
@@ -243,7 +192,7 @@ export function trackFronts(events: readonly PassageEvent[], stations: readonly 
         .sort((a, b) => a.e.timeMs - b.e.timeMs || a.station - b.station);
       if (pts.length < minStations) continue;
       const ref = pts[0]!.e.timeMs;
-      for (const p of pts) p.t = (p.e.timeMs - ref) / HOUR;
+      for (const p of pts) p.t = (p.e.timeMs - ref) / MS_PER_HOUR;
       // Largest plausible spread of passage times over this network.
       let diameter = 0;
       for (let i = 0; i < net.length; i++) for (let j = i + 1; j < net.length; j++) diameter = Math.max(diameter, Math.hypot(proj.xKm[i]! - proj.xKm[j]!, proj.yKm[i]! - proj.yKm[j]!));
@@ -332,13 +281,13 @@ function buildTrack(
   const expected = net
     .map((s, i) => ({ s, i }))
     .filter(({ s }) => !have.has(s.id))
-    .map(({ s, i }) => ({ station: s.id, timeMs: refMs + (plane.t0 + plane.sx * proj.xKm[i]! + plane.sy * proj.yKm[i]!) * HOUR }));
+    .map(({ s, i }) => ({ station: s.id, timeMs: refMs + (plane.t0 + plane.sx * proj.xKm[i]! + plane.sy * proj.yKm[i]!) * MS_PER_HOUR }));
   void tolH;
   return {
     id: '',
     kind,
     members,
-    t0Ms: refMs + plane.t0 * HOUR,
+    t0Ms: refMs + plane.t0 * MS_PER_HOUR,
     speedKmh: motion.speedKmh,
     directionDeg: motion.directionDeg,
     rmsResidualMin: rms,

@@ -52,10 +52,12 @@ export const WGS84_B_M = WGS84_A_M * (1 - WGS84_F);
 /** IUGG mean earth radius R1 = (2a + b)/3 ≈ 6371008.77 m for WGS84 (Moritz 1980 definition; derived). */
 export const EARTH_MEAN_RADIUS_M = (2 * WGS84_A_M + WGS84_B_M) / 3;
 
-/** Conventional density of mercury at 0 °C, kg m⁻³ (used for the conventional inch of mercury). */
+/** Conventional density of mercury at 0 °C, kg m⁻³ (NIST SP 811 (2008) App. B.8, the "conventional" mercury units). */
 export const MERCURY_DENSITY_KG_M3 = 13595.1;
 /** Inch, m (exact, 1959 international yard and pound agreement). */
 export const INCH_M = 0.0254;
+/** Inch, mm (derived: 1000 × INCH_M = 25.4 exactly). */
+export const INCH_MM = INCH_M * 1000;
 /**
  * hPa per conventional inch of mercury: 0.0254 m × 13595.1 kg m⁻³ × g0 / 100 ≈ 33.8638864 hPa.
  * NIST SP 811 (2008) App. B.8 lists 3.386 389 E+03 Pa (agrees to its 7 printed digits). Derived.
@@ -63,8 +65,22 @@ export const INCH_M = 0.0254;
 export const HPA_PER_INHG = (INCH_M * MERCURY_DENSITY_KG_M3 * G0) / 100;
 /** International foot, m (exact). */
 export const FOOT_M = 0.3048;
-/** Knot, m s⁻¹ = 1852 m / 3600 s (exact; international nautical mile 1852 m). */
-export const KNOT_MS = 1852 / 3600;
-/** Milliseconds per minute, per hour (convenience). */
-export const MINUTE_MS = 60_000;
-export const HOUR_MS = 3_600_000;
+/** Statute mile = 5280 ft, m (derived: 1609.344 m exactly; NIST SP 811 (2008) App. B.8). */
+export const STATUTE_MILE_M = 5280 * FOOT_M;
+/** International nautical mile, m (exact by definition; NIST SP 811 (2008) App. B.8). */
+export const NAUTICAL_MILE_M = 1852;
+/** Knot, m s⁻¹ = 1852 m / 3600 s (exact; NIST SP 811 (2008) App. B.8 "knot 5.144 444 E-01 m/s"). */
+export const KNOT_MS = NAUTICAL_MILE_M / 3600;
+/** Mile per hour, m s⁻¹ = 1609.344/3600 = 0.44704 exactly (derived; NIST SP 811 (2008) App. B.8). */
+export const MPH_MS = STATUTE_MILE_M / 3600;
+/** Kilometre per hour, m s⁻¹ = 1/3.6 exactly (SI). */
+export const KMH_MS = 1 / 3.6;
+
+/** Milliseconds per second (SI). */
+export const MS_PER_SECOND = 1000;
+/** Milliseconds per minute (60 s). */
+export const MS_PER_MINUTE = 60 * MS_PER_SECOND;
+/** Milliseconds per hour (60 min). */
+export const MS_PER_HOUR = 60 * MS_PER_MINUTE;
+/** Milliseconds per day (24 h; UTC days, leap seconds not counted, as in ECMAScript time values). */
+export const MS_PER_DAY = 24 * MS_PER_HOUR;

@@ -14,7 +14,7 @@
  *   DWD (VuB 2 BUFR, p. 28; C_h = 0.12 K/hPa) and used in the US with T_s the mean of the current and 12-h-old
  *   temperatures (WMO-No. 8 Part I Ch. 3 discusses the reduction; its exact equation number is not cited here).
  */
-import { G0, HOUR_MS, HPA_PER_INHG, RD, STANDARD_PRESSURE_HPA, ZERO_CELSIUS_K } from './constants.js';
+import { G0, HPA_PER_INHG, MS_PER_HOUR, RD, STANDARD_PRESSURE_HPA, ZERO_CELSIUS_K } from './constants.js';
 
 /**
  * Inches of mercury to hPa (conventional inch of mercury, 33.8638864 hPa; NIST SP 811 App. B.8).
@@ -202,9 +202,26 @@ export interface PressureTendencyGroup {
 }
 
 /**
+ * Signed 3-h pressure change from the `5appp` characteristic a and amount ppp (tenths of hPa), by WMO-No. 306
+ * code table 0200 (WMO306-0200): a = 1, 2, 3 "higher than 3 h ago" → +ppp; a = 0 "same or higher" → +ppp;
+ * a = 6, 7, 8 "lower" → −ppp; a = 5 "same or lower" → −ppp; a = 4 "steady, the same as 3 h ago" → 0.
+ * A group with a = 4 and ppp ≠ 000 contradicts itself (the table says the pressure is the same, the amount says
+ * it changed, and nothing gives the sign): the change is NaN, undefined, by the one missing-value rule.
+ * ppp = 000 gives +0 for every a (never −0). NaN amount, or a outside 0–8, → NaN.
+ * @example pressureChangeFromTendencyHpa(8, 33) // −3.3
+ * @example pressureChangeFromTendencyHpa(4, 3) // NaN
+ */
+export function pressureChangeFromTendencyHpa(characteristic: number, amountTenthsHpa: number): number {
+  if (!(characteristic >= 0 && characteristic <= 8) || Number.isNaN(amountTenthsHpa)) return NaN;
+  const v = amountTenthsHpa / 10;
+  if (v === 0) return 0;
+  if (characteristic === 4) return NaN;
+  return characteristic <= 3 ? v : -v;
+}
+
+/**
  * Decode a `5appp` pressure-tendency group (FMH1 ch. 12; WMO-No. 306 FM 12 section 1 group 5appp): a = code table
- * 0200 characteristic, ppp = amount in tenths of hPa. Sign from the table: a = 0–3 → + (higher or same; 0 may be same),
- * a = 4 → 0 (steady), a = 5–8 → − (lower or same; 5 may be same).
+ * 0200 characteristic, ppp = amount in tenths of hPa, signed by {@link pressureChangeFromTendencyHpa}.
  * Returns null when the text is not `5` followed by a digit 0–8 and three digits.
  * @example decodePressureTendencyGroup('58033') // { characteristic: 8, changeHpa: -3.3 }
  */
@@ -212,14 +229,9 @@ export function decodePressureTendencyGroup(group: string): PressureTendencyGrou
   const m = /^5([0-8])(\d{3})$/.exec(group.trim());
   if (m === null) return null;
   const a = Number(m[1]);
-  const ppp = Number(m[2]) / 10;
-  let changeHpa: number;
-  if (a <= 3) changeHpa = ppp;
-  else if (a === 4) changeHpa = ppp === 0 ? 0 : NaN;
-  else changeHpa = ppp === 0 ? 0 : -ppp;
-  return { characteristic: a, changeHpa };
+  return { characteristic: a, changeHpa: pressureChangeFromTendencyHpa(a, Number(m[2])) };
 }
 
 /** 1 h and 3 h in ms, for {@link pressureTendencySeries}. */
-export const TENDENCY_WINDOW_1H_MS = HOUR_MS;
-export const TENDENCY_WINDOW_3H_MS = 3 * HOUR_MS;
+export const TENDENCY_WINDOW_1H_MS = MS_PER_HOUR;
+export const TENDENCY_WINDOW_3H_MS = 3 * MS_PER_HOUR;

@@ -11,10 +11,9 @@
  * - Meeus1998: Meeus, J., 1998: Astronomical Algorithms, 2nd ed., Willmann-Bell, ch. 25 (Example 25.a).
  * - NOAAsolar: NOAA GML Solar Calculator and its "NOAA_Solar_Calculations" spreadsheet (equations as above).
  */
-import { HOUR_MS } from './constants.js';
+import { MS_PER_DAY, MS_PER_HOUR, MS_PER_MINUTE } from './constants.js';
 
 const DEG = Math.PI / 180;
-const DAY_MS = 86_400_000;
 /** Julian date of the Unix epoch 1970-01-01T00:00Z. */
 const JD_UNIX_EPOCH = 2440587.5;
 /** Standard zenith angle for sunrise/sunset (refraction 34′ + semi-diameter 16′), degrees. */
@@ -22,7 +21,7 @@ export const SUNRISE_ZENITH_DEG = 90.833;
 
 /** Julian date from epoch ms (UTC). @example julianDate(Date.UTC(2000, 0, 1, 12)) // 2451545 */
 export function julianDate(timeMs: number): number {
-  return timeMs / DAY_MS + JD_UNIX_EPOCH;
+  return timeMs / MS_PER_DAY + JD_UNIX_EPOCH;
 }
 
 /** Apparent geocentric Sun coordinates and equation of time (Meeus1998 ch. 25 low precision, NOAAsolar). */
@@ -121,7 +120,7 @@ export interface SolarPosition {
  */
 export function solarPosition(timeMs: number, latDeg: number, lonDeg: number): SolarPosition {
   const sun = sunEquatorial(timeMs);
-  const minutesOfDay = (((timeMs % DAY_MS) + DAY_MS) % DAY_MS) / 60000;
+  const minutesOfDay = (((timeMs % MS_PER_DAY) + MS_PER_DAY) % MS_PER_DAY) / MS_PER_MINUTE;
   const trueSolarMin = mod1440(minutesOfDay + sun.equationOfTimeMin + 4 * lonDeg);
   let ha = trueSolarMin / 4 - 180;
   if (ha < -180) ha += 360;
@@ -165,9 +164,9 @@ export interface SunTimes {
  * @example sunTimes(Date.UTC(2021, 5, 21, 12), 35.2226, -97.4395).sunriseMs // ≈ Date.UTC(2021, 5, 21, 11, 15, 38)
  */
 export function sunTimes(dayMs: number, latDeg: number, lonDeg: number): SunTimes {
-  const day0 = Math.floor((dayMs + (lonDeg / 15) * HOUR_MS) / DAY_MS) * DAY_MS;
+  const day0 = Math.floor((dayMs + (lonDeg / 15) * MS_PER_HOUR) / MS_PER_DAY) * MS_PER_DAY;
   if (Number.isNaN(day0) || Number.isNaN(latDeg)) return { sunriseMs: NaN, solarNoonMs: NaN, sunsetMs: NaN, kind: 'normal' };
-  const atMin = (min: number) => day0 + min * 60000;
+  const atMin = (min: number) => day0 + min * MS_PER_MINUTE;
   let noonMin = 720 - 4 * lonDeg;
   for (let k = 0; k < 3; k++) noonMin = 720 - 4 * lonDeg - sunEquatorial(atMin(noonMin)).equationOfTimeMin;
   const phi = latDeg * DEG;
@@ -200,12 +199,27 @@ export function isDaylight(timeMs: number, latDeg: number, lonDeg: number): bool
 }
 
 /**
- * Local apparent (true) solar time in hours [0, 24): UTC time + 4 min per degree of east longitude + equation of
- * time (NOAAsolar "true solar time"). 12 = local apparent noon. NaN in → NaN.
- * @example localSolarHour(Date.UTC(2021, 2, 20, 12, 7, 22), 0) // ≈ 12.0
+ * Local solar time as an epoch-like ms count: timeMs + lonDeg/15 h (east positive), plus the equation of time
+ * when `apparent` is true. Mean solar time (`apparent` false) = UTC + 4 min per degree of east longitude;
+ * apparent (true) solar time adds the equation of time of `sunEquatorial` (NOAAsolar "true solar time").
+ * Dividing by MS_PER_HOUR and wrapping to [0, 24) gives `solarHour`; binning it by fractions of a day gives
+ * solar-time bins that do not wrap at midnight. NaN time or longitude → NaN.
+ * @example solarTimeMs(Date.UTC(2024, 0, 1, 12), -90) // Date.UTC(2024, 0, 1, 6)
  */
-export function localSolarHour(timeMs: number, lonDeg: number): number {
-  if (Number.isNaN(timeMs) || Number.isNaN(lonDeg)) return NaN;
-  const minutesOfDay = (((timeMs % DAY_MS) + DAY_MS) % DAY_MS) / 60000;
-  return mod1440(minutesOfDay + 4 * lonDeg + sunEquatorial(timeMs).equationOfTimeMin) / 60;
+export function solarTimeMs(timeMs: number, lonDeg: number, apparent = false): number {
+  return timeMs + (lonDeg / 15) * MS_PER_HOUR + (apparent ? sunEquatorial(timeMs).equationOfTimeMin * MS_PER_MINUTE : 0);
+}
+
+/**
+ * Local solar hour in [0, 24): UTC hour + lonDeg/15 (east positive) — mean solar time — or, with `apparent`,
+ * apparent (true) solar time including the equation of time (NOAAsolar "true solar time"; 12 = local apparent
+ * noon). Mean solar time differs from apparent by at most about 16 min (early November). NaN in → NaN.
+ * @example solarHour(Date.UTC(2024, 0, 1, 12), -90) // 6
+ * @example solarHour(Date.UTC(2021, 2, 20, 12, 7, 22), 0, true) // ≈ 12.0
+ */
+export function solarHour(timeMs: number, lonDeg: number, apparent = false): number {
+  const s = solarTimeMs(timeMs, lonDeg, apparent);
+  if (Number.isNaN(s)) return NaN;
+  const h = (s / MS_PER_HOUR) % 24;
+  return h < 0 ? h + 24 : h;
 }

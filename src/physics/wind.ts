@@ -16,20 +16,20 @@
  *   in less than 15 minutes with sustained winds of 10 knots or more throughout the wind shift"; reported time = time
  *   the shift began). Same wording: AFMAN 15-111 (2019) §7.4.5.
  */
-import { KNOT_MS, MINUTE_MS } from './constants.js';
+import { KNOT_MS, MS_PER_MINUTE } from './constants.js';
 
 const DEG = Math.PI / 180;
 
 /** FMH1 §5.4.6 minimum direction change, degrees. */
 export const FMH1_SHIFT_MIN_TURN_DEG = 45;
 /** FMH1 §5.4.6 the change must take less than this, ms (15 min). */
-export const FMH1_SHIFT_MAX_DURATION_MS = 15 * MINUTE_MS;
+export const FMH1_SHIFT_MAX_DURATION_MS = 15 * MS_PER_MINUTE;
 /** FMH1 §5.4.6 sustained speed throughout, m/s (10 kt). */
 export const FMH1_SHIFT_MIN_SPEED_MS = 10 * KNOT_MS;
 /** FMH1 §5.4.4 peak-to-lull variation for a gust, m/s (10 kt). */
 export const FMH1_GUST_MIN_RANGE_MS = 10 * KNOT_MS;
 /** FMH1 §5.4.4 evaluation window, ms (most recent 10 min). */
-export const FMH1_GUST_WINDOW_MS = 10 * MINUTE_MS;
+export const FMH1_GUST_WINDOW_MS = 10 * MS_PER_MINUTE;
 /**
  * Slack for threshold comparisons so that values converted from whole knots or degrees still meet "≥" criteria
  * despite rounding of the knot factor (1e-5 m/s ≈ 2e-5 kt; 1e-9°).

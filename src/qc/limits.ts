@@ -4,7 +4,7 @@
  * "Basic quality control procedures" (plausible values and time consistency). Values marked
  * "from memory" were not re-checked against the printed page.
  */
-import type { SeriesField } from '../series/series.js';
+import type { SeriesField } from '../model/index.js';
 
 export interface RangeLimit {
   min: number;

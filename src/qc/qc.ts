@@ -3,16 +3,15 @@
  * Flags go into `series.qc[field]` (QC bits); values are kept and shown, and excluded from detection
  * through `cleanColumn`.
  */
-import { QC, SERIES_FIELDS, type SeriesField, type StationSeries } from '../series/series.js';
+import { QC, SERIES_FIELDS, type SeriesField, type StationSeries } from '../model/index.js';
 import { DEWPOINT_EXCESS_C, PERSIST_HOURS, RANGE_LIMITS, RATE_LIMITS_PER_HOUR, SPIKE_LIMITS } from './limits.js';
+import { MS_PER_HOUR } from '../physics/constants.js';
 
 export interface QcSummary {
   /** Count of flagged values per field and test. */
   flagged: Record<string, number>;
   total: number;
 }
-
-const HOUR_MS = 3_600_000;
 
 /** Run every QC test on the series in place (only `series.qc` is written). Returns counts. */
 export function applyQc(series: StationSeries): QcSummary {
@@ -30,7 +29,7 @@ export function applyQc(series: StationSeries): QcSummary {
     const rate = RATE_LIMITS_PER_HOUR[f];
     if (rate !== undefined) bump(f, 'rate', flagRate(series.timeMs, v, q, rate));
     const p = PERSIST_HOURS[f];
-    if (p !== undefined) bump(f, 'persistence', flagPersistence(series.timeMs, v, q, p * HOUR_MS));
+    if (p !== undefined) bump(f, 'persistence', flagPersistence(series.timeMs, v, q, p * MS_PER_HOUR));
   }
   bump('dewpointC', 'above-temperature', flagDewpointAboveTemperature(series.temperatureC, series.dewpointC, series.qc.dewpointC));
   let total = 0;
@@ -87,7 +86,7 @@ export function flagRate(timeMs: ArrayLike<number>, v: ArrayLike<number>, q: Uin
   for (let i = 0; i < v.length; i++) {
     if (Number.isNaN(v[i]!) || q[i]! & (QC.RANGE | QC.SPIKE)) continue;
     if (prev >= 0) {
-      const dtH = Math.max(timeMs[i]! - timeMs[prev]!, 600_000) / HOUR_MS;
+      const dtH = Math.max(timeMs[i]! - timeMs[prev]!, 600_000) / MS_PER_HOUR;
       if (dtH <= 3 && Math.abs(v[i]! - v[prev]!) / dtH > perHour) {
         q[i]! |= QC.STEP;
         n++;

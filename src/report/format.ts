@@ -7,10 +7,8 @@
  * one cell joined with `; ` in CSV.
  */
 import { DateTime } from 'luxon';
-import type { PassageEvent } from '../detect/types.js';
+import type { PassageEvent } from '../model/index.js';
 import { CAUTION } from './caution.js';
-
-export { inspectToTable } from './inspect.js';
 
 /** Output columns, in contract order (CSV header, JSON key order). */
 export const EVENT_COLUMNS = [
@@ -19,6 +17,9 @@ export const EVENT_COLUMNS = [
   'time',
   'time_earliest',
   'time_latest',
+  'time_basis',
+  'wind_shift_time',
+  'change_start_time',
   'confidence',
   'temp_change_c',
   'dewpoint_change_c',
@@ -77,6 +78,9 @@ export function eventToRecord(e: PassageEvent): EventRecord {
     time: isoUtc(e.timeMs),
     time_earliest: isoUtc(e.timeEarliestMs),
     time_latest: isoUtc(e.timeLatestMs),
+    time_basis: e.timeBasis,
+    wind_shift_time: isoUtc(e.windShiftTimeMs),
+    change_start_time: isoUtc(e.changeStartTimeMs),
     confidence: roundOrNull(e.confidence, 2),
     temp_change_c: roundOrNull(e.tempChangeC, 1),
     dewpoint_change_c: roundOrNull(e.dewpointChangeC, 1),

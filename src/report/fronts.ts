@@ -2,8 +2,9 @@
  * Output writers for fronts tracked across a network: one record per front (CSV, JSON) and a table for
  * people. Pure functions. Times ISO 8601 UTC; directions are where the front moves toward, degrees true.
  */
-import type { FrontTrack } from '../network/track.js';
-import { alignColumns, csvCell, isoUtc, roundOrNull, type RecordValue } from './format.js';
+import type { FrontTrack, PassageEvent } from '../model/index.js';
+import { CAUTION } from './caution.js';
+import { alignColumns, csvCell, eventsToTable, isoUtc, roundOrNull, type RecordValue, type TableOptions } from './format.js';
 
 export const FRONT_COLUMNS = [
   'front',
@@ -78,4 +79,16 @@ export function tracksToTable(tracks: readonly FrontTrack[]): string {
   ]);
   const right = [false, true, false, false, true, false, true, false, true, true];
   return ['Fronts across the network (passage times fitted as a moving straight front):', ...alignColumns(header, rows, right)].join('\n') + '\n';
+}
+
+/**
+ * The passages table with the fronts table spliced in before its closing caution line (as `fropa detect` prints
+ * it). Without fronts it is `eventsToTable` alone.
+ */
+export function passagesToTable(events: readonly PassageEvent[], tracks: readonly FrontTrack[], opts: TableOptions = {}): string {
+  const table = eventsToTable(events, opts);
+  const network = tracksToTable(tracks);
+  if (!network) return table;
+  const at = table.lastIndexOf(CAUTION);
+  return at < 0 ? table + '\n' + network : table.slice(0, at) + '\n' + network + table.slice(at);
 }

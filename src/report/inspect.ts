@@ -3,8 +3,8 @@
  * units, column mapping, notes) and, for the stations found in it, period, cadence, duplicates,
  * observer remarks, QC flags and metadata. Pure: built from the loader's reports and series.
  */
-import type { FileReport, ParseIssue } from '../ingest/types.js';
-import { medianCadenceMinutes, type StationSeries } from '../series/series.js';
+import type { FileReport, ParseIssue, StationSeries } from '../model/index.js';
+import { medianCadenceMinutes } from '../series/series.js';
 import type { QcSummary } from '../qc/qc.js';
 import { isoUtc, roundOrNull } from './format.js';
 
@@ -144,4 +144,16 @@ export function inspectToTable(files: readonly InspectFile[], maxIssues = 5): st
   const rejected = files.reduce((a, f) => a + f.rejected, 0);
   out.push(`${files.length} file(s), ${parsed} line(s) parsed, ${rejected} rejected, ${seen.size} station(s)`);
   return out.join('\n') + '\n';
+}
+
+/** `fropa: no usable data in …` plus the first issues and notes that say why, each naming its file. */
+export function noDataMessage(paths: readonly string[], reports: readonly FileReport[]): string {
+  const lines = [`fropa: no usable data in ${paths.join(', ')}`];
+  for (const r of reports) {
+    if (r.format === 'stations') continue;
+    const reasons = Object.entries(r.rejectedByReason).map(([k, n]) => `${k} ${n}`);
+    lines.push(`  ${r.file}: ${r.format}, ${r.parsed} parsed, ${r.rejected} rejected${reasons.length ? ` (${reasons.join(', ')})` : ''}${r.issues.length === 0 && r.notes.length ? `; ${r.notes[0]}` : ''}`);
+    for (const i of r.issues.slice(0, 3)) lines.push(`  ${issueLine(i)}`);
+  }
+  return lines.join('\n') + '\n';
 }

@@ -6,8 +6,7 @@
  * `buildSeries` (stable time sort, duplicate resolution, notes). Station ids can be resolved (aliases) as
  * rows arrive, once per distinct id.
  */
-import type { Observation, ObserverRemark, StationMeta } from '../ingest/types.js';
-import { allocSeries, type DuplicateNote, type FieldColumns, type StationSeries } from './series.js';
+import { allocSeries, type DuplicateNote, type FieldColumns, type Observation, type ObserverRemark, type StationMeta, type StationSeries } from '../model/index.js';
 
 const INITIAL_CAPACITY = 32;
 const MAX_CHUNK_ROWS = 2048;

@@ -4,46 +4,13 @@
  * enough, (b) otherwise a simple solar-aware temperature shape. Profiles are evaluated by periodic linear
  * interpolation in local solar time.
  *
- * Local solar time = UTC + longitude/15 h (+ equation of time when asked). Without the equation of time
- * the error is at most about 16 min (early November; about −14 min in mid February) — small against hourly
- * profile bins. Computed here on purpose, independent of any other module.
+ * Local solar time = UTC + longitude/15 h (+ equation of time when asked), from `solarTimeMs` /
+ * `solarHour` in physics/sun.ts. Without the equation of time the error is at most about 16 min (early
+ * November; about −14 min in mid February) — small against hourly profile bins.
  */
-
-const HOUR_MS = 3600000;
-const DAY_MS = 86400000;
-
-/**
- * Equation of time (apparent minus mean solar time), minutes:
- * EoT = 9.87 sin 2B − 7.53 cos B − 1.5 sin B, B = 2π(N − 81)/364, N = day of year (1 = 1 January, UTC).
- * A widely used approximation, accurate to about ±1 min (common practice; formula from memory).
- * NaN rule: NaN time → NaN.
- * @example equationOfTimeMinutes(Date.UTC(2024, 10, 3)) // ≈ 16.4 (early November maximum)
- */
-export function equationOfTimeMinutes(timeMs: number): number {
-  const d = new Date(timeMs);
-  if (Number.isNaN(d.getTime())) return NaN;
-  const n = Math.floor((timeMs - Date.UTC(d.getUTCFullYear(), 0, 1)) / DAY_MS) + 1;
-  const b = (2 * Math.PI * (n - 81)) / 364;
-  return 9.87 * Math.sin(2 * b) - 7.53 * Math.cos(b) - 1.5 * Math.sin(b);
-}
-
-/** Local solar time as epoch-like ms: timeMs + lon/15 h (+ EoT). */
-function solarMs(timeMs: number, lonDeg: number, eot: boolean): number {
-  return timeMs + (lonDeg / 15) * HOUR_MS + (eot ? equationOfTimeMinutes(timeMs) * 60000 : 0);
-}
-
-/**
- * Local solar hour in [0, 24): UTC hour + lonDeg/15 (east positive), plus the equation of time when
- * `equationOfTime` is true (apparent solar time; otherwise mean solar time, error ≤ about 16 min).
- * NaN rule: NaN time or longitude → NaN.
- * @example solarHour(Date.UTC(2024, 0, 1, 12), -90) // 6
- */
-export function solarHour(timeMs: number, lonDeg: number, equationOfTime = false): number {
-  const s = solarMs(timeMs, lonDeg, equationOfTime);
-  if (Number.isNaN(s)) return NaN;
-  const h = (s / HOUR_MS) % 24;
-  return h < 0 ? h + 24 : h;
-}
+import { MS_PER_DAY } from '../physics/constants.js';
+import { solarHour, solarTimeMs } from '../physics/sun.js';
+import { median } from './median.js';
 
 /** A diurnal anomaly profile in local solar time (anomaly from the daily mean; mean over the day ≈ 0). */
 export interface DiurnalProfile {
@@ -78,12 +45,6 @@ export interface DiurnalOptions {
   defaultRange?: number;
 }
 
-function median(a: number[]): number {
-  if (a.length === 0) return NaN;
-  const s = a.slice().sort((x, y) => x - y);
-  const h = s.length >> 1;
-  return s.length % 2 ? s[h]! : 0.5 * (s[h - 1]! + s[h]!);
-}
 
 /**
  * The station's own mean diurnal anomaly by local solar time, or a fallback when the record is short.
@@ -112,7 +73,7 @@ export function meanDiurnalAnomaly(
   if (!Number.isInteger(B) || B < 4 || B > 1440) throw new RangeError('meanDiurnalAnomaly binsPerDay must be an integer in 4–1440');
   const minDays = opts.minDays ?? 10;
   const eot = opts.equationOfTime ?? false;
-  const binMs = DAY_MS / B;
+  const binMs = MS_PER_DAY / B;
 
   // Absolute solar-time bins.
   let aMin = Infinity;
@@ -120,7 +81,7 @@ export function meanDiurnalAnomaly(
   const n = timeMs.length;
   const abs = new Float64Array(n);
   for (let i = 0; i < n; i++) {
-    const s = solarMs(timeMs[i]!, lonDeg, eot);
+    const s = solarTimeMs(timeMs[i]!, lonDeg, eot);
     const v = values[i]!;
     if (Number.isNaN(s) || Number.isNaN(v)) {
       abs[i] = NaN;
@@ -288,7 +249,7 @@ export function fallbackDiurnalProfile(opts: FallbackDiurnalOptions): DiurnalPro
   const t = opts.timeMs;
   if (lat !== undefined && Number.isFinite(lat) && t !== undefined && Number.isFinite(t)) {
     const y = new Date(t).getUTCFullYear();
-    const doy = Math.floor((t - Date.UTC(y, 0, 1)) / DAY_MS) + 1;
+    const doy = Math.floor((t - Date.UTC(y, 0, 1)) / MS_PER_DAY) + 1;
     const decl = ((23.44 * Math.PI) / 180) * Math.sin((2 * Math.PI * (284 + doy)) / 365);
     const c = -Math.tan((lat * Math.PI) / 180) * Math.tan(decl);
     if (c >= 1 || c <= -1) return none(); // polar night or polar day

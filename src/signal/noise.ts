@@ -10,20 +10,13 @@
  * differences divided by √2 for the noise level in change-point detection is common practice in the
  * change-point literature, e.g. [Fryzlewicz2014] (wild binary segmentation) — from memory.
  */
+import { medianInPlace } from './median.js';
 
 /** 1 / Φ⁻¹(0.75): makes the MAD consistent for the standard deviation of Gaussian data [Hampel1974]. */
 export const MAD_TO_SIGMA = 1.482602218505602;
 
 /** √(π/2): makes the mean absolute deviation consistent for the Gaussian standard deviation. */
 const MEAN_ABS_TO_SIGMA = Math.sqrt(Math.PI / 2);
-
-/** Median of the first `count` entries of a scratch array (reorders it). NaN when count is 0. */
-export function medianInPlace(a: Float64Array, count: number = a.length): number {
-  if (count <= 0) return NaN;
-  const s = a.subarray(0, count).sort();
-  const h = count >> 1;
-  return count % 2 === 1 ? s[h]! : 0.5 * (s[h - 1]! + s[h]!);
-}
 
 /**
  * Robust standard deviation of the noise in `values`, from first differences between consecutive

@@ -142,6 +142,8 @@ export interface ResampledWind {
 // Wind components follow the meteorological convention of src/physics/wind.ts (u = −s·sin d, v = −s·cos d).
 export { windComponents, windFromComponents } from '../physics/wind.js';
 import { windComponents, windFromComponents } from '../physics/wind.js';
+import { MS_PER_MINUTE } from '../physics/constants.js';
+import { medianInPlace } from './median.js';
 
 /**
  * Resample wind as vector components, never averaging raw directions: each report becomes
@@ -204,20 +206,19 @@ const STEP_LADDER_MIN = [1, 2, 5, 10, 15, 20, 30, 60] as const;
 export function chooseStepMs(timeMs: ArrayLike<number>): number {
   const t: number[] = [];
   for (let i = 0; i < timeMs.length; i++) if (!Number.isNaN(timeMs[i]!)) t.push(timeMs[i]!);
-  if (t.length < 2) return 60 * 60000;
+  if (t.length < 2) return 60 * MS_PER_MINUTE;
   const d = new Float64Array(t.length - 1);
   let k = 0;
   for (let i = 1; i < t.length; i++) {
     const dt = t[i]! - t[i - 1]!;
     if (dt > 0) d[k++] = dt;
   }
-  if (k === 0) return 60 * 60000;
-  const s = d.subarray(0, k).sort();
-  const med = k % 2 ? s[k >> 1]! : 0.5 * (s[(k >> 1) - 1]! + s[k >> 1]!);
-  const medMin = med / 60000;
+  if (k === 0) return 60 * MS_PER_MINUTE;
+  const med = medianInPlace(d, k);
+  const medMin = med / MS_PER_MINUTE;
   let step: number = STEP_LADDER_MIN[0];
   for (const c of STEP_LADDER_MIN) if (c <= medMin * 1.1) step = c;
-  return step * 60000;
+  return step * MS_PER_MINUTE;
 }
 
 /**
@@ -228,5 +229,5 @@ export function chooseStepMs(timeMs: ArrayLike<number>): number {
  */
 export function defaultMaxGapMs(stepMs: number): number {
   if (!(stepMs > 0)) throw new RangeError('defaultMaxGapMs stepMs must be > 0');
-  return Math.max(2.5 * stepMs, 15 * 60000);
+  return Math.max(2.5 * stepMs, 15 * MS_PER_MINUTE);
 }

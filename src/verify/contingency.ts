@@ -1,6 +1,7 @@
 /**
- * Contingency-table verification of discrete events (pure functions), used by `fropa verify` and the
- * skill benchmark. Scores after Wilks (2011), Statistical Methods in the Atmospheric Sciences, 3rd ed.,
+ * Contingency-table verification of discrete events (pure functions): the scores are used by `fropa
+ * verify` and the skill benchmark; the greedy matchOneToOne only by the benchmarks (verify matches
+ * optimally, assignment.ts). Scores after Wilks (2011), Statistical Methods in the Atmospheric Sciences, 3rd ed.,
  * ch. 8, the 2×2 contingency table (a hits, b false alarms, c misses, d correct negatives):
  * POD (hit rate) = a/(a + c); FAR (false-alarm ratio) = b/(a + b); CSI (threat score) = a/(a + b + c);
  * frequency bias = (a + b)/(a + c). Empty denominators give NaN.

@@ -4,17 +4,18 @@
  * Columns (header names matched trimmed, case-insensitively; extra columns ignored; comma, tab,
  * semicolon or pipe): `station` (also `id`, `station_id`, `icao`, `stid`), `forecast_time` (also
  * `forecast`, `valid_time`, `time`), optional `kind` (also `type`, `front`), optional `issued_time` (also
- * `issued`, `issue_time`, `init_time`). Times as the observation readers read them (ISO 8601 with `Z` or
+ * `issued`, `issue_time`, `init_time`), optional `valid_from` and `valid_to` (also `valid_start`, `valid_end`,
+ * `valid_until`): the period the issue covers, within which an observed passage not forecast is a miss.
+ * Times as the observation readers read them (ISO 8601 with `Z` or
  * an offset; naive times need a zone or offset, see src/ingest/time.ts). An empty or absent kind, or
  * `any`, means any front kind (cold, warm or occluded front). Station ids are resolved through the
  * stations index (aliases, US ICAO prefix), so a forecast for `CDR` verifies against station `XCDR`
  * when the stations file lists the alias.
  */
 import Papa from 'papaparse';
-import { BOUNDARY_KINDS, type BoundaryKind } from '../detect/types.js';
+import { BOUNDARY_KINDS, addIssue, newFileReport, type BoundaryKind, type FileReport } from '../model/index.js';
 import { parseTime, type TimeOptions } from '../ingest/time.js';
 import { resolveStation, type StationIndex } from '../ingest/stations.js';
-import { addIssue, newFileReport, type FileReport } from '../ingest/types.js';
 
 /** One forecast passage at a station. */
 export interface ForecastPassage {
@@ -26,6 +27,12 @@ export interface ForecastPassage {
   forecastMs: number;
   /** When the forecast was issued, epoch ms UTC; NaN when not given. */
   issuedMs: number;
+  /** Start of the period the issue covers, epoch ms UTC; NaN or absent when not given. */
+  validFromMs?: number;
+  /** End of the period the issue covers, epoch ms UTC; NaN or absent when not given. */
+  validToMs?: number;
+  /** Where the forecast comes from (the forecast file, or a forecast series path); default `file`. */
+  source?: string;
   file: string;
   /** 1-based line of the forecast in `file`. */
   line: number;
@@ -39,15 +46,21 @@ export interface ForecastReadOptions extends TimeOptions {
    * forecast for a station found in neither is rejected (`unknown-station`).
    */
   observedStations?: ReadonlySet<string>;
+  /**
+   * Observation period per canonical station id, [first, last] epoch ms. A forecast passage time
+   * outside its station's period cannot be verified and is rejected (`outside-observations`).
+   */
+  observedSpans?: ReadonlyMap<string, readonly [number, number]>;
 }
 
-type ForecastColumn = 'station' | 'kind' | 'forecast' | 'issued';
+type ForecastColumn = 'station' | 'kind' | 'forecast' | 'issued' | 'validFrom' | 'validTo';
 
 const NAMES: Record<string, ForecastColumn> = {
   station: 'station', id: 'station', station_id: 'station', stationid: 'station', icao: 'station', stid: 'station', site: 'station',
   kind: 'kind', type: 'kind', front: 'kind', front_kind: 'kind', boundary: 'kind',
   forecast_time: 'forecast', forecast: 'forecast', valid_time: 'forecast', valid: 'forecast', time: 'forecast', passage_time: 'forecast',
   issued_time: 'issued', issued: 'issued', issue_time: 'issued', init_time: 'issued', issued_at: 'issued',
+  valid_from: 'validFrom', valid_start: 'validFrom', valid_to: 'validTo', valid_end: 'validTo', valid_until: 'validTo',
 };
 
 /** Short kind names forecasters write, besides the full BOUNDARY_KINDS names. */
@@ -74,8 +87,11 @@ export function parseForecastKind(text: string): BoundaryKind | null | undefined
 /**
  * Read a forecast passage CSV. Every data line is parsed or rejected with file, line, reason and a
  * remedy: `missing-column` (no station or forecast_time column: every line), `truncated`, `no-station`,
- * `unknown-station`, `ambiguous-station`, `bad-kind`, `bad-forecast-time`, `bad-issued-time`,
- * `issued-after-forecast`. An empty issued_time cell leaves the lead time unknown.
+ * `unknown-station`, `ambiguous-station`, `bad-kind`, `naive-time` (a time without zone or offset, and no
+ * zone given), `bad-forecast-time`, `bad-issued-time`, `issued-after-forecast`, `bad-valid-time`
+ * (unreadable, or valid_to before valid_from), `outside-observations` (with `observedSpans`),
+ * `duplicate` (same station, kind, forecast and issued time as an earlier line, which is kept). An
+ * empty issued_time cell leaves the lead time unknown; empty valid cells leave the period to the caller.
  * @example readForecastsText('station,kind,forecast_time,issued_time\nXAVN,cold-front,2026-03-02T14:07Z,2026-03-01T09:00Z\n', 'f.csv').forecasts[0].forecastMs // Date.UTC(2026, 2, 2, 14, 7)
  */
 export function readForecastsText(text: string, file: string, opts: ForecastReadOptions = {}): { forecasts: ForecastPassage[]; report: FileReport } {
@@ -104,6 +120,8 @@ export function readForecastsText(text: string, file: string, opts: ForecastRead
   const index = opts.stations;
   const checkKnown = (index !== undefined && index.byId.size > 0) || opts.observedStations !== undefined;
   const need = Math.max(col.station ?? 0, col.forecast ?? 0, col.kind ?? 0, col.issued ?? 0) + 1;
+  const seen = new Map<string, number>();
+  const timeReason = (e: { error: string }, other: string) => (e.error === 'needs-zone' ? 'naive-time' : other);
   for (let r = headerAt + 1; r < rows.length; r++) {
     const row = rows[r]!;
     if (isBlank(row)) continue;
@@ -149,14 +167,14 @@ export function readForecastsText(text: string, file: string, opts: ForecastRead
     }
     const ft = parseTime(row[col.forecast!]!.trim(), opts);
     if (!('ms' in ft)) {
-      reject('bad-forecast-time', `forecast_time: ${ft.message}`, row[col.forecast!]!.trim(), col.forecast);
+      reject(timeReason(ft, 'bad-forecast-time'), `forecast_time: ${ft.message}`, row[col.forecast!]!.trim(), col.forecast);
       continue;
     }
     let issuedMs = NaN;
     if (col.issued !== undefined && row[col.issued]!.trim() !== '') {
       const it = parseTime(row[col.issued]!.trim(), opts);
       if (!('ms' in it)) {
-        reject('bad-issued-time', `issued_time: ${it.message}; or leave the cell empty`, row[col.issued]!.trim(), col.issued);
+        reject(timeReason(it, 'bad-issued-time'), `issued_time: ${it.message}; or leave the cell empty`, row[col.issued]!.trim(), col.issued);
         continue;
       }
       if (it.ms > ft.ms) {
@@ -165,7 +183,45 @@ export function readForecastsText(text: string, file: string, opts: ForecastRead
       }
       issuedMs = it.ms;
     }
-    forecasts.push({ station, kind, forecastMs: ft.ms, issuedMs, file, line });
+    const valid: number[] = [NaN, NaN];
+    let badValid = false;
+    for (const [n, c] of [[0, col.validFrom], [1, col.validTo]] as const) {
+      const cell = c === undefined ? '' : (row[c] ?? '').trim();
+      if (cell === '') continue;
+      const vt = parseTime(cell, opts);
+      if (!('ms' in vt)) {
+        reject(timeReason(vt, 'bad-valid-time'), `${n === 0 ? 'valid_from' : 'valid_to'}: ${vt.message}; or leave the cell empty`, cell, c);
+        badValid = true;
+        break;
+      }
+      valid[n] = vt.ms;
+    }
+    if (badValid) continue;
+    if (valid[0]! > valid[1]!) {
+      reject('bad-valid-time', 'valid_to is before valid_from; swapped columns?', row[col.validTo!]!.trim(), col.validTo);
+      continue;
+    }
+    const span = opts.observedSpans?.get(station);
+    if (opts.observedSpans && (!span || ft.ms < span[0] || ft.ms > span[1])) {
+      const iso = (t: number) => new Date(t).toISOString().slice(0, 16) + 'Z';
+      reject(
+        'outside-observations',
+        span
+          ? `forecast_time ${row[col.forecast!]!.trim()} is outside the observations of ${station} (${iso(span[0])} to ${iso(span[1])}); it cannot be verified`
+          : `station ${station} has no observations to verify against`,
+        row[col.forecast!]!.trim(),
+        col.forecast,
+      );
+      continue;
+    }
+    const dupKey = `${station}\u0000${kind ?? ''}\u0000${ft.ms}\u0000${issuedMs}`;
+    const first = seen.get(dupKey);
+    if (first !== undefined) {
+      reject('duplicate', `same station, kind, forecast_time and issued_time as line ${first}; the first is kept`, rawId, col.station);
+      continue;
+    }
+    seen.set(dupKey, line);
+    forecasts.push({ station, kind, forecastMs: ft.ms, issuedMs, validFromMs: valid[0]!, validToMs: valid[1]!, source: file, file, line });
     report.parsed++;
   }
   return { forecasts, report };

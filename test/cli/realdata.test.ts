@@ -7,15 +7,13 @@
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { existsSync } from 'node:fs';
 import { basename, join } from 'node:path';
-import { fileURLToPath } from 'node:url';
 import Papa from 'papaparse';
 import { assertNoStack, cli } from './io.js';
 import { EVENT_COLUMNS } from '../../src/report/format.js';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 
-const realdata = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
-const present = existsSync(realdata);
+const realdata = REALDATA_DIR;
 
 interface FileRow {
   file: string;
@@ -46,11 +44,7 @@ const EXPECTED: [string, string, number, number, string[]][] = [
   ['oct2010_asos_ORD.csv', 'csv', 165, 0, ['KORD']],
 ];
 
-test('inspect realdata --format json: every file read, counts as observed, no crash', async () => {
-  if (!present) {
-    console.log('  skipped: no shared/realdata folder beside the repository');
-    return;
-  }
+realdataTest(test)('inspect realdata --format json: every file read, counts as observed, no crash', async () => {
   const r = await cli(['inspect', realdata, '--format', 'json']);
   assert.is(r.code, 0, r.stderr);
   assertNoStack(r.stderr);
@@ -67,11 +61,7 @@ test('inspect realdata --format json: every file read, counts as observed, no cr
   assert.is(cxto.station_details[0]!.lat, null); // stations.csv has no coordinates for CXTO
 });
 
-test('detect on the October 2010 files: CSV contract, a cold front at KORD on 26 Oct 2010 near 13 UTC', async () => {
-  if (!present) {
-    console.log('  skipped: no shared/realdata folder beside the repository');
-    return;
-  }
+realdataTest(test)('detect on the October 2010 files: CSV contract, a cold front at KORD on 26 Oct 2010 near 13 UTC', async () => {
   const files = ['CLE', 'GRB', 'MSP', 'ORD'].map((s) => join(realdata, `oct2010_asos_${s}.csv`));
   const r = await cli(['detect', ...files, '--stations', join(realdata, 'stations.csv'), '--format', 'csv', '--quiet']);
   assert.is(r.code, 0, r.stderr);

@@ -7,9 +7,9 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { loadPaths } from '../../src/ingest/load.js';
+import { loadPaths } from '../../src/pipeline.js';
 import { detectStation } from '../../src/detect/detect.js';
-import type { PassageEvent } from '../../src/detect/types.js';
+import type { PassageEvent } from '../../src/model/index.js';
 import { matchOneToOne, pod, far, contingencyForKind } from '../../src/verify/contingency.js';
 
 const demo = fileURLToPath(new URL('../../stations-demo/', import.meta.url));

@@ -42,7 +42,7 @@ const hand = (kind: Classification['kind'], scores: Partial<Classification['scor
   scores: { 'cold-front': 0, 'warm-front': 0, 'occluded-front': 0, dryline: 0, 'outflow-boundary': 0, 'sea-breeze-front': 0, 'wind-shift': 0, ...scores },
 });
 const air = (o: Partial<AirMassChange>): AirMassChange => ({
-  tempDayC: 0, dewpointDayC: 0, thetaEDayK: 0, tempAdjLastingC: 0, dewpointLastingC: 0, thetaELastingK: 0, pressureRise6hHpa: NaN, ...o,
+  tempDayC: 0, dewpointDayC: 0, thetaEDayK: 0, tempAdjLastingC: 0, dewpointLastingC: 0, thetaELastingK: 0, pressureRise6hHpa: NaN, tempDailyMeanC: 0, dewpointDailyMeanC: 0, ...o,
 });
 /** A model that always believes "cold front" with probability 0.6 (constructed). */
 const coldish: ModelParams = { classes: MODEL_CLASSES, features: ['x'], weights: MODEL_CLASSES.map((k) => [0, k === 'cold-front' ? Math.log(0.6 / 0.1) : 0]) };

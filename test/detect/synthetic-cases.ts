@@ -2,8 +2,7 @@
  * Hand-built station series for detection checks (analytic constructions, not observations).
  * Hourly or 5-minute reports with a small diurnal cycle, so the detector's diurnal handling is exercised.
  */
-import { allocSeries, type StationSeries } from '../../src/series/series.js';
-import type { StationMeta } from '../../src/ingest/types.js';
+import { allocSeries, type StationMeta, type StationSeries } from '../../src/model/index.js';
 
 export const HOUR = 3_600_000;
 export const T0 = Date.UTC(2026, 2, 1, 0, 0);

@@ -1,24 +1,18 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { existsSync, readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 import { loadMappingFile, mapColumns, matchHeader, parseColumnOverride } from '../../src/ingest/columns.js';
 
-const realdata = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
-const haveReal = existsSync(realdata);
-function headerOf(name: string): string[] | null {
-  if (!haveReal || !existsSync(realdata + name)) {
-    console.log(`  (skipped: real-data file ${name} not found beside the repository)`);
-    return null;
-  }
-  const first = readFileSync(realdata + name, 'utf8').split('\n', 1)[0]!;
+/** A real-data file's header cells (the tests that call this register with realdataTest, so the file exists). */
+function headerOf(name: string): string[] {
+  const first = readFileSync(REALDATA_DIR + name, 'utf8').split('\n', 1)[0]!;
   return first.split(name.endsWith('.tsv') ? '\t' : ',');
 }
 
 // Iowa Environmental Mesonet ASOS download, KJFK file (real header).
-test('mapColumns() maps the IEM ASOS KJFK header with conventional units', () => {
+realdataTest(test, 'KJFK_2019-11_to_2020-02_asos.csv')('mapColumns() maps the IEM ASOS KJFK header with conventional units', () => {
   const h = headerOf('KJFK_2019-11_to_2020-02_asos.csv');
-  if (!h) return;
   const { mapping, unmatched } = mapColumns(h);
   assert.is(mapping.station!.header, 'station');
   assert.is(mapping.time!.header, 'valid');
@@ -38,9 +32,8 @@ test('mapColumns() maps the IEM ASOS KJFK header with conventional units', () =>
 });
 
 // IEM downloads of Oct 2010 with padded headers (` tmpc `, `  dwpc `).
-test('mapColumns() trims padded headers (oct2010 IEM files)', () => {
+realdataTest(test, 'oct2010_asos_ORD.csv')('mapColumns() trims padded headers (oct2010 IEM files)', () => {
   const h = headerOf('oct2010_asos_ORD.csv');
-  if (!h) return;
   const { mapping, unmatched } = mapColumns(h);
   assert.equal([mapping.temperature!.index, mapping.temperature!.unit], [2, 'degC']);
   assert.equal([mapping.dewpoint!.index, mapping.dewpoint!.unit], [3, 'degC']);
@@ -51,9 +44,8 @@ test('mapColumns() trims padded headers (oct2010 IEM files)', () => {
 });
 
 // nycflights13 `weather` table: °F, mph, hPa, inches (its R documentation).
-test('mapColumns() maps the nycflights13 weather header', () => {
+realdataTest(test, 'nyc_2013_EWR_JFK_LGA_hourly.csv')('mapColumns() maps the nycflights13 weather header', () => {
   const h = headerOf('nyc_2013_EWR_JFK_LGA_hourly.csv');
-  if (!h) return;
   const { mapping, unmatched } = mapColumns(h);
   assert.is(mapping.station!.header, 'origin');
   assert.is(mapping.time!.header, 'time_hour');
@@ -67,9 +59,8 @@ test('mapColumns() maps the nycflights13 weather header', () => {
   assert.equal(unmatched, ['year', 'month', 'day', 'hour', 'visib']); // `hour` is local time: not used
 });
 
-test('mapColumns() maps the tab-separated Colorado header', () => {
+realdataTest(test, 'colorado_2017_FNL_LMO_1V6_0CO.tsv')('mapColumns() maps the tab-separated Colorado header', () => {
   const h = headerOf('colorado_2017_FNL_LMO_1V6_0CO.tsv');
-  if (!h) return;
   const { mapping } = mapColumns(h);
   assert.equal(Object.keys(mapping).sort(), ['dewpoint', 'seaLevelPressure', 'station', 'temperature', 'time']);
   assert.is(mapping.windSpeed, undefined);

@@ -6,12 +6,13 @@
  * and over-long rows, blank lines, padded cells, non-breaking spaces, decimal commas, times going backwards,
  * empty station cells, CRLF and CR line endings, a BOM, semicolons and tabs, unit inference, local times.
  */
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { CsvCore, readCsvBytes, readCsvText, type CsvOptions } from '../../src/ingest/csv.js';
 import { decodeMetarAt, isParseIssue, metarToObservation } from '../../src/ingest/metar.js';
-import { makeRng } from '../../src/synth/random.js';
+import { makeRng } from '../../tools/synth/random.js';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 
 // count the in-place scans, so that each comparison is known to compare the two parsers
 let scans = 0;
@@ -103,14 +104,9 @@ test('in-place scan == papaparse: tabs, CR, bare headers (units inferred), local
   assert.is(sameBothWays(makeText(20_000, 3, '\t', '\r', false, BARE), 'tab/CR/bare', { zone: 'America/Chicago' }), 2);
 });
 
-test('in-place scan == papaparse: real files of the shared folder (skipped when absent)', () => {
-  const dir = new URL('../../../shared/realdata/', import.meta.url);
-  if (!existsSync(dir)) {
-    console.log('  (shared/realdata not found beside the repository: skipped)');
-    return;
-  }
-  for (const f of readdirSync(dir).filter((n) => /\.(csv|tsv)$/.test(n))) {
-    const text = readFileSync(new URL(f, dir), 'utf8');
+realdataTest(test)('in-place scan == papaparse: real files of the shared folder (skipped when absent)', () => {
+  for (const f of readdirSync(REALDATA_DIR).filter((n) => /\.(csv|tsv)$/.test(n))) {
+    const text = readFileSync(REALDATA_DIR + f, 'utf8');
     sameBothWays(text, f, { decodeRawReport });
   }
 });

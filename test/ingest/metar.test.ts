@@ -11,12 +11,10 @@ import {
   metarToObservation,
   looksLikeMetar,
   weatherFlags,
-  INHG_HPA,
-  KNOT_MS,
-  STATUTE_MILE_M,
   type MetarReport,
 } from '../../src/ingest/metar.js';
-import { WX, type Observation, type ParseIssue } from '../../src/ingest/types.js';
+import { HPA_PER_INHG, KNOT_MS, STATUTE_MILE_M } from '../../src/physics/constants.js';
+import { WX, type Observation, type ParseIssue } from '../../src/model/index.js';
 import { readFileSync } from 'node:fs';
 import { readMetarText } from '../../src/ingest/metar.js';
 
@@ -34,11 +32,11 @@ function fail(text: string): ParseIssue {
   return r as ParseIssue;
 }
 
-test('INHG_HPA is the conventional inch of mercury', () => {
+test('HPA_PER_INHG is the conventional inch of mercury', () => {
   // NIST SP 811 (2008) App. B.8: inch of mercury, conventional = 3.386 389 E+03 Pa
-  assertClose(INHG_HPA, 33.86389, 5e-6);
+  assertClose(HPA_PER_INHG, 33.86389, 5e-6);
   // 29.92 inHg = 1013.2075 hPa (0.0254 m × 13595.1 kg/m³ × 9.80665 m/s², computed)
-  assertClose(29.92 * INHG_HPA, 1013.2075, 1e-4);
+  assertClose(29.92 * HPA_PER_INHG, 1013.2075, 1e-4);
 });
 
 test('decodeMetar M1: NWS/FAA "Key to decode a METAR" card example', () => {
@@ -97,7 +95,7 @@ test('decodeMetar M2/M3: PHTO ASOS reports with server-decoded values (public gi
   assertClose(m2.temperatureC, 26.7, 1e-12); // server temp_c 26.7
   assertClose(m2.dewpointC, 19.4, 1e-12); // server dewpoint_c 19.4
   assertClose(m2.seaLevelPressureHpa, 1021.0, 1e-9); // server 1021.0
-  assertClose(m2.altimeterHpa / INHG_HPA, 30.159449, 0.005); // server altim_in_hg, hPa round-trip artefact
+  assertClose(m2.altimeterHpa / HPA_PER_INHG, 30.159449, 0.005); // server altim_in_hg, hPa round-trip artefact
   const m3 = dec('PHTO 311853Z 34005KT 10SM SCT048 BKN055 26/20 A3016 RMK AO2 RAE1756 SLP210 P0000 T02560200', ref);
   // P0000 = trace (FMH-1 §12.7.2(a)); stored as 0 mm and flagged
   assert.is(m3.precip1hMm, 0);

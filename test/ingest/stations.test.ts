@@ -1,19 +1,14 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { existsSync, readFileSync } from 'node:fs';
-import { fileURLToPath } from 'node:url';
+import { readFileSync } from 'node:fs';
 import { assertClose } from '../helpers/assert.js';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation } from '../../src/ingest/stations.js';
 
-const realdata = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
 
 // Real stations list (NCEI ISD station history / LCD headers), 12 stations; K1V6 and CXTO without coordinates.
-test('readStationsText() reads the real stations list and resolves the ids data files use', () => {
-  if (!existsSync(realdata + 'stations.csv')) {
-    console.log('  (skipped: stations.csv not found beside the repository)');
-    return;
-  }
-  const { stations, report } = readStationsText(readFileSync(realdata + 'stations.csv', 'utf8'), 'stations.csv');
+realdataTest(test, 'stations.csv')('readStationsText() reads the real stations list and resolves the ids data files use', () => {
+  const { stations, report } = readStationsText(readFileSync(REALDATA_DIR + 'stations.csv', 'utf8'), 'stations.csv');
   assert.is(stations.length, 12);
   assert.is(report.rejected, 0);
   const ord = stations.find((s) => s.id === 'KORD')!;

@@ -6,14 +6,12 @@ import {
   converter,
   fromCanonical,
   inferUnit,
-  INHG_HPA,
-  KNOT_MS,
-  MPH_MS,
   parseUnitName,
   toCanonical,
   unitFromHeader,
   UNIT_NAMES,
   type UnitName, conversionOf } from '../../src/ingest/units.js';
+import { KNOT_MS, MPH_MS } from '../../src/physics/constants.js';
 
 // NIST SP 811 (2008 ed.) Appendix B.8: exact definitions (ft, in, mi, nmi) and the conventional inHg.
 test('unit factors equal the NIST SP 811 Appendix B.8 definitions', () => {
@@ -23,7 +21,7 @@ test('unit factors equal the NIST SP 811 Appendix B.8 definitions', () => {
   assert.is(MPH_MS, 1609.344 / 3600); // statute mile 1609.344 m
   assertClose(MPH_MS, 0.44704, 1e-15); // so 1 mph = 0.44704 m/s exactly
   assertClose(toCanonical(1, 'km/h'), 1 / 3.6, 1e-16); // SI
-  assertClose(INHG_HPA, 33.86389, 1e-12); // inch of mercury, conventional: 3.386 389 E+03 Pa
+  assertClose(toCanonical(1, 'inHg'), 33.8638864, 1e-8); // inch of mercury, conventional: 0.0254 m × 13595.1 kg/m³ × g0 (NIST SP 811 B.8 prints 3.386 389 E+03 Pa)
   assert.is(toCanonical(1, 'kPa'), 10);
   assert.is(toCanonical(101325, 'Pa'), 1013.25);
 });
@@ -41,9 +39,9 @@ const rows: [number, UnitName, number, number, string][] = [
   [64, 'kt', 32.92444444444444, 1e-12, 'NIST SP 811 B.8 knot'],
   [25, 'mph', 11.176, 1e-12, 'NIST SP 811 B.8 mile per hour'],
   [100, 'km/h', 27.77777777777778, 1e-12, 'SI'],
-  [29.92, 'inHg', 1013.2075888, 1e-6, 'NIST SP 811 B.8 inHg conventional'],
-  [30.0, 'inHg', 1015.9167, 1e-4, 'NIST SP 811 B.8 inHg conventional'],
-  [0.06, 'inHg', 2.0318334, 1e-6, 'NIST SP 811 B.8 inHg conventional'],
+  [29.92, 'inHg', 1013.20748119, 1e-8, 'conventional inHg 0.0254 m × 13595.1 kg/m³ × g0, computed'],
+  [30.0, 'inHg', 1015.91659210, 1e-8, 'conventional inHg 0.0254 m × 13595.1 kg/m³ × g0, computed'],
+  [0.06, 'inHg', 2.03183318, 1e-8, 'conventional inHg 0.0254 m × 13595.1 kg/m³ × g0, computed'],
   [1200, 'ft', 365.76, 1e-12, 'NIST SP 811 B.8 foot'],
 ];
 for (const [v, unit, expected, tol, source] of rows) {

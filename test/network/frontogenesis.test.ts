@@ -5,10 +5,8 @@ import { petterssenFrontogenesis, PER_M_PER_S_TO_PER_100KM_PER_3H } from '../../
 import { projectLocalKm } from '../../src/physics/geo.js';
 import { withFrontogenesis, standardPressureHpa, valueAt } from '../../src/network/frontogenesis.js';
 import { trackFronts } from '../../src/network/track.js';
-import { allocSeries } from '../../src/series/series.js';
+import { allocSeries, type PassageEvent, type StationMeta } from '../../src/model/index.js';
 import { windFromComponents } from '../../src/physics/wind.js';
-import type { StationMeta } from '../../src/ingest/types.js';
-import type { PassageEvent } from '../../src/detect/types.js';
 import { assertClose } from '../helpers/assert.js';
 
 // Petterssen 2-D kinematic frontogenesis, worked cases computed from the published expanded form
@@ -125,7 +123,7 @@ test('withFrontogenesis() recovers Petterssen F from station reports of linear f
     station, kind: 'cold-front', timeMs: t0, timeEarliestMs: t0, timeLatestMs: t0, confidence: 1, tempChangeC: -5, dewpointChangeC: NaN,
     thetaEChangeK: NaN, pressureMinHpa: NaN, pressureMinTimeMs: NaN, pressureRise3hHpa: NaN, windBeforeDeg: NaN, windAfterDeg: NaN,
     windTurnDeg: NaN, windSpeedAfterMs: NaN, gustMaxMs: NaN, precipNear: false, zoneStartMs: t0, zoneEndMs: t0, zoneHours: 1,
-    zoneDepthKm: NaN, gradientKPer100km: NaN, observerFropaTimeMs: NaN, evidence: [],
+    zoneDepthKm: NaN, gradientKPer100km: NaN, observerFropaTimeMs: NaN, windShiftTimeMs: NaN, changeStartTimeMs: NaN, timeBasis: 'change-point', evidence: [],
   });
   // Passage times of a front moving east at 30 km/h, so that the stations form one track.
   const events = metas.map((m, k) => ({ ...ev(m.id), timeMs: t0 + (proj.xKm[k]! / 30) * 3_600_000 }));

@@ -1,14 +1,14 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { existsSync, readFileSync } from 'node:fs';
+import { readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
 import { fitPlane, motionFromSlowness, trackFronts, withTrackSpeeds } from '../../src/network/track.js';
-import type { PassageEvent } from '../../src/detect/types.js';
-import type { StationMeta } from '../../src/ingest/types.js';
-import { loadPaths } from '../../src/ingest/load.js';
+import type { PassageEvent, StationMeta } from '../../src/model/index.js';
+import { loadPaths } from '../../src/pipeline.js';
 import { detectStation } from '../../src/detect/detect.js';
 import { projectLocalKm } from '../../src/physics/geo.js';
 import { assertClose } from '../helpers/assert.js';
+import { haveRealdata, REALDATA_DIR } from '../helpers/realdata.js';
 
 const HOUR = 3_600_000;
 
@@ -36,7 +36,7 @@ function event(station: string, timeMs: number, tempChangeC: number): PassageEve
     dewpointChangeC: NaN, thetaEChangeK: NaN, pressureMinHpa: NaN, pressureMinTimeMs: NaN, pressureRise3hHpa: NaN,
     windBeforeDeg: NaN, windAfterDeg: NaN, windTurnDeg: NaN, windSpeedAfterMs: NaN, gustMaxMs: NaN, precipNear: false,
     zoneStartMs: timeMs, zoneEndMs: timeMs + HOUR, zoneHours: 1, zoneDepthKm: NaN, gradientKPer100km: NaN,
-    observerFropaTimeMs: NaN, evidence: [],
+    observerFropaTimeMs: NaN, windShiftTimeMs: NaN, changeStartTimeMs: NaN, timeBasis: 'change-point', evidence: [],
   };
 }
 
@@ -107,8 +107,8 @@ test('trackFronts() on the demo: every planted northern cold front is one track,
 // Real observations (Iowa Environmental Mesonet ASOS downloads, public domain): the record cyclone of
 // 26 Oct 2010. Reference motion: the plane through the passage times read from the reports (MSP ≈10:40Z,
 // ORD ≈13:20Z, GRB ≈14:25Z, CLE ≈18:30Z; reading of the reports, not an official analysis).
-const real = fileURLToPath(new URL('../../../shared/realdata/', import.meta.url));
-if (existsSync(real)) {
+const real = REALDATA_DIR;
+if (haveRealdata()) {
   test('trackFronts() on 26 Oct 2010: one cold front across MSP, ORD, GRB and CLE, moving as the reports say', () => {
     const files = ['MSP', 'ORD', 'GRB', 'CLE'].map((id) => `${real}oct2010_asos_${id}.csv`);
     const loaded = loadPaths(files, { stationsFile: real + 'stations.csv' });
@@ -127,7 +127,7 @@ if (existsSync(real)) {
     assert.ok(dd <= 20, `direction ${t!.directionDeg} vs ${want.directionDeg}`);
   });
 } else {
-  test('trackFronts() on 26 Oct 2010 (skipped: shared/realdata not found beside the repository)', () => {});
+  test.skip('trackFronts() on 26 Oct 2010 (shared/realdata not found; see FROPA_SHARED in DEVELOPERS.md)');
 }
 
 test.run();

@@ -3,10 +3,10 @@ import * as assert from 'uvu/assert';
 import fc from 'fast-check';
 import { assertAllClose, assertClose } from '../helpers/assert.js';
 import {
-  ALTIMETER_K, altimeterFromStationPressureHpa, decodePressureTendencyGroup, hpaToInHg, inHgToHpa,
+  ALTIMETER_K, altimeterFromStationPressureHpa, decodePressureTendencyGroup, hpaToInHg, inHgToHpa, pressureChangeFromTendencyHpa,
   pressureTendencySeries, seaLevelPressureHpa, stationPressureFromAltimeterHpa, tendencyCharacteristic,
 } from '../../src/physics/pressure.js';
-import { FOOT_M, HOUR_MS, MINUTE_MS } from '../../src/physics/constants.js';
+import { FOOT_M, MS_PER_HOUR, MS_PER_MINUTE } from '../../src/physics/constants.js';
 
 test('inHgToHpa / hpaToInHg: 29.92 inHg = 1013.2075 hPa, 1013.25 hPa = 29.92126 inHg, 30.00 inHg = 1015.9166 hPa (conventional inHg, NIST SP 811 B.8)', () => {
   assertClose(inHgToHpa(29.92), 1013.2075, 1e-4);
@@ -74,19 +74,19 @@ test('seaLevelPressureHpa: zero elevation is the identity; humidity term raises 
 });
 
 test('pressureTendencySeries picks the report closest to t − window within the tolerance, skipping NaN pressures', () => {
-  const m = MINUTE_MS;
+  const m = MS_PER_MINUTE;
   const t = [0, 20 * m, 55 * m, 60 * m, 80 * m, 115 * m, 200 * m];
   const p = [1000, 1000.5, NaN, 1001, 1001.2, 1002, 1003];
-  const d = pressureTendencySeries(t, p, HOUR_MS);
+  const d = pressureTendencySeries(t, p, MS_PER_HOUR);
   // i=3 (60 min): target 0 → report 0 exactly → +1.0; i=4 (80): target 20 → +0.7;
   // i=5 (115): target 55 has NaN; nearest finite within 10 min: 60 (5 min) → +1.0; i=6 (200): target 140, none within 10 min → NaN
   assertAllClose(d, [NaN, NaN, NaN, 1.0, 0.7, 1.0, NaN], 1e-12);
   // a wider tolerance accepts 115 min for t = 200 min (target 140, 25 min away)
-  assertClose(pressureTendencySeries(t, p, HOUR_MS, 30 * m)[6]!, 1.0, 1e-12);
+  assertClose(pressureTendencySeries(t, p, MS_PER_HOUR, 30 * m)[6]!, 1.0, 1e-12);
   // ties take the earlier report: target 40 min is 20 min from both 20 and 60 min
-  const tie = pressureTendencySeries([20 * m, 60 * m, 100 * m], [1, 2, 4], HOUR_MS, 20 * m);
+  const tie = pressureTendencySeries([20 * m, 60 * m, 100 * m], [1, 2, 4], MS_PER_HOUR, 20 * m);
   assertClose(tie[2]!, 3, 1e-12);
-  assert.throws(() => pressureTendencySeries([0], [1, 2], HOUR_MS), RangeError);
+  assert.throws(() => pressureTendencySeries([0], [1, 2], MS_PER_HOUR), RangeError);
   assert.throws(() => pressureTendencySeries([0], [1], 0), RangeError);
 });
 
@@ -113,6 +113,23 @@ test('tendencyCharacteristic follows the wording of WMO-No. 306 code table 0200 
   for (const [v, a, why] of cases) assert.is(tendencyCharacteristic(v), a, why);
   assert.ok(Number.isNaN(tendencyCharacteristic([1010])));
   assert.is(tendencyCharacteristic([1010, NaN, 1011, 1012]), 2, 'NaN dropped');
+});
+
+test('pressureChangeFromTendencyHpa(a, ppp): sign from WMO-No. 306 code table 0200', () => {
+  const rows: [number, number, number, string][] = [
+    [2, 32, 3.2, 'WMO-No. 306 table 0200: a = 2 increasing, higher'],
+    [8, 33, -3.3, 'WMO-No. 306 table 0200: a = 8, lower'],
+    [0, 10, 1.0, 'WMO-No. 306 table 0200: a = 0 same or higher'],
+    [5, 4, -0.4, 'WMO-No. 306 table 0200: a = 5 same or lower'],
+    [4, 0, 0, 'WMO-No. 306 table 0200: a = 4 steady, the same'],
+    [7, 0, 0, 'ppp = 000 is no change whatever a says'],
+  ];
+  for (const [a, ppp, v, source] of rows) assertClose(pressureChangeFromTendencyHpa(a, ppp), v, 1e-12, 0, source);
+  assert.ok(Object.is(pressureChangeFromTendencyHpa(7, 0), 0), 'never −0');
+  // a = 4 with ppp ≠ 000 contradicts table 0200 ("the same"): sign unknown → NaN (our rule, documented)
+  assert.ok(Number.isNaN(pressureChangeFromTendencyHpa(4, 3)));
+  assert.ok(Number.isNaN(pressureChangeFromTendencyHpa(9, 3)), 'a = 9 not in the table');
+  assert.ok(Number.isNaN(pressureChangeFromTendencyHpa(2, NaN)));
 });
 
 test('decodePressureTendencyGroup: FMH-1 / AFMAN 15-111 examples 52032 → +3.2, 58033 → −3.3, 53016 → +1.6, 55004 → −0.4', () => {

@@ -2,7 +2,7 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import * as SunCalc from 'suncalc';
 import { assertClose } from '../helpers/assert.js';
-import { isDaylight, julianDate, localSolarHour, refractionCorrectionDeg, solarPosition, sunEquatorial, sunTimes } from '../../src/physics/sun.js';
+import { isDaylight, julianDate, refractionCorrectionDeg, solarHour, solarPosition, solarTimeMs, sunEquatorial, sunTimes } from '../../src/physics/sun.js';
 
 const S = 1000;
 const hms = (y: number, mo: number, d: number, h: number, mi: number, s: number) => Date.UTC(y, mo - 1, d, h, mi, s);
@@ -112,24 +112,38 @@ test('polar day and night: 80° N at the June and December solstices', () => {
   assert.ok(isDaylight(Date.UTC(2021, 5, 21, 0), 80, 0), 'midnight sun');
 });
 
-test('isDaylight switches at sunrise and sunset; localSolarHour is 12 at solar noon', () => {
+test('isDaylight switches at sunrise and sunset; solarHour(t, lon, true) is 12 at solar noon', () => {
   const c = CASES[1]!;
   const t = sunTimes(c.day, c.lat, c.lon);
   assert.not.ok(isDaylight(t.sunriseMs - 60 * S, c.lat, c.lon));
   assert.ok(isDaylight(t.sunriseMs + 60 * S, c.lat, c.lon));
   assert.ok(isDaylight(t.sunsetMs - 60 * S, c.lat, c.lon));
   assert.not.ok(isDaylight(t.sunsetMs + 60 * S, c.lat, c.lon));
-  assertClose(localSolarHour(t.solarNoonMs, c.lon), 12, 1 / 3600);
-  assertClose(localSolarHour(CASES[2]!.noon, 0), 12, 5 / 3600);
+  assertClose(solarHour(t.solarNoonMs, c.lon, true), 12, 1 / 3600);
+  assertClose(solarHour(CASES[2]!.noon, 0, true), 12, 5 / 3600);
   // 15° of longitude = 1 hour
-  assertClose(localSolarHour(Date.UTC(2021, 2, 20, 6), 90) - localSolarHour(Date.UTC(2021, 2, 20, 6), 75), 1, 1e-9);
+  assertClose(solarHour(Date.UTC(2021, 2, 20, 6), 90, true) - solarHour(Date.UTC(2021, 2, 20, 6), 75, true), 1, 1e-9);
+});
+
+test('solarHour() = UTC hour + lon/15, wrapped to [0, 24) (mean solar time; textbook definition)', () => {
+  assertClose(solarHour(Date.UTC(2024, 0, 1, 12), -90), 6, 1e-9);
+  assertClose(solarHour(Date.UTC(2024, 0, 1, 2), -90), 20, 1e-9);
+  assertClose(solarHour(Date.UTC(2024, 0, 1, 22, 30), 30), 0.5, 1e-9);
+  assert.is(solarTimeMs(Date.UTC(2024, 0, 1, 12), -90), Date.UTC(2024, 0, 1, 6));
+});
+
+test('solarHour(t, lon, true) − solarHour(t, lon) is the equation of time: about +16.4 min early November, −14.2 min mid February (astronomical almanac values, from memory)', () => {
+  const eot = (t: number) => (solarHour(t, 0, true) - solarHour(t, 0)) * 60;
+  assertClose(eot(Date.UTC(2024, 10, 3, 12)), 16.4, 0.3);
+  assertClose(eot(Date.UTC(2024, 1, 11, 12)), -14.2, 0.3);
 });
 
 test('NaN in → NaN out (false for isDaylight)', () => {
   assert.ok(Number.isNaN(solarPosition(NaN, 10, 10).elevationDeg));
   assert.ok(Number.isNaN(solarPosition(0, NaN, 10).elevationDeg));
   assert.ok(Number.isNaN(sunTimes(NaN, 10, 10).sunriseMs));
-  assert.ok(Number.isNaN(localSolarHour(NaN, 0)));
+  assert.ok(Number.isNaN(solarHour(NaN, 0, true)));
+  assert.ok(Number.isNaN(solarHour(0, NaN)));
   assert.not.ok(isDaylight(NaN, 10, 10));
 });
 

@@ -6,10 +6,10 @@ import {
   angularDifferenceDeg, circularStatsDeg, fmh1Gust, fmh1WindShifts, gustFactor, isFmh1WindShift, normalizeDirectionDeg,
   signedTurnDeg, uvToWind, vectorMeanWind, windComponents, windFromComponents, windToUV,
 } from '../../src/physics/wind.js';
-import { KNOT_MS, MINUTE_MS } from '../../src/physics/constants.js';
+import { KNOT_MS, MS_PER_MINUTE } from '../../src/physics/constants.js';
 
 const kt = (x: number) => x * KNOT_MS;
-const min = (x: number) => x * MINUTE_MS;
+const min = (x: number) => x * MS_PER_MINUTE;
 
 test('windComponents follows the meteorological convention (u = −s sin d, v = −s cos d; WMO "direction from")', () => {
   // a north wind (from 360/0°) blows southward: v < 0; a west wind (270°) blows eastward: u > 0

@@ -1,7 +1,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { applyQc, cleanColumn, flagPersistence, flagSpikes } from '../../src/qc/qc.js';
-import { allocSeries, QC } from '../../src/series/series.js';
+import { allocSeries, QC } from '../../src/model/index.js';
 
 const H = 3_600_000;
 

@@ -1,7 +1,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import Papa from 'papaparse';
-import type { PassageEvent } from '../../src/detect/types.js';
+import type { PassageEvent } from '../../src/model/index.js';
 import {
   EVENT_COLUMNS,
   csvCell,
@@ -43,7 +43,7 @@ function sampleEvent(over: Partial<PassageEvent> = {}): PassageEvent {
     zoneHours: 2.5,
     zoneDepthKm: 90.04,
     gradientKPer100km: 6.71,
-    observerFropaTimeMs: NaN,
+    observerFropaTimeMs: NaN, windShiftTimeMs: NaN, changeStartTimeMs: NaN, timeBasis: 'change-point',
     evidence: ['+ wind veered 87°', '− no pressure "kink", weak'],
     ...over,
   };
@@ -54,7 +54,7 @@ test('EVENT_COLUMNS equals the output contract, in order', () => {
   assert.equal(
     [...EVENT_COLUMNS],
     [
-      'station', 'kind', 'time', 'time_earliest', 'time_latest', 'confidence', 'temp_change_c', 'dewpoint_change_c',
+      'station', 'kind', 'time', 'time_earliest', 'time_latest', 'time_basis', 'wind_shift_time', 'change_start_time', 'confidence', 'temp_change_c', 'dewpoint_change_c',
       'theta_e_change_k', 'pressure_min_hpa', 'pressure_min_time', 'pressure_rise_3h_hpa', 'wind_before_deg',
       'wind_after_deg', 'wind_turn_deg', 'wind_speed_after_ms', 'gust_max_ms', 'precip_near', 'zone_start', 'zone_end',
       'zone_hours', 'zone_depth_km', 'gradient_k_per_100km', 'observer_fropa_time', 'evidence',

@@ -1,7 +1,6 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { allocSeries } from '../../src/series/series.js';
-import { newFileReport, addIssue } from '../../src/ingest/types.js';
+import { addIssue, allocSeries, newFileReport } from '../../src/model/index.js';
 import { buildInspect, inspectToTable, issueLine } from '../../src/report/inspect.js';
 
 /** Invented three-report series (fixture for layout, not observations). */

@@ -1,7 +1,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { buildSeries, medianCadenceMinutes } from '../../src/series/series.js';
-import { emptyObservation } from '../../src/ingest/types.js';
+import { emptyObservation } from '../../src/model/index.js';
 
 // FMH-1 §12 (COR): a corrected report replaces the original for the same time. Common practice for merging.
 test('buildSeries() sorts by time and lets a COR replace the report it corrects', () => {

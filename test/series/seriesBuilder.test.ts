@@ -7,8 +7,8 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import fc from 'fast-check';
-import { emptyObservation, type Observation, type ObserverRemark } from '../../src/ingest/types.js';
-import { allocSeries, buildSeries, SERIES_FIELDS, type DuplicateNote, type StationSeries } from '../../src/series/series.js';
+import { SERIES_FIELDS, allocSeries, emptyObservation, type DuplicateNote, type Observation, type ObserverRemark, type StationSeries } from '../../src/model/index.js';
+import { buildSeries } from '../../src/series/series.js';
 import { SeriesBuilder } from '../../src/series/seriesBuilder.js';
 
 const REPORT_TYPE: Record<string, number> = { CSV: 0, METAR: 1, SPECI: 2 };

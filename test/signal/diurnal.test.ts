@@ -2,13 +2,12 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import {
   diurnalAnomalyAt,
-  equationOfTimeMinutes,
   expectedDiurnalChange,
   fallbackDiurnalProfile,
   meanDiurnalAnomaly,
   removeDiurnal,
-  solarHour,
 } from '../../src/signal/diurnal.js';
+import { solarHour } from '../../src/physics/sun.js';
 import { assertClose } from '../helpers/assert.js';
 import { gaussian, mulberry32 } from '../helpers/random.js';
 
@@ -39,17 +38,6 @@ function synthetic(lonDeg: number, stepMs: number, noiseSd: number, seed = 1) {
   }
   return { timeMs, values, pure };
 }
-
-test('solarHour() = UTC hour + lon/15, wrapped to [0, 24) (mean solar time; textbook)', () => {
-  assertClose(solarHour(Date.UTC(2024, 0, 1, 12), -90), 6, 1e-9);
-  assertClose(solarHour(Date.UTC(2024, 0, 1, 2), -90), 20, 1e-9);
-  assertClose(solarHour(Date.UTC(2024, 0, 1, 22, 30), 30), 0.5, 1e-9);
-});
-
-test('equationOfTimeMinutes() extremes: about +16.4 min early November, −14.2 min mid February (astronomical almanac values, from memory; ±1 min approximation)', () => {
-  assertClose(equationOfTimeMinutes(Date.UTC(2024, 10, 3)), 16.4, 1);
-  assertClose(equationOfTimeMinutes(Date.UTC(2024, 1, 11)), -14.2, 1);
-});
 
 test('meanDiurnalAnomaly(): 30-day hourly sinusoid + noise → profile within 0.45 of the truth (synthetic)', () => {
   // Noise σ = 0.5; the median of ~29 daily anomalies has standard error ≈ 1.2533·0.5/√29 ≈ 0.12 (Gaussian

@@ -1,6 +1,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { MAD_TO_SIGMA, medianInPlace, robustNoiseSigma } from '../../src/signal/noise.js';
+import { MAD_TO_SIGMA, robustNoiseSigma } from '../../src/signal/noise.js';
+import { medianInPlace } from '../../src/signal/median.js';
 import { assertClose } from '../helpers/assert.js';
 import { gaussian, mulberry32 } from '../helpers/random.js';
 import { NILE } from '../fixtures/changepoint-data.js';

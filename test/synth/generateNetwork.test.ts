@@ -1,8 +1,8 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { generateNetwork, mirrorDirectionDeg } from '../../src/synth/generateNetwork.js';
-import type { SynthSeries, TruthEvent } from '../../src/synth/types.js';
-import type { StationMeta } from '../../src/ingest/types.js';
+import { generateNetwork, mirrorDirectionDeg } from '../../tools/synth/generateNetwork.js';
+import type { SynthSeries, TruthEvent } from '../../tools/synth/types.js';
+import type { StationMeta } from '../../src/model/index.js';
 
 const H = 3_600_000;
 const st = (id: string, lat: number, lon: number, el = 300): StationMeta => ({ id, aliases: [], latDeg: lat, lonDeg: lon, elevationM: el });

@@ -3,9 +3,9 @@ import { fileURLToPath } from 'node:url';
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { assertClose } from '../helpers/assert.js';
-import { generateNetwork } from '../../src/synth/generateNetwork.js';
-import { altimeterHpaFromStation, metarTempToken, tGroupPart, toMetarLines } from '../../src/synth/toMetarLines.js';
-import type { StationMeta } from '../../src/ingest/types.js';
+import { generateNetwork } from '../../tools/synth/generateNetwork.js';
+import { altimeterHpaFromStation, metarTempToken, tGroupPart, toMetarLines } from '../../tools/synth/toMetarLines.js';
+import type { StationMeta } from '../../src/model/index.js';
 
 // AFMAN 15-111 Att. 3 remark 30 / FMH-1 ch. 12: 2.6 °C / −1.5 °C → body `03/M01`, remark `T00261015`.
 test('metarTempToken and tGroupPart follow the US rounding and sign rules', () => {

@@ -29,6 +29,7 @@ const ms = (iso: string) => Date.parse(iso.replace(/T(\d\d:\d\d)Z$/, 'T$1:00Z'))
 const iso = (t: number) => new Date(t).toISOString().slice(0, 19) + 'Z';
 
 interface Rec {
+  headline: boolean;
   station: string;
   kind: string;
   forecast_time: string | null;
@@ -39,6 +40,9 @@ interface Rec {
 
 const json = await cli(['verify', demo, '--forecasts', fcFile, '--format', 'json', '--quiet']);
 const recs = JSON.parse(json.stdout) as Rec[];
+// Each demo forecast is its own issue (issued 12–36 h ahead); with --valid-hours 24 an issue also
+// vouches for the quiet 24 h after it was issued, so passages nobody forecast become misses.
+const valid24 = await cli(['verify', demo, '--forecasts', fcFile, '--valid-hours', '24', '--quiet']);
 
 /** Planted error of each demo forecast: forecast − nearest planted passage of its kind at its station. */
 function plantedErrors(): Map<string, { kind: string; errorMin: number }> {
@@ -61,10 +65,13 @@ test('verify on the demo: exit 0, one record per forecast plus the misses', () =
   assert.is(recs.filter((r) => r.outcome !== 'miss').length, nForecasts);
 });
 
-test('verify on the demo finds the planted miss (truth.json forecasts.missedPassage)', () => {
+test('verify on the demo: without a valid window no passage far from every forecast is a miss; with --valid-hours 24 the planted miss (truth.json forecasts.missedPassage) is a headline miss', () => {
+  assert.is(recs.filter((r) => r.outcome === 'miss').length, 0, 'measured: 0 misses (each forecast covers only ±6 h around itself)');
   const m = truth.forecasts.missedPassage;
-  const miss = recs.find((r) => r.outcome === 'miss' && r.station === m.station && r.kind === m.kind && Math.abs(ms(r.observed_time!) - ms(m.time)) <= 3_600_000);
-  assert.ok(miss, `no miss for ${m.station} ${m.kind} ${m.time}`);
+  assert.is(valid24.code, 0);
+  const day = m.time.slice(0, 10);
+  const line = valid24.stdout.split('\n').find((l) => l.startsWith(m.station) && l.includes(` ${m.kind} `) && /\bmiss\s+\*$/.test(l) && l.includes(day));
+  assert.ok(line, `no headline miss for ${m.station} ${m.kind} ${m.time}`);
 });
 
 test('verify on the demo finds the planted false alarm (truth.json forecasts.falseAlarm)', () => {
@@ -109,13 +116,14 @@ test('verify on the demo: timing errors match the planted errors (forecast − o
   assert.ok(mean(abs(seen['warm-front']!)) > mean(abs(seen['cold-front']!)), 'warm-front errors were planted wider than cold-front errors');
 });
 
-test('verify table: sign convention in the header, per-station and overall lines, lead bins, caution last', async () => {
-  const r = await cli(['verify', demo, '--forecasts', fcFile, '--quiet']);
+test('verify table: sign convention in the header, per-station and overall lines, intervals, lead bins, caution last', async () => {
+  const r = valid24;
   assert.is(r.code, 0);
   const lines = r.stdout.trimEnd().split('\n');
   assert.match(lines[1]!, /forecast − observed.*positive = forecast late/);
   assert.ok(lines.some((l) => /^all\s+\d+\s+\d+\s+\d+\s+[01]\.\d\d/.test(l)));
-  assert.ok(lines.some((l) => /^XEMB\s+\d+\s+1\s/.test(l)), 'XEMB has the planted miss');
+  assert.ok(lines.some((l) => /^XEMB\s+\d+\s+[1-9]\d*\s/.test(l)), 'XEMB has the planted miss');
+  assert.ok(lines.some((l) => /^\s+POD \d\.\d\d \[\d\.\d\d, \d\.\d\d\]; FAR/.test(l)), 'headline intervals');
   assert.ok(lines.some((l) => l.startsWith('24-48h')));
   assert.is(lines[lines.length - 1], CAUTION);
 });
@@ -124,9 +132,9 @@ test('verify CSV: header and outcomes', async () => {
   const r = await cli(['verify', demo, '--forecasts', fcFile, '--format', 'csv', '--kinds', 'cold-front', '--quiet']);
   assert.is(r.code, 0);
   const rows = r.stdout.trimEnd().split('\n');
-  assert.is(rows[0], 'station,kind,forecast_time,issued_time,lead_hours,observed_time,observed_kind,error_min,outcome');
-  assert.ok(rows.slice(1).every((l) => /,cold-front,.*,(hit|false-alarm|miss)$/.test(l)));
-  assert.ok(rows.some((l) => l.startsWith(`${truth.forecasts.falseAlarm.station},cold-front,${iso(ms(truth.forecasts.falseAlarm.time))}`) && l.endsWith('false-alarm')));
+  assert.is(rows[0], 'station,kind,forecast_time,issued_time,lead_hours,observed_time,observed_kind,error_min,outcome,source,valid_from,valid_to,lead_bin,headline');
+  assert.ok(rows.slice(1).every((l) => /^[^,]+,cold-front,.*,(hit|false-alarm|miss),[^,]+,[^,]*,[^,]*,[^,]+,(true|false)$/.test(l)));
+  assert.ok(rows.some((l) => l.startsWith(`${truth.forecasts.falseAlarm.station},cold-front,${iso(ms(truth.forecasts.falseAlarm.time))}`) && l.includes(',false-alarm,')));
 });
 
 // Exit codes as the other commands (README: 2 usage error, 1 no usable data).
@@ -156,6 +164,51 @@ test('verify with no usable forecasts exits 1 and says why, naming file and line
   assert.match(r.stderr, /no usable forecasts/);
   assert.match(r.stderr, /fc\.csv.*2/);
   assertNoStack(r.stderr);
+});
+
+test('verify: bad forecast lines are reported with file and line, and counted in the summary line also under --quiet', async () => {
+  const dir = tempDir('fropa-verify-');
+  const f = put(
+    dir,
+    'fc.csv',
+    [
+      'station,kind,forecast_time,issued_time',
+      'XAVN,cold-front,2026-03-02T14:07Z,2026-03-01T09:00Z',
+      'XAVN,cold-front,2026-03-02T14:07Z,2026-03-01T09:00Z',
+      'XQQQ,cold-front,2026-03-02T14:07Z,2026-03-01T09:00Z',
+      'XAVN,cold-front,2026-09-02T14:07Z,2026-09-01T09:00Z',
+      'XAVN,cold-front,2026-03-07 14:00,2026-03-06T09:00Z',
+    ].join('\n') + '\n',
+  );
+  const loud = await cli(['verify', ...one, '--forecasts', f]);
+  assert.is(loud.code, 0, loud.stderr);
+  assert.match(loud.stderr, /fc\.csv: 1 forecasts read, 4 rejected \((?=.*duplicate 1)(?=.*unknown-station 1)(?=.*outside-observations 1)(?=.*naive-time 1)/);
+  assert.match(loud.stderr, /fc\.csv:3\b.*duplicate|fc\.csv.*3.*line 2/);
+  assert.match(loud.stderr, /fc\.csv:6\b|fc\.csv.*\b6\b.*no UTC offset/);
+  const quiet = await cli(['verify', ...one, '--forecasts', f, '--quiet']);
+  assert.is(quiet.code, 0);
+  assert.match(quiet.stderr, /fc\.csv: 1 forecasts read, 4 rejected/);
+  assert.match(quiet.stdout, /fc\.csv: 4 forecast lines rejected/);
+  assertNoStack(loud.stderr);
+});
+
+// Self-verification (an identity, no source needed): the same detector on the same series finds the
+// same passages, so every one is a hit with zero timing error: POD = CSI = bias = 1, FAR = 0.
+test('verify --forecast-series: observations against themselves give zero timing error and perfect scores', async () => {
+  const r = await cli(['verify', ...one, '--forecast-series', one[0]!, '--format', 'json', '--quiet']);
+  assert.is(r.code, 0, r.stderr);
+  const rs = JSON.parse(r.stdout) as (Rec & { lead_bin: string })[];
+  assert.ok(rs.length >= 10, `${rs.length} passages`);
+  assert.ok(rs.every((x) => x.outcome === 'hit' && x.error_min === 0 && x.headline && x.lead_bin === 'unknown'));
+  const t = await cli(['verify', ...one, '--forecast-series', one[0]!, '--quiet']);
+  assert.match(t.stdout, /^all\s+\d+\s+0\s+0\s+1\.00\s+0\.00\s+1\.00\s+1\.00\s+0\s+0\s+0\s+0\s+0\s/m);
+  assert.match(t.stdout, /POD 1\.00 \[1\.00, 1\.00\]; FAR 0\.00 \[0\.00, 0\.00\]/);
+});
+
+test('verify with neither --forecasts nor --forecast-series is a usage error naming both', async () => {
+  const r = await cli(['verify', ...one]);
+  assert.is(r.code, 2);
+  assert.match(r.stderr, /--forecast-series/);
 });
 
 test('verify with no observations exits 1', async () => {

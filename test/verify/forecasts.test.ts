@@ -5,7 +5,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { buildStationIndex } from '../../src/ingest/stations.js';
-import type { StationMeta } from '../../src/ingest/types.js';
+import type { StationMeta } from '../../src/model/index.js';
 import { parseForecastKind, readForecastsText } from '../../src/verify/forecasts.js';
 
 const stations: StationMeta[] = [
@@ -70,11 +70,46 @@ test('readForecastsText: bad time, unknown station, bad kind, issued after the f
 test('readForecastsText: a naive time needs a zone; with one it is read as local time', () => {
   const text = 'station,forecast_time\nXAVN,2026-03-02 08:07\n';
   const bad = readForecastsText(text, 'fc.csv');
-  assert.is(bad.report.issues[0]!.reason, 'bad-forecast-time');
+  assert.is(bad.report.issues[0]!.reason, 'naive-time');
+  assert.is(bad.report.issues[0]!.line, 2);
   assert.match(bad.report.issues[0]!.message, /no UTC offset/);
   const ok = readForecastsText(text, 'fc.csv', { zone: 'America/Chicago' });
   // America/Chicago is UTC−6 in early March 2026 (CST; DST starts 8 March 2026, second Sunday of March, US Energy Policy Act 2005, from memory).
   assert.is(ok.forecasts[0]!.forecastMs, Date.UTC(2026, 2, 2, 14, 7));
+});
+
+test('readForecastsText: duplicates, times outside the observations, valid windows; each with file, line and reason', () => {
+  const text = [
+    'station,kind,forecast_time,issued_time,valid_from,valid_to',
+    'XAVN,cold-front,2026-03-02T14:07Z,2026-03-01T09:00Z,2026-03-01T12:00Z,2026-03-03T12:00Z',
+    'XAVN,cold-front,2026-03-02T14:07Z,2026-03-01T09:00Z,,',
+    'XAVN,cold-front,2026-03-02T14:07Z,2026-03-01T21:00Z,,',
+    'XAVN,cold-front,2026-06-02T14:07Z,2026-06-01T09:00Z,,',
+    'XCDR,warm-front,2026-03-10T14:07Z,,2026-03-11T00:00Z,2026-03-10T00:00Z',
+    'XCDR,warm-front,2026-03-10T14:07Z,,soon,',
+    'XCDR,warm-front,2026-03-10T14:07Z,,,',
+  ].join('\n');
+  const spans = new Map<string, [number, number]>([
+    ['XAVN', [Date.UTC(2026, 2, 1), Date.UTC(2026, 4, 1)]],
+    ['XCDR', [Date.UTC(2026, 2, 1), Date.UTC(2026, 4, 1)]],
+  ]);
+  const { forecasts, report } = readForecastsText(text, 'fc.csv', { stations: index, observedSpans: spans });
+  assert.equal(forecasts.map((f) => f.line), [2, 4, 8], 'another issue of the same passage (line 4) is not a duplicate');
+  assert.equal(forecasts[0]!.validFromMs, Date.UTC(2026, 2, 1, 12));
+  assert.equal(forecasts[0]!.validToMs, Date.UTC(2026, 2, 3, 12));
+  assert.ok(Number.isNaN(forecasts[1]!.validFromMs!));
+  assert.equal(
+    report.issues.map((i) => [i.file, i.line, i.reason]),
+    [
+      ['fc.csv', 3, 'duplicate'],
+      ['fc.csv', 5, 'outside-observations'],
+      ['fc.csv', 6, 'bad-valid-time'],
+      ['fc.csv', 7, 'bad-valid-time'],
+    ],
+  );
+  assert.match(report.issues[0]!.message, /line 2/);
+  assert.is(report.rejected, 4);
+  assert.is(report.parsed + report.rejected, report.lines - 1, 'every data line parsed or rejected');
 });
 
 test('readForecastsText: a missing forecast_time column rejects every line with a clear message', () => {

@@ -7,9 +7,10 @@
  * (test/ingest/metar-fastpath.test.ts checks it line by line). The group decoders are shared with the
  * general decoder (groups.ts).
  */
-import { WX } from '../types.js';
+import { WX } from '../../model/index.js';
 import { reportTimeMs } from './calendar.js';
-import { knownStation, internStation, resetReport, type DecodeRef, type MetarReport } from './decodeMetar.js';
+import { knownStation, internStation, type DecodeRef } from './decodeMetar.js';
+import { resetReport, type MetarReport } from './metarReport.js';
 import {
   beginEnd,
   dg,
@@ -25,8 +26,9 @@ import {
   tempGroup,
   windGroup,
 } from './groups.js';
-import { INCH_MM, INHG_HPA, KNOT_MS, STATUTE_MILE_M } from './units.js';
+import { HPA_PER_INHG, INCH_MM, KNOT_MS, STATUTE_MILE_M } from '../../physics/constants.js';
 import { weatherFlagsAt } from './weather.js';
+import { pressureChangeFromTendencyHpa } from '../../physics/pressure.js';
 
 const K_RMK = kw('RMK');
 const K_FEW = kw('FEW');
@@ -104,9 +106,8 @@ export function decodeBytesInto(r: MetarReport, u: Uint8Array, start: number, en
           const code = dg(u, a + 1);
           const ppp = digits(u, a + 2, b);
           if (code >= 0 && code <= 8 && ppp >= 0) {
-            const v = ppp / 10;
             r.pressureTendencyCode = code;
-            r.pressureTendency3hHpa = code === 4 ? 0 : code <= 3 ? v : v === 0 ? 0 : -v;
+            r.pressureTendency3hHpa = pressureChangeFromTendencyHpa(code, ppp); // WMO-No. 306 code table 0200
             continue;
           }
         }
@@ -283,7 +284,7 @@ export function decodeBytesInto(r: MetarReport, u: Uint8Array, start: number, en
       } else if (len === 5 && c0 === 65) {
         const v = digits(u, a + 1, b);
         if (v >= 0) {
-          r.altimeterHpa = (v / 100) * INHG_HPA;
+          r.altimeterHpa = (v / 100) * HPA_PER_INHG;
           continue;
         }
       }

@@ -3,8 +3,8 @@
  * FM 15, group YYGGggZ), so the year and month come from an archive timestamp in front of the
  * report, an explicit month option, or a date in the file name — across month and year ends.
  */
+import { MS_PER_DAY, MS_PER_HOUR, MS_PER_MINUTE } from '../../physics/constants.js';
 
-const DAY_MS = 86_400_000;
 /** Same month first, then the previous, then the next. */
 const MONTH_STEPS = [0, -1, 1] as const;
 
@@ -75,7 +75,7 @@ export function civilFromDays(z: number, out: [number, number, number]): void {
 export function reportTimeMs(day: number, hour: number, minute: number, ref: MonthRef): number {
   // one-entry cache: consecutive reports usually share the reference and the day
   if (ref.year === cacheYear && ref.month === cacheMonth && ref.refDay === cacheRefDay && ref.refMode === cacheMode && day === cacheDay)
-    return Number.isNaN(cacheDays) ? NaN : cacheDays * DAY_MS + hour * 3_600_000 + minute * 60_000;
+    return Number.isNaN(cacheDays) ? NaN : cacheDays * MS_PER_DAY + hour * MS_PER_HOUR + minute * MS_PER_MINUTE;
   const days = reportDays(day, ref);
   cacheYear = ref.year;
   cacheMonth = ref.month;
@@ -83,7 +83,7 @@ export function reportTimeMs(day: number, hour: number, minute: number, ref: Mon
   cacheMode = ref.refMode;
   cacheDay = day;
   cacheDays = days;
-  return Number.isNaN(days) ? NaN : days * DAY_MS + hour * 3_600_000 + minute * 60_000;
+  return Number.isNaN(days) ? NaN : days * MS_PER_DAY + hour * MS_PER_HOUR + minute * MS_PER_MINUTE;
 }
 
 let cacheYear = NaN;

@@ -3,9 +3,9 @@
  * (decodeInto and decodeRemarks, on the ASCII view of their text) and the single-pass byte decoder.
  * Each takes the group at u[a, b) and returns whether it fits (writing into the report when it does).
  */
-import { WX } from '../types.js';
-import type { MetarReport } from './decodeMetar.js';
-import { INHG_HPA, KMH_MS, KNOT_MS } from './units.js';
+import { WX } from '../../model/index.js';
+import type { MetarReport } from './metarReport.js';
+import { HPA_PER_INHG, KMH_MS, KNOT_MS, MS_PER_DAY, MS_PER_HOUR, MS_PER_MINUTE } from '../../physics/constants.js';
 import { weatherFlagsAt } from './weather.js';
 
 export { asciiView } from './ascii.js';
@@ -255,7 +255,7 @@ export function pressureGroup(u: Uint8Array, a: number, b: number, r: MetarRepor
   const v = digits(u, a + 1, b);
   if (v < 0 && !slashes(u, a + 1, b)) return false;
   if (u[a] === 81) r.qnhHpa = v < 0 ? NaN : v;
-  else r.altimeterHpa = v < 0 ? NaN : (v / 100) * INHG_HPA;
+  else r.altimeterHpa = v < 0 ? NaN : (v / 100) * HPA_PER_INHG;
   return true;
 }
 
@@ -306,9 +306,6 @@ export function beginEnd(u: Uint8Array, a: number, b: number): boolean {
   return parts > 0;
 }
 
-const HOUR_MS = 3_600_000;
-const DAY_MS = 86_400_000;
-
 /**
  * Time of a remark given as `mm` (hh < 0: minutes past the report's hour) or `hhmm`, placed at or
  * before the report time (FMH-1 §12.7: peak wind and wind shift times lie within the last hour).
@@ -316,12 +313,12 @@ const DAY_MS = 86_400_000;
 export function remarkTimeMs(reportMs: number, hh: number, mm: number): number {
   if (!Number.isFinite(reportMs) || mm > 59 || hh > 23) return NaN;
   if (hh < 0) {
-    let t = Math.floor(reportMs / HOUR_MS) * HOUR_MS + mm * 60_000;
-    if (t > reportMs) t -= HOUR_MS;
+    let t = Math.floor(reportMs / MS_PER_HOUR) * MS_PER_HOUR + mm * MS_PER_MINUTE;
+    if (t > reportMs) t -= MS_PER_HOUR;
     return t;
   }
-  let t = Math.floor(reportMs / DAY_MS) * DAY_MS + hh * HOUR_MS + mm * 60_000;
-  if (t > reportMs) t -= DAY_MS;
+  let t = Math.floor(reportMs / MS_PER_DAY) * MS_PER_DAY + hh * MS_PER_HOUR + mm * MS_PER_MINUTE;
+  if (t > reportMs) t -= MS_PER_DAY;
   return t;
 }
 

@@ -2,12 +2,12 @@
  * US remarks section of METAR/SPECI (after `RMK`), per FMH-1 ch. 12 §12.7 (automated, manual and plain
  * language remarks; additive and maintenance data). Decoded by char codes; unknown groups are kept.
  */
-import type { ObserverRemark } from '../types.js';
-import { WX } from '../types.js';
-import { unknown, type MetarReport } from './decodeMetar.js';
+import { WX, type ObserverRemark } from '../../model/index.js';
+import { unknown, type MetarReport } from './metarReport.js';
 import { beginEnd, dg, digits, hhmm, isWord, peakWind, remarkTimeMs, signedTenths, slashes } from './groups.js';
-import { INCH_MM } from './units.js';
+import { INCH_MM } from '../../physics/constants.js';
 import { weatherFlagsAt } from './weather.js';
+import { pressureChangeFromTendencyHpa } from '../../physics/pressure.js';
 
 const COMPASS = new Set(['N', 'NE', 'E', 'SE', 'S', 'SW', 'W', 'NW', 'NNE', 'ENE', 'ESE', 'SSE', 'SSW', 'WSW', 'WNW', 'NNW', 'OHD', 'ALQDS']);
 
@@ -97,10 +97,8 @@ export function decodeRemarks(
           const code = dg(u, a + 1);
           const ppp = digits(u, a + 2, b);
           if (code >= 0 && code <= 8 && ppp >= 0) {
-            // WMO-No. 306 code table 0200: 0–3 higher (or same), 4 same, 5–8 lower (or same)
-            const v = ppp / 10;
             r.pressureTendencyCode = code;
-            r.pressureTendency3hHpa = code === 4 ? 0 : code <= 3 ? v : v === 0 ? 0 : -v;
+            r.pressureTendency3hHpa = pressureChangeFromTendencyHpa(code, ppp); // WMO-No. 306 code table 0200
             numeric = false;
             continue;
           }

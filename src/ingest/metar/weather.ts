@@ -3,7 +3,7 @@
  * (`-`, none, `+`) or proximity (`VC`), descriptor (MI PR BC DR BL SH TS FZ) and phenomena, as
  * two-letter codes — decoded by char codes into WX bit flags.
  */
-import { WX } from '../types.js';
+import { WX } from '../../model/index.js';
 import { asciiBytes } from './ascii.js';
 
 /** Two-letter code → index key `c1 * 32 + c2` (upper-case letters only). */

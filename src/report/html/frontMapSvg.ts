@@ -4,8 +4,7 @@
  * and at each station the observed passage time (bold) or, where none was detected, the fitted time (grey,
  * in brackets). Equirectangular projection about the front's origin (the network centre), north up.
  */
-import type { StationMeta } from '../../ingest/types.js';
-import type { FrontTrack } from '../../network/track.js';
+import type { FrontTrack, StationMeta } from '../../model/index.js';
 import { projectLocalKm } from '../../physics/geo.js';
 import { escapeXml } from './escape.js';
 import { px } from './linePath.js';

@@ -1,5 +1,5 @@
 /** The chart legend as an SVG string: line styles of the series, the passage marks, and each boundary kind. */
-import { BOUNDARY_KINDS } from '../../detect/types.js';
+import { BOUNDARY_KINDS } from '../../model/index.js';
 import { escapeXml } from './escape.js';
 import { kindClass } from './palette.js';
 

@@ -2,8 +2,7 @@
  * Overview strip of one station over the whole period: temperature only (thinned to the pixel width), with
  * a tick at each passage (linked to its panel) and the panel windows shaded.
  */
-import type { PassageEvent } from '../../detect/types.js';
-import type { StationSeries } from '../../series/series.js';
+import type { PassageEvent, StationSeries } from '../../model/index.js';
 import { chartLine, windowRange } from './chartLine.js';
 import { escapeXml } from './escape.js';
 import { px } from './linePath.js';

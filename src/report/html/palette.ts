@@ -4,7 +4,7 @@
  * colour-blind readers and in grey-scale print. Colours are dark enough for text on white (contrast ratio
  * at least 4.5:1, WCAG 2.1 §1.4.3, checked by hand; from memory of the formula).
  */
-import type { BoundaryKind } from '../../detect/types.js';
+import type { BoundaryKind } from '../../model/index.js';
 
 export interface Stroke {
   colour: string;

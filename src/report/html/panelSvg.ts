@@ -4,8 +4,7 @@
  * window drawn as a vertical line at its time, a band over its timing window (time_earliest → time_latest)
  * and a lighter band over its transition zone (zone_start → zone_end), labelled with the kind.
  */
-import type { PassageEvent } from '../../detect/types.js';
-import type { SeriesField, StationSeries } from '../../series/series.js';
+import type { PassageEvent, SeriesField, StationSeries } from '../../model/index.js';
 import { chartLine, windowRange } from './chartLine.js';
 import { escapeXml } from './escape.js';
 import { px } from './linePath.js';

@@ -4,11 +4,8 @@
  * network with a small map each, and per station an overview strip, a table of passages and stacked
  * time-series panels around each passage. Pure: the same input gives the same bytes (no clock is read).
  */
-import type { BoundaryKind, PassageEvent } from '../../detect/types.js';
-import type { StationMeta } from '../../ingest/types.js';
-import type { FrontTrack } from '../../network/track.js';
-import { medianCadenceMinutes, type StationSeries } from '../../series/series.js';
-import { BOUNDARY_KINDS } from '../../detect/types.js';
+import { BOUNDARY_KINDS, type BoundaryKind, type FrontTrack, type PassageEvent, type StationMeta, type StationSeries } from '../../model/index.js';
+import { medianCadenceMinutes } from '../../series/series.js';
 import { escapeXml } from './escape.js';
 import { frontMapSvg } from './frontMapSvg.js';
 import { overviewSvg } from './overviewSvg.js';

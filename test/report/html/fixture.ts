@@ -1,6 +1,5 @@
 /** Invented small series and passage for the report tests (not physics checks). */
-import type { PassageEvent } from '../../../src/detect/types.js';
-import { allocSeries, type StationSeries } from '../../../src/series/series.js';
+import { allocSeries, type PassageEvent, type StationSeries } from '../../../src/model/index.js';
 
 export const H = 3_600_000;
 export const T0 = Date.UTC(2026, 2, 2, 0, 0);
@@ -47,7 +46,7 @@ export function passage(station = 'XTST', timeMs = T0 + 12 * H, kind: PassageEve
     zoneHours: 2,
     zoneDepthKm: NaN,
     gradientKPer100km: NaN,
-    observerFropaTimeMs: NaN,
+    observerFropaTimeMs: NaN, windShiftTimeMs: NaN, changeStartTimeMs: NaN, timeBasis: 'change-point',
     evidence: ['+ wind 190° → 300° (veering 110°)', '− pressure rise <1 hPa & "small"'],
   };
 }

@@ -5,8 +5,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { clipLine, frontMapSvg } from '../../../src/report/html/frontMapSvg.js';
-import type { FrontTrack } from '../../../src/network/track.js';
-import type { StationMeta } from '../../../src/ingest/types.js';
+import type { FrontTrack, StationMeta } from '../../../src/model/index.js';
 import { H, T0, passage } from './fixture.js';
 
 test('clipLine: a horizontal line through a box, a line missing it, a diagonal', () => {

@@ -8,7 +8,7 @@ import { existsSync, readFileSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { fileURLToPath } from 'node:url';
 import { assertNoStack, cli, tempDir } from '../../cli/io.js';
-import { parseReportTime } from '../../../cli/commands/report.js';
+import { parsePeriodTime, UsageError } from '../../../src/index.js';
 import { CAUTION } from '../../../src/report/caution.js';
 
 const demo = fileURLToPath(new URL('../../../stations-demo/', import.meta.url));
@@ -75,13 +75,13 @@ test('fropa report --out - writes the page to standard output; a period without 
   assertNoStack(none.stderr);
 });
 
-test('parseReportTime: ISO dates and times, UTC unless an offset is given; a date alone ends at 23:59 for --to', () => {
-  assert.is(parseReportTime('2026-03-02', '--from'), Date.UTC(2026, 2, 2));
-  assert.is(parseReportTime('2026-03-02', '--to', true), Date.UTC(2026, 2, 2, 23, 59));
-  assert.is(parseReportTime('2026-03-02T06:30Z', '--from'), Date.UTC(2026, 2, 2, 6, 30));
-  assert.is(parseReportTime('2026-03-02T06:30-05:00', '--from'), Date.UTC(2026, 2, 2, 11, 30));
-  assert.is(parseReportTime(undefined, '--from'), undefined);
-  assert.throws(() => parseReportTime('2026-02-30', '--from'), /not a valid date/);
+test('parsePeriodTime: ISO dates and times, UTC unless an offset is given; a date alone ends at 23:59 with endOfDay', () => {
+  // ISO 8601-1:2019 calendar dates and UTC offsets; the end-of-day rule is fropa's own (common practice, no source)
+  assert.is(parsePeriodTime('2026-03-02', '--from'), Date.UTC(2026, 2, 2));
+  assert.is(parsePeriodTime('2026-03-02', '--to', true), Date.UTC(2026, 2, 2, 23, 59));
+  assert.is(parsePeriodTime('2026-03-02T06:30Z', '--from'), Date.UTC(2026, 2, 2, 6, 30));
+  assert.is(parsePeriodTime('2026-03-02T06:30-05:00', '--from'), Date.UTC(2026, 2, 2, 11, 30));
+  assert.throws(() => parsePeriodTime('2026-02-30', '--from'), (e: unknown) => e instanceof UsageError && /not a valid date/.test((e as Error).message));
 });
 
 test('fropa report --help lists the options and an example with stations-demo', async () => {

@@ -4,9 +4,13 @@
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { assertClose } from '../helpers/assert.js';
-import { decodeMetar, isParseIssue, KNOT_MS, type MetarReport } from '../../src/ingest/metar.js';
-import { WX } from '../../src/ingest/types.js';
+import { assertClose } from '../../helpers/assert.js';
+import { decodeMetar, isParseIssue, type MetarReport } from '../../../src/ingest/metar.js';
+import { KNOT_MS } from '../../../src/physics/constants.js';
+import { WX } from '../../../src/model/index.js';
+import { decodeRemarks } from '../../../src/ingest/metar/remarks.js';
+import { newMetarReport } from '../../../src/ingest/metar/decodeMetar.js';
+import { asciiBytes } from '../../../src/ingest/metar/ascii.js';
 
 const REF = { year: 2020, month: 2, file: 'rmk.txt', line: 3 };
 /** A body with whole-degree 10/05 and the given remarks, at 2020-02-07 19:55Z. */
@@ -58,6 +62,11 @@ test('5appp signed by WMO-No. 306 code table 0200 (examples: 52032 +3.2, 58033 �
     assertClose(r.pressureTendency3hHpa, v, 1e-12, 0, g);
   }
   assert.equal(rmk('59012').unknownGroups, ['59012']); // a = 9 is not in code table 0200
+  // WMO-No. 306 code table 0200: a = 4 is "the same as 3 h ago"; with ppp ≠ 000 the group contradicts itself
+  // and the sign is unknown, so the change is NaN (our documented rule); the characteristic is kept.
+  const odd = rmk('54003');
+  assert.is(odd.pressureTendencyCode, 4);
+  assert.ok(Number.isNaN(odd.pressureTendency3hHpa), '54003');
 });
 
 test('6-h max/min 1snTTT / 2snTTT (AFMAN 15-111 Att. 3: −2.1 → 11021, 14.2 → 10142, −0.1 → 21001, 1.2 → 20012)', () => {
@@ -152,6 +161,53 @@ test('lightning and CB remarks set WX.CONVECTIVE; sensor status, begin/end, $ ar
 test('unknown remark groups are kept and counted', () => {
   const r = rmk('FOO T000010006 BAR123');
   assert.equal(r.unknownGroups, ['FOO', 'T000010006', 'BAR123']);
+});
+
+/** decodeRemarks on the blank-separated tokens of `text` from token i0 on, for a report at 2020-02-07 19:55Z. */
+function direct(text: string, i0 = 0): MetarReport {
+  const starts: number[] = [];
+  const ends: number[] = [];
+  for (const m of text.matchAll(/\S+/g)) {
+    starts.push(m.index!);
+    ends.push(m.index! + m[0].length);
+  }
+  const r = newMetarReport();
+  r.timeMs = Date.UTC(2020, 1, 7, 19, 55);
+  decodeRemarks(text, asciiBytes(text), Int32Array.from(starts), Int32Array.from(ends), i0, starts.length, r, 'direct.txt', 9, false);
+  return r;
+}
+
+test('decodeRemarks() called directly reads from token i0 and names file and line in observer remarks', () => {
+  // FMH-1 §12.7.1 (AFMAN Att. 3 rmk 5): WSHFT 30 FROPA = shift began :30, frontal
+  const r = direct('KXYZ 071955Z RMK AO2 WSHFT 30 FROPA SLP125', 3);
+  assert.is(r.stationType, 'AO2');
+  assert.equal(r.remarks, [{ reportTimeMs: Date.UTC(2020, 1, 7, 19, 55), label: 'FROPA', frontal: true, shiftTimeMs: Date.UTC(2020, 1, 7, 19, 30), file: 'direct.txt', line: 9 }]);
+  assertClose(r.seaLevelPressureHpa, 1012.5, 1e-9);
+  // constructed: the body tokens before i0 are not read as remarks
+  assert.equal(r.unknownGroups, []);
+});
+
+test('decodeRemarks() station types AO1, AO2A and COLD FROPA, CBMAM (FMH-1 §12.7.1)', () => {
+  // FMH-1 §12.7.1(a) (from memory): AO1 without, AO2 with a precipitation discriminator; A = augmented
+  assert.is(direct('AO1').stationType, 'AO1');
+  assert.is(direct('AO2A').stationType, 'AO2A');
+  // constructed: COLD FROPA is an observer's frontal remark without a time
+  const c = direct('COLD FROPA');
+  assert.is(c.remarks[0]!.label, 'COLD FROPA');
+  assert.ok(Number.isNaN(c.remarks[0]!.shiftTimeMs));
+  // FMH-1 §12.7.1 (from memory): CBMAM cumulonimbus mammatus
+  assert.is(direct('CBMAM DSNT S').weather & WX.CONVECTIVE, WX.CONVECTIVE);
+});
+
+test('decodeRemarks() recognises additive groups it does not store (8/CLCMCH, 98mmm, 931RRR, I1nnn)', () => {
+  // FMH-1 §12.7.2 (from memory): cloud types 8/578, sunshine 98096, snowfall 933021, ice accretion I1001
+  assert.equal(direct('8/578 98096 933021 I1001').unknownGroups, []);
+});
+
+test('decodeRemarks() reads numbers after VIS/CIG as their values, up to an unknown word', () => {
+  // constructed: location words (RWY11, NE) may stand between the values; an unknown word ends the list
+  assert.equal(direct('CIG 013V017 RWY11 VIS NE 2 1/2').unknownGroups, []);
+  assert.equal(direct('CIG 013 FOO 013V017').unknownGroups, ['FOO', '013V017']);
 });
 
 test.run();

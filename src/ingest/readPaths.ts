@@ -1,27 +1,18 @@
 /**
- * The I/O edge of ingest: expand paths, sniff each file's format, read it with the right reader, resolve
- * station ids and metadata, derive station pressure, build and QC one series per station.
+ * The reading edge of ingest: expand paths, sniff each file's format, read stations files, then hand every
+ * observation of the data files to a sink. Bytes in, observations and per-file reports out; building series,
+ * station pressure and QC happen downstream (src/pipeline.ts).
  * Every file is accounted for in a FileReport; files that are not observations are skipped with a note.
  */
 import { closeSync, openSync, readSync, readdirSync, readFileSync, statSync } from 'node:fs';
 import { basename, extname, join } from 'node:path';
-import type { FileReport, Observation, StationMeta } from './types.js';
-import { newFileReport } from './types.js';
+import { newFileReport, UsageError, type FileReport, type Observation, type StationMeta } from '../model/index.js';
 import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarBytes } from './metar.js';
 import { readCsvBytes, type CsvOptions, type RawReportDecoded } from './csv.js';
-import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, type StationIndex } from './stations.js';
+import { looksLikeStationsFile, readStationsText } from './stations.js';
 import type { ColumnOverride } from './columns.js';
-import type { StationSeries } from '../series/series.js';
-import { SeriesBuilder } from '../series/seriesBuilder.js';
-import { applyQc, type QcSummary } from '../qc/qc.js';
-import { stationPressureFromAltimeterHpa } from '../physics/pressure.js';
 
-/** A problem with how fropa was called (exit code 2), as opposed to bad data (exit code 1). */
-export class UsageError extends Error {
-  override name = 'UsageError';
-}
-
-export interface LoadOptions {
+export interface ReadOptions {
   stationsFile?: string;
   /** YYYY-MM for METAR files whose lines carry no archive stamp and whose name has no date. */
   month?: string;
@@ -36,11 +27,22 @@ export interface LoadOptions {
   onNote?: (message: string) => void;
 }
 
-export interface LoadResult {
-  series: StationSeries[];
-  reports: FileReport[];
+/** Where a CSV row placed its station (latitude, longitude, elevation columns). */
+export type StationPositions = Map<string, { latDeg: number; lonDeg: number; elevationM: number }>;
+
+/** The inputs after the first pass: stations read, files that are not data accounted for, data files waiting to be read. */
+export interface ScannedPaths {
   stations: StationMeta[];
-  qc: Map<string, QcSummary>;
+  reports: FileReport[];
+  dataFiles: DataFile[];
+}
+
+/** One data file, read into memory, with its sniffed format. */
+export interface DataFile {
+  path: string;
+  bytes: Buffer;
+  format: SniffedFormat;
+  fromDir: boolean;
 }
 
 /** Extensions that are never observation files; skipped with a note inside directories. */
@@ -118,10 +120,11 @@ function decodeRawReport(text: string, timeMs: number, file: string, line: numbe
 }
 
 /**
- * Read every path and build QC'd series per station. Throws UsageError for a missing path or an
- * unreadable stations file; data problems are counted in the reports, never thrown.
+ * First pass over the inputs: expand the paths, read the stations files (the explicit one first, then any found
+ * among the inputs) and every other file's bytes. Throws UsageError for a missing path or an unreadable stations
+ * file; data problems are counted in the reports, never thrown.
  */
-export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): LoadResult {
+export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): ScannedPaths {
   const note = opts.onNote ?? (() => {});
   const reports: FileReport[] = [];
   const stations: StationMeta[] = [];
@@ -138,16 +141,7 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
     stations.push(...r.stations);
     reports.push(r.report);
   }
-  const positions = new Map<string, { latDeg: number; lonDeg: number; elevationM: number }>();
-  const csvOpts: CsvOptions = {
-    overrides: opts.overrides,
-    missing: opts.missing,
-    zone: opts.zone,
-    standardTime: opts.standardTime,
-    offsetMinutes: opts.offsetMinutes,
-    decodeRawReport,
-  };
-  const dataFiles: { path: string; bytes: Buffer; format: SniffedFormat; fromDir: boolean }[] = [];
+  const dataFiles: DataFile[] = [];
   for (const c of files) {
     let bytes: Buffer;
     let binary = false;
@@ -189,20 +183,41 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
     }
     dataFiles.push({ path: name, bytes, format, fromDir: c.fromDir });
   }
-  // Every observation goes straight into per-station columns; ids are resolved once per distinct id.
-  const index = buildStationIndex(stations);
-  const builder = new SeriesBuilder((id) => resolveStation(index, id).id);
-  const sink = (o: Observation) => builder.add(o);
+  return { stations, reports, dataFiles };
+}
+
+/**
+ * Second pass: read every data file (METAR or CSV) and hand each observation to `onObservation`. The observation
+ * object may be reused by the reader right after the call, so the sink copies what it keeps.
+ * Returns the files' reports (in input order) and the station positions CSV rows carried.
+ */
+export function readDataFiles(
+  dataFiles: readonly DataFile[],
+  opts: ReadOptions,
+  onObservation: (o: Observation) => void,
+): { reports: FileReport[]; positions: StationPositions } {
+  const note = opts.onNote ?? (() => {});
+  const reports: FileReport[] = [];
+
+  const positions: StationPositions = new Map();
+  const csvOpts: CsvOptions = {
+    overrides: opts.overrides,
+    missing: opts.missing,
+    zone: opts.zone,
+    standardTime: opts.standardTime,
+    offsetMinutes: opts.offsetMinutes,
+    decodeRawReport,
+  };
   const csvSinkOpts: CsvOptions = { ...csvOpts, reuseObservation: true };
   for (const f of dataFiles) {
     if (f.format === 'metar') {
-      const r = readMetarBytes(f.bytes, f.path, { month: opts.month, onObservation: sink });
+      const r = readMetarBytes(f.bytes, f.path, { month: opts.month, onObservation });
       reports.push(r.report);
       if (r.report.parsed === 0 && r.report.rejectedByReason['no-year-month']) {
         note(`${f.path}: no year and month for the reports; pass --month YYYY-MM or use a dated file name`);
       }
     } else if (f.format === 'csv') {
-      const r = readCsvBytes(f.bytes, f.path, csvSinkOpts, sink);
+      const r = readCsvBytes(f.bytes, f.path, csvSinkOpts, onObservation);
       // A CSV without a single observation inside a directory is most likely something else (a forecast list).
       if (r.report.parsed === 0 && f.fromDir) {
         note(`${f.path}: skipped (no observation columns recognised)`);
@@ -224,51 +239,5 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
       note(`${f.path}: skipped (${why})`);
     }
   }
-  return { ...seriesFromBuilder(builder, index, positions), reports, stations };
-}
-
-/** Resolve ids, attach metadata, derive station pressure, build and QC one series per station. */
-export function buildAllSeries(
-  observations: Observation[],
-  stations: StationMeta[],
-  positions: Map<string, { latDeg: number; lonDeg: number; elevationM: number }>,
-): { series: StationSeries[]; qc: Map<string, QcSummary> } {
-  const index = buildStationIndex(stations);
-  for (const o of observations) o.station = resolveStation(index, o.station).id;
-  const builder = new SeriesBuilder();
-  for (const o of observations) builder.add(o);
-  return seriesFromBuilder(builder, index, positions);
-}
-
-/** One series per resolved station (sorted ids): metadata from the index or the CSV position, station pressure, QC. */
-function seriesFromBuilder(
-  builder: SeriesBuilder,
-  index: StationIndex,
-  positions: Map<string, { latDeg: number; lonDeg: number; elevationM: number }>,
-): { series: StationSeries[]; qc: Map<string, QcSummary> } {
-  const series: StationSeries[] = [];
-  const qc = new Map<string, QcSummary>();
-  for (const id of builder.stations().sort()) {
-    let meta = resolveStation(index, id).meta;
-    if (!meta) {
-      const pos = positions.get(id);
-      if (pos && !Number.isNaN(pos.latDeg)) meta = { id, aliases: [], ...pos };
-    }
-    const s = builder.build(id, meta);
-    deriveStationPressure(s);
-    qc.set(id, applyQc(s));
-    series.push(s);
-  }
-  return { series, qc };
-}
-
-/** Fill station pressure from the altimeter setting where missing and the elevation is known (NWS formula in physics/pressure). */
-export function deriveStationPressure(s: StationSeries): void {
-  const elev = s.meta?.elevationM;
-  if (elev === undefined || Number.isNaN(elev)) return;
-  for (let i = 0; i < s.length; i++) {
-    if (Number.isNaN(s.stationPressureHpa[i]!) && !Number.isNaN(s.altimeterHpa[i]!)) {
-      s.stationPressureHpa[i] = stationPressureFromAltimeterHpa(s.altimeterHpa[i]!, elev);
-    }
-  }
+  return { reports, positions };
 }

@@ -3,8 +3,7 @@
  * (WMO-No. 306 FM 15/FM 16 body; FMH-1 remarks). One line per report:
  * `YYYYMMDDHHMM METAR KXXX DDHHMMZ dddffGggKT 10SM FEW030 T/Td A2992 RMK AO2 SLPppp T0TTT1TTT ...`
  */
-import { WX } from '../ingest/types.js';
-import type { StationMeta } from '../ingest/types.js';
+import { WX, type StationMeta } from '../../src/model/index.js';
 import { makeRng } from './random.js';
 import type { SynthSeries, TruthEvent } from './types.js';
 

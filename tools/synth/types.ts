@@ -1,7 +1,5 @@
 /** Types of the synthetic weather generator: configuration, columnar output, planted truth. */
-import type { BoundaryKind } from '../detect/types.js';
-import type { StationMeta } from '../ingest/types.js';
-import type { FieldColumns } from '../series/series.js';
+import type { BoundaryKind, FieldColumns, StationMeta } from '../../src/model/index.js';
 
 /** Decoy kinds: things that look a little like fronts but are not synoptic fronts. */
 export const DECOY_KINDS = ['night-cooling', 'outflow-boundary', 'sea-breeze-front', 'prefrontal-trough', 'dryline-retreat'] as const;
@@ -79,6 +77,35 @@ export interface SynthEventPlan {
   seaBreezeDays?: number;
   /** Network-wide clear calm nights. Default 4. */
   calmNights?: number;
+  /** Ranges of the ordinary cold and warm fronts (arctic, frontolysis, frontogenesis keep their own). Defaults: the standard set. */
+  fronts?: SynthFrontRanges;
+}
+
+/**
+ * Signal ranges of ordinary fronts, each drawn uniformly from [lo, hi]. Every default is the standard generator's
+ * range, so leaving a field out (or giving its default) draws exactly the same numbers. Degrees true, NH-equivalent.
+ */
+export interface SynthFrontRanges {
+  /** Cold fronts: temperature fall across the front, °C (positive). Default [4, 10]. */
+  coldContrastC?: [number, number];
+  /** Cold fronts: probability of a sharp (5-minute) wind shift; otherwise it turns over `coldShiftMin`. Default 0.6. */
+  coldSharpShiftProbability?: number;
+  /** Cold fronts: minutes a slow wind shift takes. Default [30, 90]. */
+  coldShiftMin?: [number, number];
+  /** Cold fronts: veer, degrees; when unset the post-frontal direction is drawn from 280–320° (veer about 55–130°). */
+  coldVeerDeg?: [number, number];
+  /** Warm fronts: temperature rise, °C. Default [3, 7]. */
+  warmContrastC?: [number, number];
+  /** Warm fronts: hours to 90 % of the rise. Default [2.5, 6]. */
+  warmZoneH?: [number, number];
+  /** Warm fronts: dew-point rise as a multiple of the temperature rise. Default [1.1, 1.6]. */
+  warmDewRatio?: [number, number];
+  /** Warm fronts: direction ahead of the front. Default [95, 140]. */
+  warmPreDirDeg?: [number, number];
+  /** Warm fronts: veer, degrees; when unset the direction behind is drawn from 180–215°. */
+  warmVeerDeg?: [number, number];
+  /** Warm fronts: minutes the wind takes to turn. Default [60, 150]. */
+  warmShiftMin?: [number, number];
 }
 
 /** Faults to plant. */

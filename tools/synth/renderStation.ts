@@ -5,7 +5,7 @@
  * between synoptic anchors with a diurnal speed cycle, gusts and noise. Events add their signatures.
  * Magnitudes are common practice, no source, except where cited.
  */
-import { WX } from '../ingest/types.js';
+import { WX } from '../../src/model/index.js';
 import type { Rng } from './random.js';
 import { dayOfYear, localSolarHour, sunTimes } from './solarClock.js';
 import type { GroupPlan, Passage, StationSchedule } from './planNetwork.js';

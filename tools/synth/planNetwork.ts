@@ -7,10 +7,10 @@
  * mirrors station y (north) coordinates and wind directions, so one set of physics serves both.
  * Magnitudes are common practice, no source (see the design notes on station signatures).
  */
-import type { StationMeta } from '../ingest/types.js';
+import type { StationMeta } from '../../src/model/index.js';
 import type { Rng } from './random.js';
 import { localSolarHour, solarTimeToUtcMs, sunTimes, dayOfYear } from './solarClock.js';
-import type { SynthEventPlan } from './types.js';
+import type { SynthEventPlan, SynthFrontRanges } from './types.js';
 import { climateMeanC } from './climateMean.js';
 
 const HOUR = 3_600_000;
@@ -162,7 +162,8 @@ function alongParam(spec: FrontSpec, stations: PlaneStation[], st: PlaneStation)
 
 const lerp = (a: number, b: number, p: number) => a + (b - a) * p;
 
-function coldSpec(rng: Rng, id: string, centerMs: number, role: string): FrontSpec {
+function coldSpec(rng: Rng, id: string, centerMs: number, role: string, r: SynthFrontRanges = {}): FrontSpec {
+  const [shiftLo, shiftHi] = r.coldShiftMin ?? [30, 90];
   const base: FrontSpec = {
     id,
     kind: 'cold-front',
@@ -175,13 +176,19 @@ function coldSpec(rng: Rng, id: string, centerMs: number, role: string): FrontSp
     trough: [0, 0],
     dTdRatio: [0.8, 1.4],
     preDir: rng.uniform(190, 225),
-    postDir: rng.uniform(280, 320),
-    shiftMin: rng.chance(0.6) ? 5 : rng.uniform(30, 90),
-    preSpeedMs: rng.uniform(6, 9),
-    postSpeedMs: rng.uniform(8, 12),
+    postDir: NaN,
+    shiftMin: NaN,
+    preSpeedMs: NaN,
+    postSpeedMs: NaN,
     prefrontalLeadH: 0,
   };
-  const dT = rng.uniform(4, 10);
+  // Drawn in the standard order (post direction, shift, speeds), so the default ranges give the standard numbers.
+  base.postDir = r.coldVeerDeg ? base.preDir + rng.uniform(r.coldVeerDeg[0], r.coldVeerDeg[1]) : rng.uniform(280, 320);
+  base.shiftMin = rng.chance(r.coldSharpShiftProbability ?? 0.6) ? 5 : rng.uniform(shiftLo, shiftHi);
+  base.preSpeedMs = rng.uniform(6, 9);
+  base.postSpeedMs = rng.uniform(8, 12);
+  const [dLo, dHi] = r.coldContrastC ?? [4, 10];
+  const dT = rng.uniform(dLo, dHi);
   const z = logUniform(rng, 0.5, 4);
   const d = rng.uniform(4, 9);
   base.dT = [-dT, -dT * rng.uniform(0.85, 1.15)];
@@ -216,11 +223,12 @@ function coldSpec(rng: Rng, id: string, centerMs: number, role: string): FrontSp
   return base;
 }
 
-function warmSpec(rng: Rng, id: string, centerMs: number): FrontSpec {
-  const dT = rng.uniform(3, 7);
-  const z = rng.uniform(2.5, 6);
+function warmSpec(rng: Rng, id: string, centerMs: number, r: SynthFrontRanges = {}): FrontSpec {
+  const range = (v: [number, number] | undefined, lo: number, hi: number) => (v ? rng.uniform(v[0], v[1]) : rng.uniform(lo, hi));
+  const dT = range(r.warmContrastC, 3, 7);
+  const z = range(r.warmZoneH, 2.5, 6);
   const d = rng.uniform(2, 5);
-  return {
+  const spec: FrontSpec = {
     id,
     kind: 'warm-front',
     centerMs,
@@ -230,14 +238,21 @@ function warmSpec(rng: Rng, id: string, centerMs: number): FrontSpec {
     dT: [dT, dT * rng.uniform(0.85, 1.15)],
     zoneH: [z, z * rng.uniform(0.8, 1.2)],
     trough: [d, d],
-    dTdRatio: [1.1, 1.6],
-    preDir: rng.uniform(95, 140),
-    postDir: rng.uniform(180, 215),
-    shiftMin: rng.uniform(60, 150),
-    preSpeedMs: rng.uniform(4, 6),
-    postSpeedMs: rng.uniform(5.5, 8),
+    dTdRatio: r.warmDewRatio ?? [1.1, 1.6],
+    preDir: NaN,
+    postDir: NaN,
+    shiftMin: NaN,
+    preSpeedMs: NaN,
+    postSpeedMs: NaN,
     prefrontalLeadH: 0,
   };
+  // Drawn in the standard order, so the default ranges give the standard numbers.
+  spec.preDir = range(r.warmPreDirDeg, 95, 140);
+  spec.postDir = r.warmVeerDeg ? spec.preDir + rng.uniform(r.warmVeerDeg[0], r.warmVeerDeg[1]) : rng.uniform(180, 215);
+  spec.shiftMin = range(r.warmShiftMin, 60, 150);
+  spec.preSpeedMs = rng.uniform(4, 6);
+  spec.postSpeedMs = rng.uniform(5.5, 8);
+  return spec;
 }
 
 function occludedSpec(rng: Rng, id: string, centerMs: number): FrontSpec {
@@ -369,12 +384,12 @@ export function planGroup(stations: PlaneStation[], startMs: number, endMs: numb
       for (const s of schedules) s.passages.push(passageAt(spec, stations, s.station, frontRng));
       continue;
     }
-    const cspec = coldSpec(frontRng, `${idPrefix}CF${String(++nCold).padStart(2, '0')}`, center, role);
+    const cspec = coldSpec(frontRng, `${idPrefix}CF${String(++nCold).padStart(2, '0')}`, center, role, plan.fronts);
     const colds = schedules.map((s) => passageAt(cspec, stations, s.station, frontRng));
     const wantWarm = role === 'dryline' || (role !== 'arctic' && frontRng.chance(pWarm));
     if (wantWarm) {
       let gapH = role === 'dryline' ? frontRng.uniform(40, 46) : frontRng.uniform(16, 28);
-      const wspec = warmSpec(frontRng, `${idPrefix}WF${String(nWarm + 1).padStart(2, '0')}`, center - gapH * HOUR);
+      const wspec = warmSpec(frontRng, `${idPrefix}WF${String(nWarm + 1).padStart(2, '0')}`, center - gapH * HOUR, plan.fronts);
       // Keep every station's warm sector at least 8 h long.
       let deficit = 0;
       for (let k = 0; k < schedules.length; k++) {

@@ -4,7 +4,7 @@
  * Southern-hemisphere stations form their own group, generated in mirrored space: station y and wind
  * directions are mirrored (d → 180° − d), so a cold front that veers in the north backs in the south.
  */
-import type { StationMeta } from '../ingest/types.js';
+import type { StationMeta } from '../../src/model/index.js';
 import { applyFaultsInPlace } from './applyFaults.js';
 import { planGroup, type PlaneStation } from './planNetwork.js';
 import { makeRng } from './random.js';

@@ -1,6 +1,11 @@
 /**
  * Approximate solar clock for the synthetic generator: local solar hour, sunrise and sunset.
  * Good to a few minutes, which is ample for shaping a diurnal cycle; not for astronomy.
+ *
+ * Not the same formulas as src/physics/sun.ts, so kept apart: this clock uses local MEAN solar time (no equation of
+ * time) and the Cooper declination with the geometric horizon, while physics/sun.ts gives apparent solar time and
+ * NOAAsolar rise/set at zenith 90.833°. Switching would shift the generated diurnal cycles by up to ~16 min and change
+ * the demo data, which must regenerate byte-identically.
  */
 
 const DAY_MS = 86_400_000;
