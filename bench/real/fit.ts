@@ -114,7 +114,13 @@ export function trainingSet(): { X: Float64Array[]; y: number[]; w: number[]; co
   for (const seed of SYNTHETIC_TUNING_SEEDS) syntheticExamples(seed, X, y, counts);
   // The synthetic examples together weigh as much as the real ones (5-minute data has many more change points).
   const wSynth = X.length > nReal ? nReal / (X.length - nReal) : 1;
-  const w = X.map((_, i) => (i < nReal ? 1 : Math.round(wSynth * 1e6) / 1e6));
+  const base = X.map((_, i) => (i < nReal ? 1 : wSynth));
+  // Classes are weighed towards balance (by the square root of their rarity), so the rare kinds shape the
+  // fit; the event-level calibration then restores probabilities that mean frequencies.
+  const classTotal = new Array<number>(MODEL_CLASSES.length).fill(0);
+  y.forEach((c, i) => (classTotal[c]! += base[i]!));
+  const all = classTotal.reduce((a, b) => a + b, 0);
+  const w = base.map((b, i) => Math.round(b * Math.sqrt(all / (MODEL_CLASSES.length * Math.max(1, classTotal[y[i]!]!))) * 1e6) / 1e6);
   return { X, y, w, counts };
 }
 
@@ -124,7 +130,8 @@ const CALIBRATED = ['cold-front', 'warm-front', 'outflow-boundary', 'sea-breeze-
 /**
  * Platt scaling per kind (Platt 1999): run the detector with the fitted weights and no calibration on the
  * tuning part, mark each detection in a covered month correct when it matches a label of its kind
- * (±3 h, one to one), and fit P(correct) = σ(a + b·logit(p)).
+ * (±3 h, one to one), and fit P(correct) = σ(a + b·logit(p)). Sampled kinds (outflows, sea breezes) use only
+ * the detections within 3 h of some label.
  */
 export function calibration(weights: number[][]): Record<string, [number, number]> {
   const { labels, coverage } = readLabels();
@@ -137,8 +144,11 @@ export function calibration(weights: number[][]): Record<string, [number, number
   const m = matchNearest(tune.filter((l) => covered(l.station, l.timeMs)), events, 3 * HOUR, (l, d) => l.kind === d.kind);
   const correct = new Set(m.values());
   const out: Record<string, [number, number]> = {};
+  // Cold and warm fronts were labelled exhaustively in the covered months; outflows and sea breezes only as
+  // a sample, so theirs are calibrated on the detections within 3 h of some label (where the labeller looked).
+  const nearLabel = (e: { station: string; timeMs: number }) => tune.some((l) => l.station === e.station && Math.abs(l.timeMs - e.timeMs) <= 3 * HOUR);
   for (const kind of CALIBRATED) {
-    const ev = events.filter((e) => e.kind === kind);
+    const ev = events.filter((e) => e.kind === kind && (kind === 'cold-front' || kind === 'warm-front' || nearLabel(e)));
     if (ev.length < 10) continue;
     const X = ev.map((e) => {
       const q = Math.min(1 - 1e-6, Math.max(1e-6, e.confidence));

@@ -71,6 +71,25 @@ export function classificationMeta(series: StationSeries, g: DetectGrid): Statio
   return { ...(meta ?? { id: series.station, aliases: [], latDeg: NaN, lonDeg: NaN, elevationM: NaN }), coastal: true, seaBearingDeg: sector.seaBearingDeg };
 }
 
+/** Largest finite value of `v` at report times in [fromMs, toMs]; NaN when none. */
+function maxIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number): number {
+  let m = NaN;
+  for (let k = lowerBound(t, fromMs); k < t.length && t[k]! <= toMs; k++) if (v[k]! === v[k]! && !(v[k]! <= m)) m = v[k]!;
+  return m;
+}
+
+/** Value of `v` at the report at or just after `tMs`; NaN when missing. */
+function valueAt(t: Float64Array, v: Float64Array, tMs: number): number {
+  const k = lowerBound(t, tMs);
+  return k < t.length ? v[k]! : NaN;
+}
+
+/** Does the record hold any wind direction at all? */
+function hasWind(series: StationSeries): boolean {
+  for (let i = 0; i < series.length; i++) if (series.windDirDeg[i]! === series.windDirDeg[i]!) return true;
+  return false;
+}
+
 /** One change-point candidate with the model's inputs, for fitting the model (bench/real/fit.ts). */
 export interface ModelCandidate {
   station: string;
@@ -130,7 +149,9 @@ export function detectStation(series: StationSeries, opts: DetectOptions = {}): 
   const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
   const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
 
-  const params = opts.model === undefined ? MODEL_PARAMS : opts.model;
+  // The model was fitted on stations that report wind; a record without any wind direction is judged by
+  // the signatures alone (which have a temperature-and-moisture path for it).
+  const params = !hasWind(series) ? null : opts.model === undefined ? MODEL_PARAMS : opts.model;
   const meta = classificationMeta(series, g);
   const evaluate = (i: number): Candidate => {
     const f = measure(g, series, raw, i, tSmooth, tRawSmooth);
@@ -244,7 +265,9 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
     // front's temperature fall is a prefrontal trough (Schultz2005): the front is timed at the fall and the
     // shift is reported beside it. common practice, no source, for the 3 h.
     const lead = start.timeMs - wind.timeMs;
-    if (kind === 'cold-front' && lead > 3 * MS_PER_HOUR) {
+    // A shift followed by warming before the fall is a shift in the warm sector, not the front's.
+    const warmsBetween = lead > 0 && maxIn(s.timeMs, raw.tC, wind.latestMs, start.timeMs) - valueAt(s.timeMs, raw.tC, wind.earliestMs) > 0.5;
+    if (kind === 'cold-front' && (lead > 3 * MS_PER_HOUR || (lead > 1.5 * MS_PER_HOUR && warmsBetween))) {
       chosen = start;
       prefrontal = wind.timeMs;
     } else chosen = Math.abs(lead) <= 3 * MS_PER_HOUR ? wind : start;

@@ -185,16 +185,24 @@ export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classifica
   let kind = p[best]! >= MIN_CLASS_PROBABILITY ? (params.classes[best] as string) : 'none';
   let confidence = kind === 'none' ? 0 : calibrate(p[best]!, params.calibration?.[kind]);
   const evidence = h.evidence.slice();
-  const lastingCold = a.tempDayC < -2 || a.tempAdjLastingC < -2;
-  // A dryline retreats in the evening and the moist air comes back within hours (Schaefer1986, from
-  // memory); dry air that stays for 6–12 h came with a front.
-  const moistureReturns = !(a.dewpointDayC < -3);
-  if (h.kind === 'dryline' && !lastingCold && moistureReturns && h.scores.dryline >= 0.4 && pNone < 0.8) {
+  // Behind a dryline the air is dry but not colder (Schaefer1986): a dew-point crash followed by a lasting
+  // fall of temperature, or of the 24-h mean temperature, is a cold front's leading edge.
+  const lastingCold = a.tempDayC < -2 || a.tempAdjLastingC < -2 || a.tempDailyMeanC < -1.5;
+  if (h.kind === 'dryline' && !lastingCold && h.scores.dryline >= 0.4) {
     kind = 'dryline';
-    confidence = calibrate(Math.min(h.scores.dryline, 1 - pNone), params.calibration?.dryline);
-  } else if (h.kind === 'occluded-front' && (kind === 'cold-front' || kind === 'warm-front') && Math.abs(a.tempDayC) < 2) {
+    confidence = calibrate(Math.min(h.scores.dryline, 1 - 0.5 * pNone), params.calibration?.dryline);
+  } else if (h.kind === 'occluded-front' && h.scores['occluded-front'] >= 0.4 && !(Math.abs(a.tempDayC) >= 2) && !(Math.abs(a.tempDailyMeanC) >= 2)) {
+    // A wind shift and trough without a lasting change of air mass: the model has too few occlusions to
+    // know them; the signature decides, weighed by the model's belief that something passed.
     kind = 'occluded-front';
-    confidence = calibrate(1 - pNone, params.calibration?.['occluded-front']);
+    confidence = calibrate(Math.min(h.scores['occluded-front'], 1 - 0.5 * pNone), params.calibration?.['occluded-front']);
+  } else if (kind === 'cold-front' && h.kind === 'outflow-boundary' && (h.scores['outflow-boundary'] >= 0.5 || (h.scores['outflow-boundary'] >= 0.4 && !lastingCold))) {
+    // An abrupt cooling with the outflow's signature (jump, gusts, recovery or the wind going back) is an
+    // outflow boundary (Wakimoto1982), however much it looks like a front's leading edge; a weaker
+    // signature counts when no lasting change of air mass follows (a squall line ahead of a front is
+    // an outflow, and the front behind it its own passage).
+    kind = 'outflow-boundary';
+    confidence = calibrate(Math.min(1, probOf('cold-front') + probOf('outflow-boundary')), params.calibration?.['outflow-boundary']);
   } else if (kind === 'none') {
     if (h.scores['wind-shift'] >= 0.35) {
       kind = 'wind-shift';

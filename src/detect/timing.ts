@@ -89,8 +89,9 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
         }
         const t0 = timeMs[idx[k - 1]!]!;
         const t1 = timeMs[idx[k]!]!;
-        // The window brackets the shift: the last report still nearer the old wind than the new one,
-        // and the first report nearer the new wind (a report half-way through the turn is neither).
+        // The window brackets the shift: from the last report before the shift began to the first report
+        // nearer the new wind than the old one, so the old wind is reported at its start and the new one at
+        // its end (a report half-way through the turn is neither).
         const nearer = (q: number): -1 | 0 | 1 => {
           const kq = idx[q]!;
           if (!(raw.spd[kq]! > 0)) return 0;
@@ -98,17 +99,15 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
           const dNew = Math.abs(signedTurnDeg(wa.dirDeg, raw.dir[kq]!));
           return dNew < dOld ? 1 : dOld < dNew ? -1 : 0;
         };
+        // Looked for within an hour (or two report intervals) after the split's report: a slow veer beyond
+        // that keeps the split's report as the window's end.
+        const reach = t1 + Math.max(MS_PER_HOUR, 2 * (t1 - t0));
         let first = -1;
-        for (let q = k; q < b; q++) if (nearer(q) === 1) { first = q; break; }
-        let last = -1;
-        if (first > 0) for (let q = first - 1; q >= a; q--) if (nearer(q) === -1) { last = q; break; }
-        const e0 = last >= 0 ? timeMs[idx[last]!]! : t0;
-        const e1 = first >= 0 ? timeMs[idx[first]!]! : t1;
-        const earliestMs = Math.min(e0, t0);
-        const latestMs = Math.max(e1, t1);
+        for (let q = k; q < b && timeMs[idx[q]!]! <= reach; q++) if (nearer(q) === 1) { first = q; break; }
+        const earliestMs = t0;
+        const latestMs = first >= 0 ? Math.max(timeMs[idx[first]!]!, t1) : t1;
         const began = Math.min(latestMs, Math.max(earliestMs, (t0 + t1) / 2));
-        best = { timeMs: began, earliestMs: last >= 0 ? e0 : earliestMs, latestMs: first >= 0 ? e1 : latestMs, turnDeg: turn, strength: score };
-        if (best.timeMs < best.earliestMs || best.timeMs > best.latestMs) best.timeMs = (best.earliestMs + best.latestMs) / 2;
+        best = { timeMs: began, earliestMs, latestMs, turnDeg: turn, strength: score };
       }
     }
   }

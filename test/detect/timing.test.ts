@@ -66,8 +66,12 @@ test('windSplit() dates a shift that turns over several reports from the first r
   const { timeMs, raw } = reports(5, dirs);
   const w = windSplit(timeMs, raw, NOON)!;
   // FMH-1 §5.4.6: "The time reported is the time the shift began": between 11:40 and 11:45
+  assert.ok(w.timeMs > NOON - 20 * MIN && w.timeMs < NOON - 15 * MIN, `${new Date(w.timeMs).toISOString()}`);
+  // The window brackets the shift (common practice, no source): it opens at the last report with the old
+  // wind (11:40, 200°) and closes at the first report nearer the new wind than the old (11:50, 260°; the
+  // 11:45 report at 230° is still nearer the old 200°)
   assert.is(w.earliestMs, NOON - 20 * MIN);
-  assert.is(w.latestMs, NOON - 15 * MIN);
+  assert.is(w.latestMs, NOON - 10 * MIN);
   // constructed: the turn is that of the mean winds either side of the split, so the transitional reports
   // on one side make it a little under the full 90°
   assert.ok(w.turnDeg > 80 && w.turnDeg <= 90, `turn ${w.turnDeg}`);
