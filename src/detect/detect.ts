@@ -158,7 +158,7 @@ export function detectStation(series: StationSeries, opts: DetectOptions = {}): 
     const hand = classify(f, meta, hemisphere);
     if (!params) return { index: i, f, c: hand };
     const a = airMassChange(g, i);
-    const d = decideKind(modelInputs(f, a, hand, hemisphere), a, hand, params);
+    const d = decideKind(modelInputs(f, a, hand, hemisphere), a, hand, params, f);
     // Evidence in the words of the chosen kind; the model's lines after it.
     const words = d.kind === hand.kind ? hand : classify(f, meta, hemisphere, d.kind);
     const extra = d.evidence.slice(hand.evidence.length);

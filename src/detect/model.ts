@@ -171,7 +171,7 @@ export function fitSoftmax(
  * followed by cold or lastingly dry air is a front's leading edge, not a dryline). A hand dryline that
  * fails the gate falls to the model's kind.
  */
-export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classification, params: ModelParams): Classification {
+export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classification, params: ModelParams, f?: Features): Classification {
   const p = predictProbabilities(x, params);
   const probOf = (k: string) => {
     const q = params.classes.indexOf(k);
@@ -188,7 +188,11 @@ export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classifica
   // Behind a dryline the air is dry but not colder (Schaefer1986): a dew-point crash followed by a lasting
   // fall of temperature, or of the 24-h mean temperature, is a cold front's leading edge.
   const lastingCold = a.tempDayC < -2 || a.tempAdjLastingC < -2 || a.tempDailyMeanC < -1.5;
-  if (h.kind === 'dryline' && !lastingCold && h.scores.dryline >= 0.4) {
+  // And where the fitted model sees a cold front, the dew-point crash is that front's leading edge, unless
+  // it is a dryline's sharp crash (10 °C or more within 3 h, Schaefer1986 from memory; common practice for
+  // the size) with the temperature not falling.
+  const sharpDry = f !== undefined && f.dewpointDropMaxC <= -10 && f.tempChangeC >= 0 && pNone < 0.9;
+  if (h.kind === 'dryline' && !lastingCold && h.scores.dryline >= 0.4 && ((probOf('cold-front') < 0.5 && pNone < 0.7) || sharpDry)) {
     kind = 'dryline';
     confidence = calibrate(Math.min(h.scores.dryline, 1 - 0.5 * pNone), params.calibration?.dryline);
   } else if (h.kind === 'occluded-front' && h.scores['occluded-front'] >= 0.4 && !(Math.abs(a.tempDayC) >= 2) && !(Math.abs(a.tempDailyMeanC) >= 2)) {
@@ -202,7 +206,8 @@ export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classifica
     // signature counts when no lasting change of air mass follows (a squall line ahead of a front is
     // an outflow, and the front behind it its own passage).
     kind = 'outflow-boundary';
-    confidence = calibrate(Math.min(1, probOf('cold-front') + probOf('outflow-boundary')), params.calibration?.['outflow-boundary']);
+    const signature = Math.min(h.scores['outflow-boundary'], 1 - 0.5 * pNone);
+    confidence = Math.max(calibrate(Math.min(1, probOf('cold-front') + probOf('outflow-boundary')), params.calibration?.['outflow-boundary']), signature);
   } else if (kind === 'none') {
     if (h.scores['wind-shift'] >= 0.35) {
       kind = 'wind-shift';
