@@ -46,7 +46,7 @@ import Papa from 'papaparse';
 import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from '../model/index.js';
 import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
-import { makeTimeReader, parseOffsetMinutes, type TimeReader } from './time.js';
+import { assembleTimeText, makeTimeReader, parseOffsetMinutes, timeColumnIndices, type TimeColumns, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
 import { weatherFlags } from './metar/weather.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
@@ -257,6 +257,8 @@ export class CsvCore {
   private stationLen = -1;
   private stationTrimmed = '';
   private timeCol = NO_COL;
+  /** The time's columns when it is spread over several (date + time of day, year/month/day/hour...). */
+  private timeColumns: TimeColumns | null = null;
   private stationCol = NO_COL;
   private wxCol = NO_COL;
   private rawCol = NO_COL;
@@ -460,11 +462,13 @@ export class CsvCore {
     if (fields[0]!.charCodeAt(0) === 0xfeff) fields[0] = fields[0]!.slice(1);
     this.header = fields;
     this.headerLen = fields.length;
-    const { mapping, unmatched, notes } = mapColumns(fields, this.opts.overrides ?? []);
+    const { mapping, unmatched, notes, timeColumns } = mapColumns(fields, this.opts.overrides ?? []);
     this.mapping = mapping;
+    this.timeColumns = timeColumns ?? null;
     report.notes.push(...notes);
     report.columns = {};
     for (const [field, col] of Object.entries(mapping)) if (col) report.columns[col.header.trim()] = field;
+    if (timeColumns) for (const i of timeColumnIndices(timeColumns)) report.columns[fields[i]!.trim()] = 'time';
     if (unmatched.length) report.notes.push(`columns not used: ${unmatched.join(', ')}`);
 
     if (fields.length === 1) {
@@ -499,7 +503,7 @@ export class CsvCore {
       this.defaultStation = this.opts.defaultStation ?? base;
       report.notes.push(`no station column; station id "${this.defaultStation}" taken from ${this.opts.defaultStation ? 'the option' : 'the file name'}`);
     }
-    const th = mapping.time.header.trim().toLowerCase();
+    const th = (timeColumns ? timeColumnIndices(timeColumns).map((i) => fields[i]!).join(' ') : mapping.time.header).trim().toLowerCase();
     const epoch = /epoch|unix/.test(th);
     let zone = this.opts.zone;
     if (zone === undefined && this.opts.offsetMinutes === undefined && this.offsetCol === NO_COL && (th === 'valid' || /(^|[^a-z])(utc|gmt|z)([^a-z]|$)/.test(th))) {
@@ -509,6 +513,11 @@ export class CsvCore {
           ? 'times without offset read as UTC (the Iowa Environmental Mesonet download default for `valid`); give a zone if the file was exported in local time'
           : `times without offset read as UTC (the time column "${mapping.time.header.trim()}" says so)`,
       );
+    }
+    const stem = file.replace(/^.*[\\/]/, '');
+    if (zone === undefined && this.opts.offsetMinutes === undefined && this.offsetCol === NO_COL && /(^|[^a-z0-9])utc([^a-z0-9]|$)/i.test(stem)) {
+      zone = 'UTC';
+      report.notes.push(`times without offset read as UTC (the file name "${stem}" says so); give a zone if they are local`);
     }
     let standardTime = this.opts.standardTime;
     if (standardTime === undefined && isLcdHeaders(fields)) {
@@ -679,6 +688,7 @@ export class CsvCore {
   }
 
   private timeOf(line: number): number {
+    if (this.timeColumns !== null) return this.assembledTimeOf(line, this.timeColumns);
     if (this.rowFields === null && this.offsetCol === NO_COL) {
       // line mode: the common ISO form straight from the bytes
       const ms = this.timeParser!.readQuickBytes(this.rowBytes, this.cellStart[this.timeCol]!, this.cellEnd[this.timeCol]!);
@@ -693,6 +703,27 @@ export class CsvCore {
         return NaN;
       }
     }
+    return this.readTime(line, raw);
+  }
+
+  /** The time of a row whose time is spread over several columns: the cells joined, then read as one. */
+  private assembledTimeOf(line: number, t: TimeColumns): number {
+    const n = this.cells();
+    const idx = timeColumnIndices(t);
+    if (idx.every((i) => i >= n || MISSING.has(this.cell(i).trim().toLowerCase()))) {
+      this.reject(line, 'no-time', 'the time cells are empty or missing; the line is skipped', '', idx[0]! + 1);
+      return NaN;
+    }
+    const a = assembleTimeText(t, (i) => (i < n ? this.cell(i) : ''));
+    if ('error' in a) {
+      this.reject(line, 'bad-time', `${a.error}; the line is skipped`, idx.map((i) => (i < n ? this.cell(i).trim() : '')).join(' '), idx[0]! + 1);
+      return NaN;
+    }
+    return this.readTime(line, a.text);
+  }
+
+  /** A time text read with the file's reader, or the reader for the row's UTC-offset cell. */
+  private readTime(line: number, raw: string): number {
     let parser = this.timeParser!;
     if (this.offsetCol !== NO_COL) {
       const off = parseOffsetMinutes(this.offsetCol < this.cells() ? this.cell(this.offsetCol) : '');
