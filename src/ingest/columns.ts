@@ -129,6 +129,8 @@ known('dewpoint', 'degC', 'dwpc');
 known('relativeHumidity', '%', 'relh');
 known('windDir', 'deg', 'drct');
 known('windSpeed', 'kt', 'sknt');
+known('windSpeed', 'mph', 'sped'); // IEM ASOS download option "wind speed in mph"
+known('gust', 'mph', 'gust_mph');
 known('precip', 'in', 'p01i');
 known('precip', 'mm', 'p01m');
 known('altimeter', 'inHg', 'alti');
@@ -199,6 +201,7 @@ known('time', undefined, 'date/time (lst)', 'date/time (utc)', 'date/time');
 known('station', undefined, 'climate id', 'climate_id');
 known('dewpoint', undefined, 'dew point temp', 'dew_point_temp', 'dewpoint_temp');
 known('stationPressure', undefined, 'stn press', 'stn_press');
+known('precip', undefined, 'precip. amount', 'precip amount', 'precip_amount');
 known('utcOffset', undefined, 'utc_offset', 'utcoffset', 'tz_offset', 'offset', 'gmt_offset', 'timezone_offset');
 
 // Conventional units are those of the source listed first for a name; a unit in the header always wins.

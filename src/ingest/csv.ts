@@ -44,7 +44,7 @@
  */
 import Papa from 'papaparse';
 import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from '../model/index.js';
-import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
+import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, TIME_PARTS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
 import { assembleTimeText, makeTimeReader, parseOffsetMinutes, timeColumnIndices, type TimeColumns, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
@@ -505,28 +505,44 @@ export class CsvCore {
     }
     const th = (timeColumns ? timeColumnIndices(timeColumns).map((i) => fields[i]!).join(' ') : mapping.time.header).trim().toLowerCase();
     const epoch = /epoch|unix/.test(th);
+    // Times that are UTC by convention (IEM `valid`, a time column or file name saying UTC) are never
+    // reinterpreted by --tz or --utc-offset: those apply to naive local times only. Mapping the time column
+    // yourself (--column valid=time) lifts the convention, for a file exported in local time.
     let zone = this.opts.zone;
-    if (zone === undefined && this.opts.offsetMinutes === undefined && this.offsetCol === NO_COL && (th === 'valid' || /(^|[^a-z])(utc|gmt|z)([^a-z]|$)/.test(th))) {
+    let offsetMinutes = this.opts.offsetMinutes;
+    const stem = file.replace(/^.*[\\/]/, '');
+    const timeMappedByUser = (this.opts.overrides ?? []).some((o) => o.field === 'time' || (TIME_PARTS as readonly string[]).includes(o.field));
+    const utcBecause =
+      timeMappedByUser || this.offsetCol !== NO_COL
+        ? null
+        : th === 'valid'
+          ? 'the Iowa Environmental Mesonet download default for `valid`'
+          : /(^|[^a-z])(utc|gmt|z)([^a-z]|$)/.test(th)
+            ? `the time column "${th}" says so`
+            : /(^|[^a-z0-9])utc([^a-z0-9]|$)/i.test(stem)
+              ? `the file name "${stem}" says so`
+              : null;
+    if (utcBecause !== null) {
+      const given = offsetMinutes !== undefined ? '--utc-offset' : zone !== undefined && zone.toUpperCase() !== 'UTC' ? '--tz' : null;
       zone = 'UTC';
+      offsetMinutes = undefined;
       report.notes.push(
-        th === 'valid'
-          ? 'times without offset read as UTC (the Iowa Environmental Mesonet download default for `valid`); give a zone if the file was exported in local time'
-          : `times without offset read as UTC (the time column "${mapping.time.header.trim()}" says so)`,
+        `times without offset read as UTC (${utcBecause})` +
+          (given ? `; ${given} not applied to them (it is for naive local times; map the column with --column to read it as local)` : '; map the time column with --column and give --tz if the file was exported in local time'),
       );
     }
-    const stem = file.replace(/^.*[\\/]/, '');
-    if (zone === undefined && this.opts.offsetMinutes === undefined && this.offsetCol === NO_COL && /(^|[^a-z0-9])utc([^a-z0-9]|$)/i.test(stem)) {
-      zone = 'UTC';
-      report.notes.push(`times without offset read as UTC (the file name "${stem}" says so); give a zone if they are local`);
-    }
     let standardTime = this.opts.standardTime;
+    if (standardTime === undefined && /(^|[^a-z])lst([^a-z]|$)/.test(th)) {
+      standardTime = true;
+      report.notes.push('times read as local standard time all year (the time column says LST, as in Environment and Climate Change Canada files)');
+    }
     if (standardTime === undefined && isLcdHeaders(fields)) {
       standardTime = true;
       report.notes.push('times read as local standard time all year (NCEI LCD convention)');
     }
     this.timeParser = makeTimeReader({
       ...(zone !== undefined ? { zone } : {}),
-      ...(this.opts.offsetMinutes !== undefined ? { offsetMinutes: this.opts.offsetMinutes } : {}),
+      ...(offsetMinutes !== undefined ? { offsetMinutes } : {}),
       standardTime: !!standardTime,
       epoch,
     });
