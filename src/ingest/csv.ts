@@ -67,6 +67,8 @@ export interface CsvOptions {
   /** Fixed UTC offset (minutes east) for naive times; wins over zone. */
   offsetMinutes?: number;
   defaultStation?: string;
+  /** The station id a file without a station column takes from its name, and the rule that gave it (stations.ts). */
+  stationFromFileName?: (file: string) => { id: string; rule: string };
   /** Force a delimiter (default: detect among comma, tab, semicolon, pipe). */
   delimiter?: string;
   decodeRawReport?: RawReportDecoder;
@@ -500,9 +502,17 @@ export class CsvCore {
     this.typeCol = mapping.reportType?.index ?? NO_COL;
     if (this.stationCol === NO_COL) {
       const base = file.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '');
-      this.defaultStation = this.opts.defaultStation ?? base;
-      report.notes.push(`no station column; station id "${this.defaultStation}" taken from ${this.opts.defaultStation ? 'the option' : 'the file name'}`);
-    }
+      const fromName = this.opts.stationFromFileName?.(file);
+      this.defaultStation = this.opts.defaultStation ?? fromName?.id ?? base;
+      const rule = this.opts.defaultStation ? 'the option' : (fromName?.rule ?? 'the file name');
+      if (this.rawCol !== NO_COL) {
+        report.stationIdRule = `the METAR text of "${mapping.rawReport!.header.trim()}" (else ${rule})`;
+        report.notes.push(`no station column; station id from the METAR text of each row, else "${this.defaultStation}" from ${rule}`);
+      } else {
+        report.stationIdRule = rule;
+        report.notes.push(`no station column; station id "${this.defaultStation}" taken from ${rule}`);
+      }
+    } else report.stationIdRule = `station column "${mapping.station!.header.trim()}"`;
     const th = (timeColumns ? timeColumnIndices(timeColumns).map((i) => fields[i]!).join(' ') : mapping.time.header).trim().toLowerCase();
     const epoch = /epoch|unix/.test(th);
     // Times that are UTC by convention (IEM `valid`, a time column or file name saying UTC) are never
@@ -875,7 +885,10 @@ export class CsvCore {
         o.weather = f;
       }
     }
-    if (this.rawCol !== NO_COL) this.mergeRaw(o, this.cell(this.rawCol), line);
+    if (this.rawCol !== NO_COL) {
+      this.mergeRaw(o, this.cell(this.rawCol), line);
+      station = o.station;
+    }
     if (o.latDeg === o.latDeg && o.lonDeg === o.lonDeg && !this.stationsSeen.has(station)) {
       this.stationsSeen.set(station, { latDeg: o.latDeg, lonDeg: o.lonDeg, elevationM: o.elevationM });
     }
@@ -929,6 +942,8 @@ export class CsvCore {
     if (o.pressureTrend === 0 && d.pressureTrend) o.pressureTrend = d.pressureTrend;
     if (d.corrected) o.corrected = true;
     if (d.remarks && d.remarks.length) o.remarks = d.remarks;
+    // no station column: the report's own station id
+    if (this.stationCol === NO_COL && !this.opts.defaultStation && typeof d.station === 'string' && /^[A-Z0-9]{3,5}$/.test(d.station)) o.station = d.station;
     if (this.typeCol === NO_COL && (d.source === 'METAR' || d.source === 'SPECI')) o.source = d.source;
   }
 }

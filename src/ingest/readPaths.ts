@@ -9,7 +9,7 @@ import { basename, extname, join } from 'node:path';
 import { newFileReport, UsageError, type FileReport, type Observation, type StationMeta } from '../model/index.js';
 import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarBytes } from './metar.js';
 import { readCsvBytes, type CsvOptions, type RawReportDecoded } from './csv.js';
-import { looksLikeStationsFile, readStationsText } from './stations.js';
+import { buildStationIndex, looksLikeStationsFile, readStationsText, stationFromFileName, type FileNameStation } from './stations.js';
 import type { ColumnOverride } from './columns.js';
 import { compressionOf, expandBytes } from './decompress.js';
 import { isIsdHeaders, readIsdText } from './isd.js';
@@ -45,6 +45,8 @@ export interface DataFile {
   bytes: Buffer;
   format: SniffedFormat;
   fromDir: boolean;
+  /** The station id the file name gives (for files without a station column), with its rule. */
+  nameStation?: FileNameStation;
 }
 
 /** Extensions that are never observation files; skipped with a note inside directories. */
@@ -202,6 +204,8 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
     }
     dataFiles.push({ path: name, bytes, format, fromDir: c.fromDir });
   }
+  const index = buildStationIndex(stations);
+  for (const f of dataFiles) if (f.path !== '(stdin)') f.nameStation = stationFromFileName(index, f.path);
   return { stations, reports, dataFiles };
 }
 
@@ -240,7 +244,8 @@ export function readDataFiles(
       for (const [id, pos] of r.stationsSeen) positions.set(id, pos);
       reports.push(r.report);
     } else if (f.format === 'csv') {
-      const r = readCsvBytes(f.bytes, f.path, csvSinkOpts, onObservation);
+      const nameStation = f.nameStation;
+      const r = readCsvBytes(f.bytes, f.path, nameStation ? { ...csvSinkOpts, stationFromFileName: () => nameStation } : csvSinkOpts, onObservation);
       // A CSV without a single observation inside a directory is most likely something else (a forecast list).
       if (r.report.parsed === 0 && f.fromDir) {
         note(`${f.path}: skipped (no observation columns recognised)`);

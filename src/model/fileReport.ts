@@ -44,6 +44,8 @@ export interface FileReport {
   columns?: Record<string, string>;
   /** Notes for the user (e.g. "year and month taken from file name"). */
   notes: string[];
+  /** Which rule gave the station ids (a station column, the METAR text, the file name...), when a reader says. */
+  stationIdRule?: string;
   /** Groups the METAR decoder did not recognise, counted. */
   unknownGroups?: number;
 }

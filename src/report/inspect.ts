@@ -39,6 +39,8 @@ export interface InspectFile {
   units: Record<string, string>;
   columns: Record<string, string>;
   notes: string[];
+  /** Which rule gave the station ids (station column, METAR text, file name or its leading token), when known. */
+  station_id_rule: string | null;
   /** The first issues kept by the reader (all are counted in `rejected_by_reason`). */
   issues: ParseIssue[];
   /** Stations with at least one observation from this file. */
@@ -82,6 +84,7 @@ export function buildInspect(reports: readonly FileReport[], series: readonly St
       units: { ...r.units },
       columns: { ...(r.columns ?? {}) },
       notes: [...r.notes],
+      station_id_rule: r.stationIdRule ?? null,
       issues: r.issues.map((i) => ({ ...i })),
       stations: here.map((d) => d.station),
       station_details: here,
@@ -128,6 +131,7 @@ export function inspectToTable(files: readonly InspectFile[], maxIssues = 5): st
     if (cols.length) row('columns', cols.join(', '));
     f.notes.forEach((n, i) => (i === 0 ? row('notes', n) : more(n)));
     if (f.stations.length) row('stations', f.stations.join(', '));
+    if (f.station_id_rule) row('ids from', f.station_id_rule);
     out.push('');
   }
   const seen = new Map<string, InspectStation>();
