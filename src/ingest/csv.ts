@@ -438,6 +438,12 @@ export class CsvCore {
     return { report: this.report, stationsSeen: this.stationsSeen, valueCounts: this.valueCounts, units: this.units };
   }
 
+  /** Record an assumption for the one-line summary (once per phrase). */
+  private assume(what: string): void {
+    const a = (this.report.assumed ??= []);
+    if (!a.includes(what)) a.push(what);
+  }
+
   private reject(line: number, reason: string, message: string, group?: string, column?: number): void {
     const issue = { file: this.report.file, line, reason, message } as Parameters<typeof addIssue>[1];
     if (group !== undefined) issue.group = group;
@@ -510,6 +516,7 @@ export class CsvCore {
         report.notes.push(`no station column; station id from the METAR text of each row, else "${this.defaultStation}" from ${rule}`);
       } else {
         report.stationIdRule = rule;
+        if (!this.opts.defaultStation) this.assume('station id from the file name');
         report.notes.push(`no station column; station id "${this.defaultStation}" taken from ${rule}`);
       }
     } else report.stationIdRule = `station column "${mapping.station!.header.trim()}"`;
@@ -536,18 +543,23 @@ export class CsvCore {
       const given = offsetMinutes !== undefined ? '--utc-offset' : zone !== undefined && zone.toUpperCase() !== 'UTC' ? '--tz' : null;
       zone = 'UTC';
       offsetMinutes = undefined;
+      this.assume('times UTC by convention');
       report.notes.push(
         `times without offset read as UTC (${utcBecause})` +
           (given ? `; ${given} not applied to them (it is for naive local times; map the column with --column to read it as local)` : '; map the time column with --column and give --tz if the file was exported in local time'),
       );
     }
     let standardTime = this.opts.standardTime;
+    if (utcBecause === null && offsetMinutes !== undefined) this.assume(`naive times at UTC${offsetMinutes < 0 ? '−' : '+'}${Math.floor(Math.abs(offsetMinutes) / 60)}${Math.abs(offsetMinutes) % 60 ? ':' + String(Math.abs(offsetMinutes) % 60).padStart(2, '0') : ''} (given)`);
+    else if (utcBecause === null && zone !== undefined) this.assume(`naive times in ${zone} (given)`);
     if (standardTime === undefined && /(^|[^a-z])lst([^a-z]|$)/.test(th)) {
       standardTime = true;
+      this.assume('local standard time all year');
       report.notes.push('times read as local standard time all year (the time column says LST, as in Environment and Climate Change Canada files)');
     }
     if (standardTime === undefined && isLcdHeaders(fields)) {
       standardTime = true;
+      this.assume('local standard time all year');
       report.notes.push('times read as local standard time all year (NCEI LCD convention)');
     }
     this.timeParser = makeTimeReader({
@@ -624,6 +636,8 @@ export class CsvCore {
       this.cols[f] = { field: f, index: c.index, unit: u.unit, conv: converter(u.unit), op: cv.op, k: cv.k, sentinels: sentinelKind(f, u.unit) };
       this.report.units[f] = u.unit;
       parts.push(`${f}=${u.unit} (${u.source})`);
+      if (u.source === 'convention') this.assume('units by convention');
+      else if (u.source === 'inferred' || u.source === 'default') this.assume('units from values');
     }
     if (parts.length) this.report.notes.push(`units: ${parts.join(', ')}`);
   }
