@@ -121,6 +121,7 @@ export function readIsdText(text: string, file: string, onObservation?: (o: Obse
       }
       report.units = { temperature: 'degC', dewpoint: 'degC', windSpeed: 'm/s', windDir: 'deg', seaLevelPressure: 'hPa' };
       report.notes.push('NCEI global-hourly (ISD) layout: packed fields decoded per the ISD format document; DATE is UTC');
+      report.stationIdRule = 'CALL_SIGN column, else STATION';
       continue;
     }
     if (badQuotes.has(r)) {

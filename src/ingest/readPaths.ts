@@ -235,6 +235,7 @@ export function readDataFiles(
   for (const f of dataFiles) {
     if (f.format === 'metar') {
       const r = readMetarBytes(f.bytes, f.path, { month: opts.month, onObservation });
+      r.report.stationIdRule ??= 'the station indicator of each METAR report';
       reports.push(r.report);
       if (r.report.parsed === 0 && r.report.rejectedByReason['no-year-month']) {
         note(`${f.path}: no year and month for the reports; pass --month YYYY-MM or use a dated file name`);
