@@ -34,7 +34,7 @@ const files = {
   plain: join(dir, 'XBEN_plain.csv'),
   gzip: join(dir, 'XBEN_gzip.csv.gz'),
   dateTime: join(dir, 'XBEN_datetime.csv'),
-  ymdhm: join(dir, 'XBEN_ymdhm.csv'),
+  ymdhm: join(dir, 'XBEN_ymdhm_utc.csv'), // naive parts: the file name says UTC
 };
 const plainText = single.join('\n') + '\n';
 writeFileSync(files.plain, plainText);
