@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Argv } from 'yargs';
-import { loadMappingFile, parseColumnOverride, UsageError, type LoadOptions } from '../src/index.js';
+import { buildInspect, loadMappingFile, parseColumnOverride, summaryLine, UsageError, type LoadOptions, type LoadResult } from '../src/index.js';
 
 /** Standard streams of one CLI run, injectable for in-process tests. */
 export interface CliIo {
@@ -141,4 +141,10 @@ export async function writeOutput(text: string, out: string | undefined, io: Cli
   } catch (e) {
     throw new Error(`${out}: cannot write the output file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
   }
+}
+
+/** The one-line summary of what was read, rejected and assumed (the line `inspect` ends with), on standard error unless --quiet. */
+export function printLoadSummary(result: LoadResult, quiet: boolean, io: CliIo): void {
+  if (quiet) return;
+  io.stderr(`fropa: ${summaryLine(buildInspect(result.reports, result.series, result.qc))}\n`);
 }

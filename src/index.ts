@@ -62,7 +62,7 @@ export { outputFolderFiles, writeOutputFolder, type OutputFile } from './report/
 export { eventsInPeriod, parsePeriodTime, periodOutsideData, selectStations } from './report/period.js';
 export { reportHtml } from './report/html/reportHtml.js';
 export type { ReportFile, ReportInput } from './report/html/reportHtml.js';
-export { buildInspect, inspectToTable, issueLine, noDataMessage } from './report/inspect.js';
+export { buildInspect, inspectToTable, issueLine, noDataMessage, summaryLine } from './report/inspect.js';
 export type { InspectFile, InspectStation } from './report/inspect.js';
 export { VERIFY_COLUMNS, verificationRecords, verificationToCsv, verificationToJson, verificationToTable } from './verify/format.js';
 export type { VerifyColumn, VerifyRecord, VerifyTableContext } from './verify/format.js';

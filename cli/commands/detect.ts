@@ -1,6 +1,6 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
 import { analyseSeries, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
-import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { inputArgs, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
 export function parseKinds(spec: unknown): Set<BoundaryKind> | null {
@@ -50,6 +50,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
+  printLoadSummary(result, Boolean(args.quiet), io);
   const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds });
   const stations = result.series.map((s) => s.station);
   const outDir = raw.outDir as string | undefined;

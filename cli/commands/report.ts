@@ -1,6 +1,6 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
 import { analyseSeries, CAUTION, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
-import { STDIN_TOKEN, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { STDIN_TOKEN, inputArgs, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
 
 /** The last value of `--from`/`--to` (undefined when absent) as epoch ms UTC; see parsePeriodTime. */
@@ -32,6 +32,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
+  printLoadSummary(result, Boolean(args.quiet), io);
   const series = selectStations(result.series, wanted);
   const outside = periodOutsideData(series, fromMs, toMs);
   if (outside) {

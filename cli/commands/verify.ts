@@ -9,7 +9,7 @@ import {
   analyseSeries, buildStationIndex, issueLine, loadPaths, readForecastsText, seriesForecasts, seriesSpans, verificationScoresToCsv, verificationToCsv, verificationToJson,
   verificationToTable, verifyForecasts, UsageError, noDataMessage, type CoveragePeriod, type FileReport, type ForecastPassage,
 } from '../../src/index.js';
-import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { inputArgs, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
 
 const last = (v: unknown) => (Array.isArray(v) ? v[v.length - 1] : v);
@@ -53,6 +53,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
+  printLoadSummary(result, Boolean(args.quiet), io);
   const { events } = analyseSeries(result.series, { ...dopts, network: false });
   const observedSpans = new Map<string, [number, number]>(result.series.filter((s) => s.length > 0).map((s) => [s.station, [s.timeMs[0]!, s.timeMs[s.length - 1]!]]));
   const forecasts: ForecastPassage[] = [];

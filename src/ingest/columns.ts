@@ -9,6 +9,7 @@
  * unit; then with punctuation removed; then with a unit suffix removed (`temp_f` → `temp` + °F).
  */
 import { parseUnitName, unitFromHeader, unitQuantity, UNIT_NAMES, type Quantity, type UnitName } from './units.js';
+import { timeColumnIndices, type TimeColumns } from './time.js';
 
 export const FIELDS = [
   'time',
@@ -30,6 +31,15 @@ export const FIELDS = [
   'rawReport',
   'utcOffset',
   'reportType',
+  // parts of a time spread over several columns (see TIME_PART_NAMES)
+  'date',
+  'timeOfDay',
+  'year',
+  'month',
+  'day',
+  'hour',
+  'minute',
+  'dayOfYear',
 ] as const;
 export type Field = (typeof FIELDS)[number];
 
@@ -119,6 +129,8 @@ known('dewpoint', 'degC', 'dwpc');
 known('relativeHumidity', '%', 'relh');
 known('windDir', 'deg', 'drct');
 known('windSpeed', 'kt', 'sknt');
+known('windSpeed', 'mph', 'sped'); // IEM ASOS download option "wind speed in mph"
+known('gust', 'mph', 'gust_mph');
 known('precip', 'in', 'p01i');
 known('precip', 'mm', 'p01m');
 known('altimeter', 'inHg', 'alti');
@@ -173,6 +185,23 @@ known('stationPressure', undefined, 'station_pressure', 'stn_pressure', 'pres', 
 known('seaLevelPressure', undefined, 'slp', 'sea_level_pressure', 'mean_sea_level_pressure', 'msl', 'pmsl', 'qff');
 known('altimeter', undefined, 'altimeter', 'altimeter_setting', 'qnh', 'alt_setting', 'altim');
 known('precip', undefined, 'precipitation', 'prcp', 'rain', 'precip_mm', 'rainfall', 'pcp');
+// Wind direction ("from", degrees true) and speeds with their unit in the name (common practice, no source);
+// a unit written in the header (`wind_speed_kmh`, `Wind Spd (km/h)`) wins over these conventions.
+known('windDir', 'deg', 'wind_from', 'wind_from_direction', 'wind_direction_from', 'wind_dir_from', 'dir_from', 'direction_from', 'from', 'wind_direction_deg', 'wdir_deg', 'wd_deg', 'direction', 'wind dir', 'dd');
+known('windSpeed', 'km/h', 'wind_speed_kmh', 'wind_kmh', 'wspd_kmh', 'ws_kmh', 'wind_speed_kph', 'wind_kph');
+known('windSpeed', 'mph', 'wind_speed_mph', 'wind_mph', 'wspd_mph', 'ws_mph', 'speed_mph');
+known('windSpeed', 'kt', 'wind_speed_knots', 'wind_kt', 'wind_kts', 'wind_knots', 'ws_kt', 'wspd_kts');
+known('windSpeed', 'm/s', 'wind_speed_mps', 'wind_mps', 'ws_ms', 'ws_mps', 'wspd_mps');
+known('windSpeed', undefined, 'speed', 'wind spd', 'wind_spd', 'windspd');
+known('gust', 'mph', 'gust_mph', 'wind_gust_mph');
+known('gust', 'km/h', 'gust_kmh', 'wind_gust_kmh');
+// Environment and Climate Change Canada hourly CSV (climate.weather.gc.ca bulk download; names from its
+// published column list, from memory): units are in the brackets of each header.
+known('time', undefined, 'date/time (lst)', 'date/time (utc)', 'date/time');
+known('station', undefined, 'climate id', 'climate_id');
+known('dewpoint', undefined, 'dew point temp', 'dew_point_temp', 'dewpoint_temp');
+known('stationPressure', undefined, 'stn press', 'stn_press');
+known('precip', undefined, 'precip. amount', 'precip amount', 'precip_amount');
 known('utcOffset', undefined, 'utc_offset', 'utcoffset', 'tz_offset', 'offset', 'gmt_offset', 'timezone_offset');
 
 // Conventional units are those of the source listed first for a name; a unit in the header always wins.
@@ -237,7 +266,10 @@ export function isLcdHeaders(headers: readonly string[]): boolean {
  * reader infers it from values).
  * @example mapColumns(['station', 'valid', 'tmpf']).mapping.temperature // { index: 2, header: 'tmpf', unit: 'degF', unitSource: 'header' }
  */
-export function mapColumns(headers: readonly string[], overrides: readonly ColumnOverride[] = []): { mapping: ColumnMapping; unmatched: string[]; notes: string[] } {
+export function mapColumns(
+  headers: readonly string[],
+  overrides: readonly ColumnOverride[] = [],
+): { mapping: ColumnMapping; unmatched: string[]; notes: string[]; timeColumns?: TimeColumns } {
   const mapping: ColumnMapping = {};
   const unmatched: string[] = [];
   const notes: string[] = [];
@@ -268,6 +300,28 @@ export function mapColumns(headers: readonly string[], overrides: readonly Colum
       mapping[o.field] = col;
   }
 
+  // A time spread over several columns, unless one column holds the whole time.
+  const partOf = (i: number): TimePartField | null => {
+    const o = overrides.find((x) => x.header.trim().toLowerCase() === lower[i]);
+    if (o) return (TIME_PARTS as readonly string[]).includes(o.field) ? (o.field as TimePartField) : null;
+    return timePartOf(trimmed[i]!);
+  };
+  const parts: Partial<Record<TimePartField, number>> = {};
+  let wholeTime = mapping.time !== undefined;
+  for (let i = 0; i < headers.length; i++) {
+    const part = partOf(i);
+    if (part !== null) {
+      if (parts[part] === undefined) parts[part] = i;
+    } else if (!taken.has(i) && matchHeader(trimmed[i]!)?.field === 'time') wholeTime = true;
+  }
+  const timeColumns = wholeTime ? null : timeColumnsFrom(parts);
+  if (timeColumns) {
+    const idx = timeColumnIndices(timeColumns);
+    for (const i of idx) taken.add(i);
+    mapping.time = { index: idx[0]!, header: headers[idx[0]!]! };
+    notes.push(`time read from ${idx.length} columns: ${idx.map((i) => trimmed[i]).join(' + ')}`);
+  }
+
   for (let i = 0; i < headers.length; i++) {
     if (taken.has(i)) continue;
     const m = matchHeader(trimmed[i]!);
@@ -294,12 +348,55 @@ export function mapColumns(headers: readonly string[], overrides: readonly Colum
     }
     mapping[m.field] = col;
   }
-  // A lone `date` next to a real time column is a date, not the time (e.g. `date,time` pairs are not joined).
-  if (mapping.time && mapping.time.header.trim().toLowerCase() === 'date' && trimmed.some((h) => h.toLowerCase() === 'time')) {
-    notes.push('separate date and time columns are not joined; combine them or map one full timestamp column');
-  }
   if (isLcdHeaders(trimmed)) notes.push('NCEI Local Climatological Data layout: DATE is local standard time (no DST)');
-  return { mapping, unmatched, notes };
+  return timeColumns ? { mapping, unmatched, notes, timeColumns } : { mapping, unmatched, notes };
+}
+
+/** The fields that are parts of a time spread over several columns. */
+export const TIME_PARTS = ['date', 'timeOfDay', 'year', 'month', 'day', 'hour', 'minute', 'dayOfYear'] as const satisfies readonly Field[];
+export type TimePartField = (typeof TIME_PARTS)[number];
+
+/**
+ * Header names of the parts of a time (lower-case, compared also without punctuation; common practice, no
+ * source, except `year,month,day,hour` of the nycflights weather tables, documented in their R help pages).
+ */
+const TIME_PART_NAMES: Record<TimePartField, string[]> = {
+  date: ['date', 'date_local', 'local_date', 'obs_date', 'date_utc', 'utc_date', 'date_lst', 'date_gmt', 'gmt_date', 'day_date'],
+  timeOfDay: ['time', 'time_local', 'local_time', 'obs_time', 'time_utc', 'utc_time', 'time_lst', 'time_gmt', 'gmt_time', 'hhmm', 'hour_minute', 'hrmn', 'clock'],
+  year: ['year', 'yr', 'yyyy'],
+  month: ['month', 'mon', 'mo'],
+  day: ['day', 'dd', 'dom', 'day_of_month', 'mday'],
+  hour: ['hour', 'hr', 'hh', 'hour_utc', 'hour_local', 'hour_lst', 'hour_gmt'],
+  minute: ['minute', 'min', 'minutes', 'mi'],
+  dayOfYear: ['doy', 'day_of_year', 'dayofyear', 'julian_day', 'jday', 'yday', 'julian'],
+};
+const TIME_PART_BY_KEY = new Map<string, TimePartField>();
+for (const [f, names] of Object.entries(TIME_PART_NAMES) as [TimePartField, string[]][]) {
+  for (const n of names) {
+    if (!TIME_PART_BY_KEY.has(n)) TIME_PART_BY_KEY.set(n, f);
+    const k = normaliseKey(n);
+    if (!TIME_PART_BY_KEY.has(k)) TIME_PART_BY_KEY.set(k, f);
+  }
+}
+
+/** Which part of a time a header names (`Date`, `time_local`, `Time (LST)`, `year`, `doy`...), or null. */
+export function timePartOf(header: string): TimePartField | null {
+  const h = header.trim().replace(/^\uFEFF/, '').toLowerCase();
+  const nb = stripBracket(h);
+  return TIME_PART_BY_KEY.get(h) ?? TIME_PART_BY_KEY.get(nb) ?? TIME_PART_BY_KEY.get(normaliseKey(nb)) ?? null;
+}
+
+/**
+ * How the time is assembled from the part columns found, in this order: a date and a time of day; year,
+ * month and day (with hour and minute, or a time of day as `hhmm`); year and day of year (likewise); else null.
+ * `dd` as a day is used only with year and month beside it (alone it is the WMO wind direction).
+ */
+function timeColumnsFrom(p: Partial<Record<TimePartField, number>>): TimeColumns | null {
+  const clock = p.hour !== undefined ? { hour: p.hour, ...(p.minute !== undefined ? { minute: p.minute } : {}) } : p.timeOfDay !== undefined ? { hhmm: p.timeOfDay } : {};
+  if (p.date !== undefined && p.timeOfDay !== undefined) return { kind: 'date-time', date: p.date, time: p.timeOfDay };
+  if (p.year !== undefined && p.month !== undefined && p.day !== undefined) return { kind: 'year-month-day', year: p.year, month: p.month, day: p.day, ...clock };
+  if (p.year !== undefined && p.dayOfYear !== undefined) return { kind: 'year-doy', year: p.year, doy: p.dayOfYear, ...clock };
+  return null;
 }
 
 /**

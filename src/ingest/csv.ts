@@ -44,9 +44,9 @@
  */
 import Papa from 'papaparse';
 import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from '../model/index.js';
-import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
+import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, TIME_PARTS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
-import { makeTimeReader, parseOffsetMinutes, type TimeReader } from './time.js';
+import { assembleTimeText, makeTimeReader, parseOffsetMinutes, timeColumnIndices, type TimeColumns, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
 import { weatherFlags } from './metar/weather.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
@@ -67,6 +67,8 @@ export interface CsvOptions {
   /** Fixed UTC offset (minutes east) for naive times; wins over zone. */
   offsetMinutes?: number;
   defaultStation?: string;
+  /** The station id a file without a station column takes from its name, and the rule that gave it (stations.ts). */
+  stationFromFileName?: (file: string) => { id: string; rule: string };
   /** Force a delimiter (default: detect among comma, tab, semicolon, pipe). */
   delimiter?: string;
   decodeRawReport?: RawReportDecoder;
@@ -257,6 +259,8 @@ export class CsvCore {
   private stationLen = -1;
   private stationTrimmed = '';
   private timeCol = NO_COL;
+  /** The time's columns when it is spread over several (date + time of day, year/month/day/hour...). */
+  private timeColumns: TimeColumns | null = null;
   private stationCol = NO_COL;
   private wxCol = NO_COL;
   private rawCol = NO_COL;
@@ -434,6 +438,12 @@ export class CsvCore {
     return { report: this.report, stationsSeen: this.stationsSeen, valueCounts: this.valueCounts, units: this.units };
   }
 
+  /** Record an assumption for the one-line summary (once per phrase). */
+  private assume(what: string): void {
+    const a = (this.report.assumed ??= []);
+    if (!a.includes(what)) a.push(what);
+  }
+
   private reject(line: number, reason: string, message: string, group?: string, column?: number): void {
     const issue = { file: this.report.file, line, reason, message } as Parameters<typeof addIssue>[1];
     if (group !== undefined) issue.group = group;
@@ -460,11 +470,13 @@ export class CsvCore {
     if (fields[0]!.charCodeAt(0) === 0xfeff) fields[0] = fields[0]!.slice(1);
     this.header = fields;
     this.headerLen = fields.length;
-    const { mapping, unmatched, notes } = mapColumns(fields, this.opts.overrides ?? []);
+    const { mapping, unmatched, notes, timeColumns } = mapColumns(fields, this.opts.overrides ?? []);
     this.mapping = mapping;
+    this.timeColumns = timeColumns ?? null;
     report.notes.push(...notes);
     report.columns = {};
     for (const [field, col] of Object.entries(mapping)) if (col) report.columns[col.header.trim()] = field;
+    if (timeColumns) for (const i of timeColumnIndices(timeColumns)) report.columns[fields[i]!.trim()] = 'time';
     if (unmatched.length) report.notes.push(`columns not used: ${unmatched.join(', ')}`);
 
     if (fields.length === 1) {
@@ -496,28 +508,63 @@ export class CsvCore {
     this.typeCol = mapping.reportType?.index ?? NO_COL;
     if (this.stationCol === NO_COL) {
       const base = file.replace(/^.*[\\/]/, '').replace(/\.[^.]*$/, '');
-      this.defaultStation = this.opts.defaultStation ?? base;
-      report.notes.push(`no station column; station id "${this.defaultStation}" taken from ${this.opts.defaultStation ? 'the option' : 'the file name'}`);
-    }
-    const th = mapping.time.header.trim().toLowerCase();
+      const fromName = this.opts.stationFromFileName?.(file);
+      this.defaultStation = this.opts.defaultStation ?? fromName?.id ?? base;
+      const rule = this.opts.defaultStation ? 'the option' : (fromName?.rule ?? 'the file name');
+      if (this.rawCol !== NO_COL) {
+        report.stationIdRule = `the METAR text of "${mapping.rawReport!.header.trim()}" (else ${rule})`;
+        report.notes.push(`no station column; station id from the METAR text of each row, else "${this.defaultStation}" from ${rule}`);
+      } else {
+        report.stationIdRule = rule;
+        if (!this.opts.defaultStation) this.assume('station id from the file name');
+        report.notes.push(`no station column; station id "${this.defaultStation}" taken from ${rule}`);
+      }
+    } else report.stationIdRule = `station column "${mapping.station!.header.trim()}"`;
+    const th = (timeColumns ? timeColumnIndices(timeColumns).map((i) => fields[i]!).join(' ') : mapping.time.header).trim().toLowerCase();
     const epoch = /epoch|unix/.test(th);
+    // Times that are UTC by convention (IEM `valid`, a time column or file name saying UTC) are never
+    // reinterpreted by --tz or --utc-offset: those apply to naive local times only. Mapping the time column
+    // yourself (--column valid=time) lifts the convention, for a file exported in local time.
     let zone = this.opts.zone;
-    if (zone === undefined && this.opts.offsetMinutes === undefined && this.offsetCol === NO_COL && (th === 'valid' || /(^|[^a-z])(utc|gmt|z)([^a-z]|$)/.test(th))) {
+    let offsetMinutes = this.opts.offsetMinutes;
+    const stem = file.replace(/^.*[\\/]/, '');
+    const timeMappedByUser = (this.opts.overrides ?? []).some((o) => o.field === 'time' || (TIME_PARTS as readonly string[]).includes(o.field));
+    const utcBecause =
+      timeMappedByUser || this.offsetCol !== NO_COL
+        ? null
+        : th === 'valid'
+          ? 'the Iowa Environmental Mesonet download default for `valid`'
+          : /(^|[^a-z])(utc|gmt|z)([^a-z]|$)/.test(th)
+            ? `the time column "${th}" says so`
+            : /(^|[^a-z0-9])utc([^a-z0-9]|$)/i.test(stem)
+              ? `the file name "${stem}" says so`
+              : null;
+    if (utcBecause !== null) {
+      const given = offsetMinutes !== undefined ? '--utc-offset' : zone !== undefined && zone.toUpperCase() !== 'UTC' ? '--tz' : null;
       zone = 'UTC';
+      offsetMinutes = undefined;
+      this.assume('times UTC by convention');
       report.notes.push(
-        th === 'valid'
-          ? 'times without offset read as UTC (the Iowa Environmental Mesonet download default for `valid`); give a zone if the file was exported in local time'
-          : `times without offset read as UTC (the time column "${mapping.time.header.trim()}" says so)`,
+        `times without offset read as UTC (${utcBecause})` +
+          (given ? `; ${given} not applied to them (it is for naive local times; map the column with --column to read it as local)` : '; map the time column with --column and give --tz if the file was exported in local time'),
       );
     }
     let standardTime = this.opts.standardTime;
+    if (utcBecause === null && offsetMinutes !== undefined) this.assume(`naive times at UTC${offsetMinutes < 0 ? '−' : '+'}${Math.floor(Math.abs(offsetMinutes) / 60)}${Math.abs(offsetMinutes) % 60 ? ':' + String(Math.abs(offsetMinutes) % 60).padStart(2, '0') : ''} (given)`);
+    else if (utcBecause === null && zone !== undefined) this.assume(`naive times in ${zone} (given)`);
+    if (standardTime === undefined && /(^|[^a-z])lst([^a-z]|$)/.test(th)) {
+      standardTime = true;
+      this.assume('local standard time all year');
+      report.notes.push('times read as local standard time all year (the time column says LST, as in Environment and Climate Change Canada files)');
+    }
     if (standardTime === undefined && isLcdHeaders(fields)) {
       standardTime = true;
+      this.assume('local standard time all year');
       report.notes.push('times read as local standard time all year (NCEI LCD convention)');
     }
     this.timeParser = makeTimeReader({
       ...(zone !== undefined ? { zone } : {}),
-      ...(this.opts.offsetMinutes !== undefined ? { offsetMinutes: this.opts.offsetMinutes } : {}),
+      ...(offsetMinutes !== undefined ? { offsetMinutes } : {}),
       standardTime: !!standardTime,
       epoch,
     });
@@ -589,6 +636,8 @@ export class CsvCore {
       this.cols[f] = { field: f, index: c.index, unit: u.unit, conv: converter(u.unit), op: cv.op, k: cv.k, sentinels: sentinelKind(f, u.unit) };
       this.report.units[f] = u.unit;
       parts.push(`${f}=${u.unit} (${u.source})`);
+      if (u.source === 'convention') this.assume('units by convention');
+      else if (u.source === 'inferred' || u.source === 'default') this.assume('units from values');
     }
     if (parts.length) this.report.notes.push(`units: ${parts.join(', ')}`);
   }
@@ -679,6 +728,7 @@ export class CsvCore {
   }
 
   private timeOf(line: number): number {
+    if (this.timeColumns !== null) return this.assembledTimeOf(line, this.timeColumns);
     if (this.rowFields === null && this.offsetCol === NO_COL) {
       // line mode: the common ISO form straight from the bytes
       const ms = this.timeParser!.readQuickBytes(this.rowBytes, this.cellStart[this.timeCol]!, this.cellEnd[this.timeCol]!);
@@ -693,6 +743,27 @@ export class CsvCore {
         return NaN;
       }
     }
+    return this.readTime(line, raw);
+  }
+
+  /** The time of a row whose time is spread over several columns: the cells joined, then read as one. */
+  private assembledTimeOf(line: number, t: TimeColumns): number {
+    const n = this.cells();
+    const idx = timeColumnIndices(t);
+    if (idx.every((i) => i >= n || MISSING.has(this.cell(i).trim().toLowerCase()))) {
+      this.reject(line, 'no-time', 'the time cells are empty or missing; the line is skipped', '', idx[0]! + 1);
+      return NaN;
+    }
+    const a = assembleTimeText(t, (i) => (i < n ? this.cell(i) : ''));
+    if ('error' in a) {
+      this.reject(line, 'bad-time', `${a.error}; the line is skipped`, idx.map((i) => (i < n ? this.cell(i).trim() : '')).join(' '), idx[0]! + 1);
+      return NaN;
+    }
+    return this.readTime(line, a.text);
+  }
+
+  /** A time text read with the file's reader, or the reader for the row's UTC-offset cell. */
+  private readTime(line: number, raw: string): number {
     let parser = this.timeParser!;
     if (this.offsetCol !== NO_COL) {
       const off = parseOffsetMinutes(this.offsetCol < this.cells() ? this.cell(this.offsetCol) : '');
@@ -828,7 +899,10 @@ export class CsvCore {
         o.weather = f;
       }
     }
-    if (this.rawCol !== NO_COL) this.mergeRaw(o, this.cell(this.rawCol), line);
+    if (this.rawCol !== NO_COL) {
+      this.mergeRaw(o, this.cell(this.rawCol), line);
+      station = o.station;
+    }
     if (o.latDeg === o.latDeg && o.lonDeg === o.lonDeg && !this.stationsSeen.has(station)) {
       this.stationsSeen.set(station, { latDeg: o.latDeg, lonDeg: o.lonDeg, elevationM: o.elevationM });
     }
@@ -882,6 +956,8 @@ export class CsvCore {
     if (o.pressureTrend === 0 && d.pressureTrend) o.pressureTrend = d.pressureTrend;
     if (d.corrected) o.corrected = true;
     if (d.remarks && d.remarks.length) o.remarks = d.remarks;
+    // no station column: the report's own station id
+    if (this.stationCol === NO_COL && !this.opts.defaultStation && typeof d.station === 'string' && /^[A-Z0-9]{3,5}$/.test(d.station)) o.station = d.station;
     if (this.typeCol === NO_COL && (d.source === 'METAR' || d.source === 'SPECI')) o.source = d.source;
   }
 }

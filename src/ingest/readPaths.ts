@@ -9,8 +9,10 @@ import { basename, extname, join } from 'node:path';
 import { newFileReport, UsageError, type FileReport, type Observation, type StationMeta } from '../model/index.js';
 import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarBytes } from './metar.js';
 import { readCsvBytes, type CsvOptions, type RawReportDecoded } from './csv.js';
-import { looksLikeStationsFile, readStationsText } from './stations.js';
+import { buildStationIndex, looksLikeStationsFile, readStationsText, stationFromFileName, type FileNameStation } from './stations.js';
 import type { ColumnOverride } from './columns.js';
+import { compressionOf, expandBytes } from './decompress.js';
+import { isIsdHeaders, readIsdText } from './isd.js';
 
 export interface ReadOptions {
   stationsFile?: string;
@@ -43,10 +45,12 @@ export interface DataFile {
   bytes: Buffer;
   format: SniffedFormat;
   fromDir: boolean;
+  /** The station id the file name gives (for files without a station column), with its rule. */
+  nameStation?: FileNameStation;
 }
 
 /** Extensions that are never observation files; skipped with a note inside directories. */
-const NOT_OBSERVATIONS = new Set(['.json', '.geojson', '.md', '.markdown', '.ts', '.js', '.mjs', '.html', '.svg', '.png', '.jpg', '.pdf', '.gz', '.zip', '.xz', '.ndjson']);
+const NOT_OBSERVATIONS = new Set(['.json', '.geojson', '.md', '.markdown', '.ts', '.js', '.mjs', '.html', '.svg', '.png', '.jpg', '.pdf', '.ndjson']);
 
 interface Candidate {
   path: string;
@@ -84,19 +88,19 @@ export function expandPaths(paths: readonly string[]): Candidate[] {
 }
 
 /** The first bytes of a file as text (for sniffing) and whether it holds a NUL byte. */
-function head(path: string, bytes = 8192): { text: string; binary: boolean } {
+function head(path: string, bytes = 8192): { text: string; binary: boolean; raw: Buffer } {
   const fd = openSync(path, 'r');
   try {
     const buf = Buffer.alloc(bytes);
     const n = readSync(fd, buf, 0, bytes, 0);
     const b = buf.subarray(0, n);
-    return { text: b.toString('utf8'), binary: b.includes(0) };
+    return { text: b.toString('utf8'), binary: b.includes(0), raw: b };
   } finally {
     closeSync(fd);
   }
 }
 
-export type SniffedFormat = 'metar' | 'csv' | 'stations' | 'empty' | 'binary' | 'unknown';
+export type SniffedFormat = 'metar' | 'csv' | 'isd' | 'stations' | 'empty' | 'binary' | 'unknown';
 
 /** Decide a file's format from its name and first bytes. */
 export function sniffFormat(name: string, sample: string, binary: boolean): SniffedFormat {
@@ -107,6 +111,7 @@ export function sniffFormat(name: string, sample: string, binary: boolean): Snif
   const delim = [',', '\t', ';', '|'].reduce((best, d) => (first.split(d).length > first.split(best).length ? d : best), ',');
   const headers = first.split(delim).map((h) => h.trim().replace(/^"|"$/g, ''));
   if (headers.length >= 3 && looksLikeStationsFile(headers)) return 'stations';
+  if (isIsdHeaders(headers)) return 'isd';
   if (headers.length >= 2) return 'csv';
   if (/\.(csv|tsv|txt)$/i.test(name) && /[;,\t]/.test(first)) return 'csv';
   return 'unknown';
@@ -157,7 +162,8 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
       try {
         const h = head(c.path);
         binary = h.binary;
-        bytes = binary ? Buffer.from(h.text, 'utf8') : readFileSync(c.path);
+        const kind = compressionOf(h.raw);
+        bytes = kind === 'gzip' || (kind === null && !binary) ? readFileSync(c.path) : kind !== null ? h.raw : Buffer.from(h.text, 'utf8');
       } catch {
         const r = newFileReport(c.path, 'unreadable');
         r.notes.push('cannot read the file (permissions?)');
@@ -166,10 +172,25 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
         continue;
       }
     }
+    // gzip is expanded (bounded); other compressed files are refused with a message (decompress.ts)
+    const expanded = expandBytes(bytes);
+    if ('reason' in expanded) {
+      const r = newFileReport(name, 'skipped');
+      r.rejectedByReason[expanded.reason] = 1;
+      r.rejected = 1;
+      r.issues.push({ file: name, line: 1, reason: expanded.reason, message: expanded.message });
+      reports.push(r);
+      note(`${name}: ${expanded.message}`);
+      continue;
+    }
+    if (expanded.kind === 'gzip') {
+      bytes = expanded.bytes;
+      binary = bytes.subarray(0, 8192).includes(0);
+    }
     // the first 8192 characters (at most 4 bytes each)
     const sample = bytes.toString('utf8', 0, Math.min(bytes.length, 32_768)).slice(0, 8192);
     if (c.path === '-') binary = sample.includes('\u0000');
-    const format = sniffFormat(basename(name), sample, binary);
+    const format = sniffFormat(basename(name).replace(/\.gz$/i, ''), sample, binary);
     if (format === 'stations') {
       if (opts.stationsFile) {
         note(`${name}: stations file ignored (--stations given)`);
@@ -183,6 +204,8 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
     }
     dataFiles.push({ path: name, bytes, format, fromDir: c.fromDir });
   }
+  const index = buildStationIndex(stations);
+  for (const f of dataFiles) if (f.path !== '(stdin)') f.nameStation = stationFromFileName(index, f.path);
   return { stations, reports, dataFiles };
 }
 
@@ -212,12 +235,18 @@ export function readDataFiles(
   for (const f of dataFiles) {
     if (f.format === 'metar') {
       const r = readMetarBytes(f.bytes, f.path, { month: opts.month, onObservation });
+      r.report.stationIdRule ??= 'the station indicator of each METAR report';
       reports.push(r.report);
       if (r.report.parsed === 0 && r.report.rejectedByReason['no-year-month']) {
         note(`${f.path}: no year and month for the reports; pass --month YYYY-MM or use a dated file name`);
       }
+    } else if (f.format === 'isd') {
+      const r = readIsdText(f.bytes.toString('utf8'), f.path, onObservation);
+      for (const [id, pos] of r.stationsSeen) positions.set(id, pos);
+      reports.push(r.report);
     } else if (f.format === 'csv') {
-      const r = readCsvBytes(f.bytes, f.path, csvSinkOpts, onObservation);
+      const nameStation = f.nameStation;
+      const r = readCsvBytes(f.bytes, f.path, nameStation ? { ...csvSinkOpts, stationFromFileName: () => nameStation } : csvSinkOpts, onObservation);
       // A CSV without a single observation inside a directory is most likely something else (a forecast list).
       if (r.report.parsed === 0 && f.fromDir) {
         note(`${f.path}: skipped (no observation columns recognised)`);

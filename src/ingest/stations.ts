@@ -184,3 +184,33 @@ export function resolveStation(index: StationIndex, id: string): ResolvedStation
   }
   return { id: t, via: 'unknown' };
 }
+
+/** A station id taken from a file name, and the rule that gave it (shown by `inspect`). */
+export interface FileNameStation {
+  id: string;
+  rule: string;
+}
+
+/**
+ * The station id a file name gives when the file has no station column: the file name without directory and
+ * extensions (`.gz` and one more); if that is not a known station, its leading token (split at `_`, `-`, `.`
+ * or a blank) when that is a listed id or alias, or resolves by the US ICAO prefix (`ORD_2019_LCD...` → `ORD`
+ * → `KORD`); with no match, the leading token when it looks like a station id (3 to 5 letters and digits,
+ * starting with a letter: ICAO Doc 7910 indicators are 4 letters, FAA identifiers 3 to 5 characters, from
+ * memory), else the whole stem. Ids are resolved later as every other id (resolveStation).
+ * @example stationFromFileName(buildStationIndex([{ id: 'KORD', aliases: ['ORD'], latDeg: 42, lonDeg: -88, elevationM: 200 }]), 'data/ORD_2019_LCD_localstd.csv').id // 'ORD'
+ */
+export function stationFromFileName(index: StationIndex, path: string): FileNameStation {
+  const stem = path.replace(/^.*[\\/]/, '').replace(/\.gz$/i, '').replace(/\.[^.]*$/, '');
+  const whole = resolveStation(index, stem);
+  if (whole.via === 'id' || whole.via === 'alias' || whole.via === 'icao-prefix') return { id: stem, rule: `file name "${stem}"${whole.id !== stem ? ` (${whole.via} of ${whole.id})` : ''}` };
+  const token = stem.split(/[_\-. ]+/)[0] ?? '';
+  if (token !== '' && token !== stem) {
+    const t = resolveStation(index, token);
+    if (t.via === 'id' || t.via === 'alias' || t.via === 'icao-prefix') {
+      return { id: token, rule: `leading token "${token}" of the file name${t.id !== token ? ` (${t.via === 'alias' ? 'alias' : 'ICAO prefix'} of ${t.id} in the stations file)` : ' (listed in the stations file)'}` };
+    }
+    if (/^[A-Za-z][A-Za-z0-9]{2,4}$/.test(token)) return { id: token, rule: `leading token "${token}" of the file name (looks like a station id; not in a stations file)` };
+  }
+  return { id: stem, rule: `file name "${stem}"` };
+}

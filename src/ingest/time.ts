@@ -456,3 +456,136 @@ export function parseOffsetMinutes(text: string): number {
   if (!Number.isFinite(v)) return NaN;
   return Math.abs(v) <= 18 ? Math.round(v * 60) : v;
 }
+
+/**
+ * Where the parts of a time stand when a file spreads one time over several columns (0-based column
+ * indices): a date column and a time-of-day column (`date_local,time_local`, `Date,Time`); year, month, day
+ * and optional hour, minute or `hhmm` columns (`year,month,day,hour` as in the nycflights weather tables);
+ * or year and day of year (`year,doy,hhmm`) with an optional hour, minute or `hhmm`.
+ */
+export type TimeColumns =
+  | { kind: 'date-time'; date: number; time: number }
+  | { kind: 'year-month-day'; year: number; month: number; day: number; hour?: number; minute?: number; hhmm?: number }
+  | { kind: 'year-doy'; year: number; doy: number; hour?: number; minute?: number; hhmm?: number };
+
+/** Column indices a TimeColumns reads (for messages and checks). */
+export function timeColumnIndices(t: TimeColumns): number[] {
+  if (t.kind === 'date-time') return [t.date, t.time];
+  const out = t.kind === 'year-month-day' ? [t.year, t.month, t.day] : [t.year, t.doy];
+  for (const k of [t.hour, t.minute, t.hhmm]) if (k !== undefined) out.push(k);
+  return out;
+}
+
+const pad2 = (n: number) => (n < 10 ? '0' : '') + n;
+
+/** A whole number written with digits only (blanks trimmed), else NaN. */
+function wholeNumber(text: string | undefined): number {
+  if (text === undefined) return NaN;
+  const t = text.trim();
+  return /^\d{1,4}(\.0+)?$/.test(t) ? Number(t) : NaN;
+}
+
+/**
+ * A date cell (`2024-02-27`, `2024/02/27`, `20240227`, US `02/27/2024`) → [year, month, day], or null.
+ * A cell that also carries a time of day is not a date cell (null).
+ */
+function dateCell(text: string): [number, number, number] | null {
+  const t = text.trim();
+  let m = /^(\d{4})[-/.](\d{1,2})[-/.](\d{1,2})$/.exec(t) ?? /^(\d{4})(\d{2})(\d{2})$/.exec(t);
+  if (m) return [Number(m[1]), Number(m[2]), Number(m[3])];
+  m = /^(\d{1,2})\/(\d{1,2})\/(\d{4})$/.exec(t);
+  if (m) return [Number(m[3]), Number(m[1]), Number(m[2])];
+  return null;
+}
+
+/**
+ * A time-of-day cell → minutes and seconds after midnight, or null: `13:05`, `13:05:30`, `1:05 PM`, `1305`,
+ * `105` and `5` as `hhmm` (ISD and many loggers write `hhmm` without leading zeros), `24:00` (the end of the
+ * day, ISO 8601-1:2019 §5.3.2).
+ */
+function timeOfDayCell(text: string): { h: number; mi: number; s: number } | null {
+  const t = text.trim();
+  let m = /^(\d{1,2}):(\d{2})(?::(\d{2})(?:\.\d+)?)?(?:\s*([AaPp])\.?[Mm]\.?)?$/.exec(t);
+  if (m) {
+    let h = Number(m[1]);
+    if (m[4]) {
+      if (h < 1 || h > 12) return null;
+      h = (h % 12) + (m[4].toLowerCase() === 'p' ? 12 : 0);
+    }
+    return { h, mi: Number(m[2]), s: m[3] ? Number(m[3]) : 0 };
+  }
+  m = /^(\d{1,4})$/.exec(t);
+  if (m) {
+    const v = Number(m[1]);
+    return { h: Math.floor(v / 100), mi: v % 100, s: 0 };
+  }
+  return null;
+}
+
+/**
+ * Join the cells of a time spread over several columns into one naive ISO text `YYYY-MM-DD HH:MM:SS` that
+ * the time reader reads (zone, offset and standard-time rules apply to it as to a single column), or an
+ * error message naming the cell that cannot be read. Rules: hour 24 with minute 0 is 00:00 of the next day
+ * (ISO 8601-1:2019 §5.3.2); a day of year runs 1 … 365 (366 in a leap year, Gregorian rule); an hour column
+ * alone means minute 0; no hour column means 00:00.
+ * @example assembleTimeText({ kind: 'date-time', date: 0, time: 1 }, ['2024-02-27', '8:51 PM']) // { text: '2024-02-27 20:51:00' }
+ * @example assembleTimeText({ kind: 'year-month-day', year: 0, month: 1, day: 2, hour: 3 }, ['2022', '1', '1', '0']) // { text: '2022-01-01 00:00:00' }
+ */
+export function assembleTimeText(t: TimeColumns, cells: readonly string[] | ((i: number) => string)): { text: string } | { error: string } {
+  const cell = typeof cells === 'function' ? cells : (i: number) => cells[i] ?? '';
+  let y: number;
+  let mo: number;
+  let d: number;
+  let h = 0;
+  let mi = 0;
+  let s = 0;
+  if (t.kind === 'date-time') {
+    const dc = cell(t.date);
+    const ymd = dateCell(dc);
+    // a date column that holds the whole time (`2019-01-01T00:51`) is read alone
+    if (!ymd && /^\d{4}-\d{2}-\d{2}[T ]\d{2}:\d{2}/.test(dc.trim())) return { text: dc.trim() };
+    if (!ymd) return { error: `date "${dc.trim()}" is not a date fropa reads (2024-02-27, 20240227 or 02/27/2024)` };
+    [y, mo, d] = ymd;
+    const tc = cell(t.time);
+    const tod = timeOfDayCell(tc);
+    if (!tod) return { error: `time of day "${tc.trim()}" is not a time fropa reads (13:05, 13:05:30, 1:05 PM or 1305)` };
+    ({ h, mi, s } = tod);
+  } else {
+    y = wholeNumber(cell(t.year));
+    if (!(y >= 1000)) return { error: `year "${cell(t.year).trim()}" is not a four-digit year` };
+    if (t.kind === 'year-month-day') {
+      mo = wholeNumber(cell(t.month));
+      d = wholeNumber(cell(t.day));
+      if (!(mo >= 1 && mo <= 12)) return { error: `month "${cell(t.month).trim()}" is not 1 to 12` };
+      if (!(d >= 1 && d <= 31)) return { error: `day "${cell(t.day).trim()}" is not 1 to 31` };
+    } else {
+      const doy = wholeNumber(cell(t.doy));
+      const leap = (y % 4 === 0 && y % 100 !== 0) || y % 400 === 0;
+      if (!(doy >= 1 && doy <= (leap ? 366 : 365))) return { error: `day of year "${cell(t.doy).trim()}" is not 1 to ${leap ? 366 : 365} in ${y}` };
+      const date = new Date(Date.UTC(y, 0, doy));
+      mo = date.getUTCMonth() + 1;
+      d = date.getUTCDate();
+    }
+    if (t.hhmm !== undefined) {
+      const tc = cell(t.hhmm);
+      const tod = timeOfDayCell(tc);
+      if (!tod) return { error: `time of day "${tc.trim()}" is not a time fropa reads (1305, 13:05)` };
+      ({ h, mi, s } = tod);
+    } else {
+      if (t.hour !== undefined) {
+        h = wholeNumber(cell(t.hour));
+        if (!(h >= 0 && h <= 24)) return { error: `hour "${cell(t.hour).trim()}" is not 0 to 24` };
+      }
+      if (t.minute !== undefined) {
+        mi = wholeNumber(cell(t.minute));
+        if (!(mi >= 0 && mi <= 59)) return { error: `minute "${cell(t.minute).trim()}" is not 0 to 59` };
+      }
+    }
+  }
+  if (h === 24 && mi === 0 && s === 0) {
+    const next = new Date(Date.UTC(y, mo - 1, d + 1));
+    [y, mo, d, h] = [next.getUTCFullYear(), next.getUTCMonth() + 1, next.getUTCDate(), 0];
+  }
+  if (!(h >= 0 && h <= 23 && mi >= 0 && mi <= 59 && s >= 0 && s <= 59)) return { error: `time of day ${h}:${pad2(mi)} is not a valid time` };
+  return { text: `${y}-${pad2(mo)}-${pad2(d)} ${pad2(h)}:${pad2(mi)}:${pad2(s)}` };
+}

@@ -34,10 +34,11 @@ export type UnitName =
   | 'm'
   | 'ft'
   | 'deg'
+  | 'deg10'
   | '%';
 
 /** Every unit name, in a stable order (for messages). */
-export const UNIT_NAMES: readonly UnitName[] = ['degC', 'degF', 'K', 'm/s', 'kt', 'mph', 'km/h', 'hPa', 'inHg', 'kPa', 'Pa', 'mm', 'in', 'm', 'ft', 'deg', '%'];
+export const UNIT_NAMES: readonly UnitName[] = ['degC', 'degF', 'K', 'm/s', 'kt', 'mph', 'km/h', 'hPa', 'inHg', 'kPa', 'Pa', 'mm', 'in', 'm', 'ft', 'deg', 'deg10', '%'];
 
 /** Kind of quantity a unit measures. `depth` = precipitation (canonical mm), `height` = elevation (canonical m). */
 export type Quantity = 'temperature' | 'speed' | 'pressure' | 'depth' | 'height' | 'angle' | 'fraction';
@@ -59,6 +60,7 @@ const QUANTITY: Record<UnitName, Quantity> = {
   m: 'height',
   ft: 'height',
   deg: 'angle',
+  deg10: 'angle',
   '%': 'fraction',
 };
 
@@ -89,6 +91,8 @@ const ALIASES: Record<string, UnitName> = {
   m: 'm', meters: 'm', metres: 'm', meter: 'm', metre: 'm',
   ft: 'ft', feet: 'ft', foot: 'ft',
   deg: 'deg', degrees: 'deg', '°': 'deg', degree: 'deg',
+  // tens of degrees: Environment and Climate Change Canada `Wind Dir (10s deg)` (27 = 270°)
+  '10s deg': 'deg10', '10s of degrees': 'deg10', 'tens of degrees': 'deg10', deg10: 'deg10', '10deg': 'deg10',
   '%': '%', pct: '%', percent: '%',
 };
 
@@ -153,6 +157,8 @@ export function conversionOf(unit: UnitName): { op: 0 | 1 | 2 | 3 | 4; k: number
       return { op: 3, k: INCH_M * 1000 };
     case 'ft':
       return { op: 3, k: FOOT_M };
+    case 'deg10':
+      return { op: 3, k: 10 };
     case 'degC':
     case 'm/s':
     case 'hPa':
@@ -200,6 +206,8 @@ export function fromCanonical(value: number, unit: UnitName): number {
       return value / (INCH_M * 1000);
     case 'ft':
       return value / FOOT_M;
+    case 'deg10':
+      return value / 10;
     default:
       if (!isUnitName(unit)) throw new TypeError(`fromCanonical: unknown unit ${JSON.stringify(unit)}`);
       return value;
@@ -209,7 +217,7 @@ export function fromCanonical(value: number, unit: UnitName): number {
 /** Exact header names whose unit is part of the name (Iowa Environmental Mesonet ASOS download names). */
 const NAME_UNITS: Record<string, UnitName> = {
   tmpf: 'degF', dwpf: 'degF', feel: 'degF', tmpc: 'degC', dwpc: 'degC', sknt: 'kt',
-  alti: 'inHg', p01i: 'in', p01m: 'mm', drct: 'deg', relh: '%', peak_wind_gust: 'kt',
+  alti: 'inHg', p01i: 'in', p01m: 'mm', drct: 'deg', relh: '%', peak_wind_gust: 'kt', sped: 'mph', gust_mph: 'mph',
 };
 
 /** Suffixes after `_`, `-`, `.` or a space that name a unit (`temp_f`, `wind_kt`, `pressure_inhg`). */

@@ -44,6 +44,10 @@ export interface FileReport {
   columns?: Record<string, string>;
   /** Notes for the user (e.g. "year and month taken from file name"). */
   notes: string[];
+  /** What the reader assumed rather than read (units by convention, UTC by convention, a zone, ids from the file name), one short phrase each. */
+  assumed?: string[];
+  /** Which rule gave the station ids (a station column, the METAR text, the file name...), when a reader says. */
+  stationIdRule?: string;
   /** Groups the METAR decoder did not recognise, counted. */
   unknownGroups?: number;
 }

@@ -39,6 +39,10 @@ export interface InspectFile {
   units: Record<string, string>;
   columns: Record<string, string>;
   notes: string[];
+  /** What the reader assumed rather than read (units by convention, UTC by convention, zone, ids from the file name). */
+  assumed: string[];
+  /** Which rule gave the station ids (station column, METAR text, file name or its leading token), when known. */
+  station_id_rule: string | null;
   /** The first issues kept by the reader (all are counted in `rejected_by_reason`). */
   issues: ParseIssue[];
   /** Stations with at least one observation from this file. */
@@ -82,6 +86,8 @@ export function buildInspect(reports: readonly FileReport[], series: readonly St
       units: { ...r.units },
       columns: { ...(r.columns ?? {}) },
       notes: [...r.notes],
+      station_id_rule: r.stationIdRule ?? null,
+      assumed: [...(r.assumed ?? [])],
       issues: r.issues.map((i) => ({ ...i })),
       stations: here.map((d) => d.station),
       station_details: here,
@@ -128,6 +134,7 @@ export function inspectToTable(files: readonly InspectFile[], maxIssues = 5): st
     if (cols.length) row('columns', cols.join(', '));
     f.notes.forEach((n, i) => (i === 0 ? row('notes', n) : more(n)));
     if (f.stations.length) row('stations', f.stations.join(', '));
+    if (f.station_id_rule) row('ids from', f.station_id_rule);
     out.push('');
   }
   const seen = new Map<string, InspectStation>();
@@ -140,10 +147,30 @@ export function inspectToTable(files: readonly InspectFile[], maxIssues = 5): st
     row('qc flags', d.qc_total === 0 ? 'none' : counts(d.qc_flags));
     out.push('');
   }
+  out.push(summaryLine(files));
+  return out.join('\n') + '\n';
+}
+
+/**
+ * The one-line summary of a load that `inspect` ends with and `detect`, `verify` and `report` print on standard
+ * error: files, lines parsed, rejected (by reason), stations, then what was assumed rather than read (with the
+ * number of files) and the duplicate times resolved.
+ * @example summaryLine(files) // '2 file(s), 120 line(s) parsed, 1 rejected (bad-time 1), 2 station(s); assumed: units by convention (2 files); 3 duplicate time(s)'
+ */
+export function summaryLine(files: readonly InspectFile[]): string {
   const parsed = files.reduce((a, f) => a + f.parsed, 0);
   const rejected = files.reduce((a, f) => a + f.rejected, 0);
-  out.push(`${files.length} file(s), ${parsed} line(s) parsed, ${rejected} rejected, ${seen.size} station(s)`);
-  return out.join('\n') + '\n';
+  const reasons: Record<string, number> = {};
+  for (const f of files) for (const [k, n] of Object.entries(f.rejected_by_reason)) reasons[k] = (reasons[k] ?? 0) + n;
+  const stations = new Map<string, number>();
+  for (const f of files) for (const d of f.station_details) if (!stations.has(d.station)) stations.set(d.station, d.duplicates);
+  const assumed = new Map<string, number>();
+  for (const f of files) for (const a of f.assumed ?? []) assumed.set(a, (assumed.get(a) ?? 0) + 1);
+  const dups = [...stations.values()].reduce((a, n) => a + n, 0);
+  let line = `${files.length} file(s), ${parsed} line(s) parsed, ${rejected} rejected${rejected > 0 ? ` (${counts(reasons)})` : ''}, ${stations.size} station(s)`;
+  if (assumed.size) line += `; assumed: ${[...assumed].map(([a, n]) => `${a} (${n} file${n === 1 ? '' : 's'})`).join(', ')}`;
+  if (dups > 0) line += `; ${dups} duplicate time(s)`;
+  return line;
 }
 
 /** `fropa: no usable data in …` plus the first issues and notes that say why, each naming its file. */

@@ -133,10 +133,10 @@ test('empty file: exit 1, "no usable data" naming the file', async () => {
   assert.match(d.stderr, `no usable data in ${empty}`);
 });
 
-test('binary file: exit 1, said to be binary', async () => {
+test('binary file: exit 1, said to be binary (a zip file by its magic bytes, PKWARE APPNOTE 4.3.7: refused as compressed)', async () => {
   const r = await cli(['detect', binary]);
   assert.is(r.code, 1);
-  assert.match(r.stderr, `${binary}: skipped (binary file`);
+  assert.match(r.stderr, `${binary}: zip compressed file: fropa expands only gzip`);
   assert.match(r.stderr, 'no usable data');
   assertNoStack(r.stderr);
 });

@@ -27,3 +27,12 @@ export type Register = (name: string, fn: () => void | Promise<void>) => void;
 export function realdataTest(test: Test, ...names: string[]): Register {
   return haveRealdata(...names) ? test : (name, fn) => test.skip(name, fn);
 }
+
+/** The longer real series for skill evaluation (`realskill/` of the shared folder), with a trailing separator. */
+export const REALSKILL_DIR = join(SHARED_DIR, 'realskill') + sep;
+
+/** `test`, or `test.skip` when the named files of the shared `realskill/` folder are absent. */
+export function realskillTest(test: Test, ...names: string[]): Register {
+  const have = existsSync(REALSKILL_DIR) && names.every((n) => existsSync(REALSKILL_DIR + n));
+  return have ? test : (name, fn) => test.skip(name, fn);
+}
