@@ -44,6 +44,8 @@ export interface FileReport {
   columns?: Record<string, string>;
   /** Notes for the user (e.g. "year and month taken from file name"). */
   notes: string[];
+  /** Physical lines that continue a multi-line record (a CSV quoted field holding line breaks). */
+  continuationLines?: number;
   /** Groups the METAR decoder did not recognise, counted. */
   unknownGroups?: number;
 }
