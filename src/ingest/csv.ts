@@ -336,7 +336,7 @@ export class CsvCore {
   }
 
   /** Lines rejected by checkQuotes (physical line → message). */
-  private quoteBad: Map<number, string> | null = null;
+  private quoteBad: Map<number, { reason: string; message: string }> | null = null;
   /** Physical line of the next row: rows whose quoted fields hold line breaks span several lines. */
   private nextLine = 1;
   /** The text holds a NUL byte: rows holding one are rejected (`control-bytes`). */
@@ -352,17 +352,27 @@ export class CsvCore {
     this.line++;
     const line = this.nextLine;
     let breaks = 0;
+    let continued = 0;
+    const quoteError = err !== undefined && (err.code === 'MissingQuotes' || err.code === 'InvalidQuotes');
     for (let i = 0; i < fields.length; i++) {
       const f = fields[i]!;
-      for (let k = f.indexOf('\n'); k >= 0; k = f.indexOf('\n', k + 1)) breaks++;
+      for (let k = f.indexOf('\n'); k >= 0; ) {
+        breaks++;
+        const next = f.indexOf('\n', k + 1);
+        // a continuation line counts when it holds text: in this field, or on the field's last line its closing
+        // quote (not to be trusted when papaparse found the quotes broken: the field may run to the end of the input)
+        const seg = f.slice(k + 1, next < 0 ? f.length : next);
+        if (seg.trim() !== '' || (next < 0 && (i < fields.length - 1 || !quoteError))) continued++;
+        k = next;
+      }
     }
     this.nextLine = line + 1 + breaks;
-    if (breaks > 0 && !(err !== undefined && (err.code === 'MissingQuotes' || err.code === 'InvalidQuotes'))) this.report.continuationLines = (this.report.continuationLines ?? 0) + breaks;
+    if (continued > 0) this.report.continuationLines = (this.report.continuationLines ?? 0) + continued;
     if (this.quoteBad !== null) {
       const why = this.quoteBad.get(line);
       if (why !== undefined) {
         this.report.lines++;
-        this.reject(line, 'bad-quotes', why);
+        this.reject(line, why.reason, why.message);
         return true;
       }
     }
@@ -960,8 +970,9 @@ export const MAX_RECORD_LINES = 50;
 export interface QuoteCheck {
   /** Text to parse: the lines of unclosed quotes blanked (their line ends kept, so numbering holds). */
   text: string;
-  /** Physical line (1-based) → message, for each line rejected for an unclosed quote. */
-  bad: Map<number, string>;
+  /** Physical line (1-based) → reason and message, for each line rejected (an unclosed quote, `bad-quotes`; a
+   * line of one empty quoted cell, which papaparse hands over like a blank line, `empty-row`). */
+  bad: Map<number, { reason: string; message: string }>;
   /** Physical lines that continue a multi-line record (counted, not rows of their own). */
   continued: number;
 }
@@ -975,7 +986,7 @@ export interface QuoteCheck {
  * reading starts again on the next line, so one stray quote never swallows the rows after it.
  */
 export function checkQuotes(text: string, delimiter: string): QuoteCheck {
-  const bad = new Map<number, string>();
+  const bad = new Map<number, { reason: string; message: string }>();
   let continued = 0;
   const n = text.length;
   const d = delimiter;
@@ -1053,13 +1064,21 @@ export function checkQuotes(text: string, delimiter: string): QuoteCheck {
       const nl = text.indexOf('\n', recStart);
       const lineEnd = nl < 0 ? n : nl;
       const col = openedAt >= 0 && openedAt < lineEnd ? openedAt - recStart + 1 : 1;
-      bad.set(recLine, `unclosed quote (") at character ${col} runs past the end of its line; line skipped, the rest of the file is read (close or remove the quote)`);
+      bad.set(recLine, {
+        reason: 'bad-quotes',
+        message: `unclosed quote (") at character ${col} runs past the end of its line; line skipped, the rest of the file is read (close or remove the quote)`,
+      });
       blanks.push([recStart, lineEnd > recStart && text.charCodeAt(lineEnd - 1) === 13 ? lineEnd - 1 : lineEnd]);
       pos = lineEnd + 1;
       line = recLine + 1;
       continue;
     }
     const blank = end === recStart || text.slice(recStart, end).trim() === '';
+    if (!blank && fields === 1 && lines === 1 && openedAt >= 0 && text.slice(recStart, end).replace(/"/g, '').trim() === '') {
+      // `""` alone: one empty cell, which would pass for a blank line
+      bad.set(recLine, { reason: 'empty-row', message: 'the line holds only an empty quoted cell; nothing to read' });
+      blanks.push([recStart, end > recStart && text.charCodeAt(end - 1) === 13 ? end - 1 : end]);
+    }
     if (headerFields < 0 && !blank) headerFields = fields;
     if (lines > 1) continued += lines - 1;
     pos = end + 1;
