@@ -981,7 +981,7 @@ export interface QuoteCheck {
  * Find quoted fields that run past the end of their line (RFC 4180 §2 rules 5–7, as papaparse reads them: a
  * field opens with `"` at its start; `""` inside is one quote; it closes at a `"` followed by blanks and then
  * the delimiter, a line end or the end of the text). A record whose quote stays open past its line is kept as
- * one multi-line record only when the quote closes within MAX_RECORD_LINES lines, the record then has the
+ * one multi-line record only when the quote closes within MAX_RECORD_LINES lines with no lone quote inside, the record then has the
  * header's number of fields, and no line wholly inside the quoted field holds a whole row's delimiters; otherwise its first line is an unclosed quote (rejected, `bad-quotes`) and
  * reading starts again on the next line, so one stray quote never swallows the rows after it.
  */
@@ -1005,6 +1005,7 @@ export function checkQuotes(text: string, delimiter: string): QuoteCheck {
     let ok = true;
     let end = -1; // index of the record's line end (or n)
     let openedAt = -1;
+    let invalid = false;
     while (p <= n) {
       // at a field start
       if (p < n && text.charCodeAt(p) === 34) {
@@ -1028,6 +1029,7 @@ export function checkQuotes(text: string, delimiter: string): QuoteCheck {
             closed = true;
             break;
           }
+          invalid = true; // a lone quote inside a quoted field (papaparse: InvalidQuotes)
           q = k + 1;
         }
         if (!closed) {
@@ -1048,7 +1050,7 @@ export function checkQuotes(text: string, delimiter: string): QuoteCheck {
       break;
     }
     if (ok && lines > 1) {
-      if (lines > MAX_RECORD_LINES || (headerFields >= 0 && fields !== headerFields)) ok = false;
+      if (invalid || lines > MAX_RECORD_LINES || (headerFields >= 0 && fields !== headerFields)) ok = false;
       else if (headerFields > 1 && dl > 0) {
         // a line wholly inside the quoted field that holds a whole row's delimiters is a row swallowed by a stray quote
         let a = text.indexOf('\n', recStart) + 1;
