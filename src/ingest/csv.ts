@@ -9,11 +9,13 @@
  *
  * Rules (decided here; tests pin them):
  * - The first non-blank row is the header (see columns.ts for names). Blank lines are skipped, not counted.
- * - Line numbers are 1-based row numbers; a quoted field holding a line break shifts later numbers.
+ * - Line numbers are 1-based physical lines; a quoted field holding line breaks makes one row of several lines
+ *   (the lines after the first are counted in `continuationLines`).
  * - A data line is either parsed (one Observation) or rejected with a reason (`addIssue`):
  *   `truncated` (fewer fields than the header), `no-time`, `bad-time`, `ambiguous-time`, `nonexistent-time`,
  *   `needs-zone`, `no-station`, `summary-row` (LCD daily/monthly summary), `no-time-column`,
- *   `no-data-columns`, `wrong-delimiter`, `bad-quotes`; whole-file reasons `empty`, `binary`.
+ *   `no-data-columns`, `wrong-delimiter`, `bad-quotes` (also an unclosed quote running past its line:
+ *   `checkQuotes`), `control-bytes` (a NUL byte in the line); whole-file reason `empty`.
  * - A bad VALUE never rejects its row: the value becomes NaN and is counted per field and reason
  *   (`bad-value`, `sentinel`, `missing`, flags `suspect`/`trace`/`estimated`...) in `valueCounts` and in a
  *   report note. Times going backwards within a station are accepted and counted (`time-backwards`); the
@@ -51,6 +53,8 @@ import { looksLikeStationsFile } from './stations.js';
 import { weatherFlags } from './metar/weather.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
 import { MAGNUS_AERK1996 } from '../physics/vapor.js';
+import { normalizeLineEnds, prepareText } from './text.js';
+import { DEFAULT_TIME_WINDOW, outOfWindowMessage, type TimeWindow } from './plausible.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
 export type RawReportDecoded = Partial<Observation> & { tempFromRemarks?: boolean };
@@ -84,6 +88,8 @@ export interface CsvOptions {
    * characters in place (same results, faster; see the module comment).
    */
   parser?: 'auto' | 'papaparse';
+  /** Accepted observation times (default DEFAULT_TIME_WINDOW, plausible.ts); rows outside are `time-out-of-range`. */
+  timeWindow?: Readonly<TimeWindow>;
 }
 
 export interface StationPosition {
@@ -164,9 +170,18 @@ function isSentinel(v: number, kind: number): boolean {
 
 const POW10 = [1, 1e1, 1e2, 1e3, 1e4, 1e5, 1e6, 1e7, 1e8, 1e9, 1e10, 1e11, 1e12, 1e13, 1e14, 1e15];
 
+/** Plain decimal notation, blanks around allowed: no hex (`0x10`), exponent (`1e5`), `Infinity` or digit separators. */
+const PLAIN_DECIMAL = /^\s*[-+]?(?:\d+\.?\d*|\.\d+)\s*$/;
+
+/** Number of a plain decimal text (PLAIN_DECIMAL), NaN for anything else (blank text included). */
+export function plainNumber(raw: string): number {
+  return PLAIN_DECIMAL.test(raw) ? +raw : NaN;
+}
+
 /**
  * Decimal text → number without allocation for the common `[-]digits[.digits]` form, falling back to
- * `Number()` otherwise (NaN for non-numbers, as `+text`). With at most 15 significant digits the mantissa
+ * `plainNumber` otherwise: only plain decimal notation is a number (`0x10`, `1e5`, `Infinity` are NaN, read
+ * as bad values; a station file never writes them, so they are damage, common practice, no source). With at most 15 significant digits the mantissa
  * and the power of ten are exact doubles, so mantissa / 10^k is correctly rounded: the same value `Number()` gives.
  */
 export function decimalValue(raw: string): number {
@@ -188,9 +203,9 @@ export function decimalValue(raw: string): number {
       digits++;
       if (frac >= 0) frac++;
     } else if (c === 46 && frac < 0) frac = 0;
-    else return +raw;
+    else return plainNumber(raw);
   }
-  if (digits === 0 || digits > 15) return +raw;
+  if (digits === 0 || digits > 15) return plainNumber(raw);
   const v = frac > 0 ? mant / POW10[frac]! : mant;
   return neg ? -v : v;
 }
@@ -273,12 +288,15 @@ export class CsvCore {
   private lastTime = new Map<string, number>();
   private decimalComma = false;
   private aborted = false;
+  /** Accepted observation times (plausible.ts). */
+  private readonly window: Readonly<TimeWindow>;
   /** The one Observation handed to `emit` when `opts.reuseObservation` is set. */
   private readonly scratch: Observation | null;
 
   constructor(file: string, opts: CsvOptions, emit: (o: Observation) => void) {
     this.report = newFileReport(file, 'csv');
     this.opts = opts;
+    this.window = opts.timeWindow ?? DEFAULT_TIME_WINDOW;
     this.emit = emit;
     if (opts.reuseObservation) {
       this.scratch = emptyObservation('', NaN, file, 0);
@@ -321,10 +339,53 @@ export class CsvCore {
     return true;
   }
 
+  /** Lines rejected by checkQuotes (physical line → message). */
+  private quoteBad: Map<number, { reason: string; message: string }> | null = null;
+  /** Physical line of the next row: rows whose quoted fields hold line breaks span several lines. */
+  private nextLine = 1;
+  /** The text holds a NUL byte: rows holding one are rejected (`control-bytes`). */
+  private checkNul = true;
+
+  /** Take what checkQuotes found (before the first row) and whether the text holds NUL bytes (default: check). */
+  useTextChecks(q: QuoteCheck | null, hasNul: boolean): void {
+    if (q) this.quoteBad = q.bad.size ? q.bad : null;
+    this.checkNul = hasNul;
+  }
+
   private handle(fields: string[], err: { code?: string; message?: string } | undefined): boolean {
-    const line = ++this.line;
+    this.line++;
+    const line = this.nextLine;
+    let breaks = 0;
+    let continued = 0;
+    const quoteError = err !== undefined && (err.code === 'MissingQuotes' || err.code === 'InvalidQuotes');
+    for (let i = 0; i < fields.length; i++) {
+      const f = fields[i]!;
+      for (let k = f.indexOf('\n'); k >= 0; ) {
+        breaks++;
+        const next = f.indexOf('\n', k + 1);
+        // a continuation line counts when it holds text: in this field, or on the field's last line its closing
+        // quote (not to be trusted when papaparse found the quotes broken: the field may run to the end of the input)
+        const seg = f.slice(k + 1, next < 0 ? f.length : next);
+        if (seg.trim() !== '' || (next < 0 && (i < fields.length - 1 || !quoteError))) continued++;
+        k = next;
+      }
+    }
+    this.nextLine = line + 1 + breaks;
+    if (continued > 0) this.report.continuationLines = (this.report.continuationLines ?? 0) + continued;
+    if (this.quoteBad !== null) {
+      const why = this.quoteBad.get(line);
+      if (why !== undefined) {
+        this.report.lines++;
+        this.reject(line, why.reason, why.message);
+        return true;
+      }
+    }
     if (fields.length === 1 && fields[0]!.trim() === '') return true;
     this.report.lines++;
+    if (this.checkNul && fields.some((f) => f.includes('\u0000'))) {
+      this.reject(line, 'control-bytes', 'the line holds NUL bytes (damaged); line skipped, the rest of the file is read');
+      return true;
+    }
     if (this.header === null) return this.setHeader(fields);
     if (this.fatal) {
       this.reject(line, this.fatal.reason, this.fatal.message);
@@ -384,7 +445,8 @@ export class CsvCore {
         cs[k] = a;
         ce[k] = e;
         this.cellCount = k + 1;
-        const line = ++this.line;
+        this.line++;
+        const line = this.nextLine++;
         // as handle(): a line of one blank cell is skipped
         if (k !== 0 || u.toString('utf8', p, e).trim() !== '') {
           this.report.lines++;
@@ -430,6 +492,8 @@ export class CsvCore {
       addIssue(this.report, { file: this.report.file, line: 1, reason: 'empty', message: 'the file has no header and no data; check the file' });
     }
     if (this.pending) this.decideUnits();
+    const cont = this.report.continuationLines;
+    if (cont) this.report.notes.push(`${cont} line(s) continue a quoted field of the row above (multi-line rows; line numbers are physical lines)`);
     for (const [key, c] of this.counters) {
       const [reason, field] = key.split(':');
       this.valueCounts[key] = c.count;
@@ -461,12 +525,6 @@ export class CsvCore {
   private setHeader(fields: string[]): boolean {
     const report = this.report;
     const file = report.file;
-    if (fields.some((f) => f.includes('\u0000'))) {
-      this.aborted = true;
-      this.header = [];
-      addIssue(report, { file, line: this.line, reason: 'binary', message: 'the file holds NUL bytes: not a text CSV (decompress or export it as text)' });
-      return false;
-    }
     if (fields[0]!.charCodeAt(0) === 0xfeff) fields[0] = fields[0]!.slice(1);
     this.header = fields;
     this.headerLen = fields.length;
@@ -611,7 +669,7 @@ export class CsvCore {
       const values = new Float64Array(pending.length);
       for (let i = 0; i < pending.length; i++) {
         const raw = pending[i]!.fields[c.index];
-        values[i] = raw === undefined || raw.trim() === '' ? NaN : Number(raw);
+        values[i] = raw === undefined ? NaN : plainNumber(raw);
       }
       const inf = inferUnit(f, values);
       this.units[f] = { unit: inf.unit, source: inf.ambiguous ? 'default' : 'inferred', why: inf.why };
@@ -805,6 +863,11 @@ export class CsvCore {
     }
     const timeMs = this.timeOf(line);
     if (timeMs !== timeMs) return;
+    const w = this.window;
+    if (!(timeMs >= w.fromMs && timeMs < w.toMs)) {
+      this.reject(line, 'time-out-of-range', outOfWindowMessage(timeMs, w), this.cell(this.timeCol), this.timeCol + 1);
+      return;
+    }
     let station = this.defaultStation;
     if (this.stationCol !== NO_COL) {
       if (this.rowFields === null) {
@@ -976,6 +1039,143 @@ const VALUE_NOTE: Record<string, string> = {
   'raw-report-error': '; raw report decoder failed',
 };
 
+/** A quoted field may hold line breaks for at most this many lines (common practice, no source). */
+export const MAX_RECORD_LINES = 50;
+
+/** What `checkQuotes` found: lines to blank and report, and where each record starts. */
+export interface QuoteCheck {
+  /** Text to parse: the lines of unclosed quotes blanked (their line ends kept, so numbering holds). */
+  text: string;
+  /** Physical line (1-based) → reason and message, for each line rejected (an unclosed quote, `bad-quotes`; a
+   * line of one empty quoted cell, which papaparse hands over like a blank line, `empty-row`). */
+  bad: Map<number, { reason: string; message: string }>;
+  /** Physical lines that continue a multi-line record (counted, not rows of their own). */
+  continued: number;
+}
+
+/**
+ * Find quoted fields that run past the end of their line (RFC 4180 §2 rules 5–7, as papaparse reads them: a
+ * field opens with `"` at its start; `""` inside is one quote; it closes at a `"` followed by blanks and then
+ * the delimiter, a line end or the end of the text). A record whose quote stays open past its line is kept as
+ * one multi-line record only when the quote closes within MAX_RECORD_LINES lines with no lone quote inside, the record then has the
+ * header's number of fields, and no line wholly inside the quoted field holds a whole row's delimiters; otherwise its first line is an unclosed quote (rejected, `bad-quotes`) and
+ * reading starts again on the next line, so one stray quote never swallows the rows after it.
+ */
+export function checkQuotes(text: string, delimiter: string): QuoteCheck {
+  const bad = new Map<number, { reason: string; message: string }>();
+  let continued = 0;
+  const n = text.length;
+  const d = delimiter;
+  const dl = d.length;
+  let headerFields = -1;
+  let pos = 0;
+  let line = 1;
+  const blanks: [number, number][] = [];
+  while (pos < n) {
+    // one record from pos, starting on physical line `line`
+    const recStart = pos;
+    const recLine = line;
+    let fields = 1;
+    let p = pos;
+    let lines = 1;
+    let ok = true;
+    let end = -1; // index of the record's line end (or n)
+    let openedAt = -1;
+    let invalid = false;
+    while (p <= n) {
+      // at a field start
+      if (p < n && text.charCodeAt(p) === 34) {
+        openedAt = p;
+        let q = p + 1;
+        let closed = false;
+        for (;;) {
+          const k = text.indexOf('"', q);
+          // line ends crossed before the next quote
+          const stop = k < 0 ? n : k;
+          for (let j = text.indexOf('\n', q); j >= 0 && j < stop; j = text.indexOf('\n', j + 1)) lines++;
+          if (k < 0 || lines > MAX_RECORD_LINES) break;
+          if (text.charCodeAt(k + 1) === 34) {
+            q = k + 2;
+            continue;
+          }
+          let r = k + 1;
+          while (r < n && (text.charCodeAt(r) === 32 || text.charCodeAt(r) === 9)) r++;
+          if (r >= n || text.startsWith(d, r) || text.charCodeAt(r) === 10 || (text.charCodeAt(r) === 13 && text.charCodeAt(r + 1) === 10)) {
+            p = r;
+            closed = true;
+            break;
+          }
+          invalid = true; // a lone quote inside a quoted field (papaparse: InvalidQuotes)
+          q = k + 1;
+        }
+        if (!closed) {
+          ok = false;
+          break;
+        }
+      }
+      // unquoted rest of the field: to the delimiter or the line end
+      const nl = text.indexOf('\n', p);
+      const lineEnd = nl < 0 ? n : nl;
+      const dd = dl ? text.indexOf(d, p) : -1;
+      if (dd >= 0 && dd < lineEnd) {
+        fields++;
+        p = dd + dl;
+        continue;
+      }
+      end = lineEnd;
+      break;
+    }
+    if (ok && lines > 1) {
+      if (invalid || lines > MAX_RECORD_LINES || (headerFields >= 0 && fields !== headerFields)) ok = false;
+      else if (headerFields > 1 && dl > 0) {
+        // a line wholly inside the quoted field that holds a whole row's delimiters is a row swallowed by a stray quote
+        let a = text.indexOf('\n', recStart) + 1;
+        for (let b = text.indexOf('\n', a); ok && b >= 0 && b < end; a = b + 1, b = text.indexOf('\n', a)) {
+          let k = 0;
+          for (let j = text.indexOf(d, a); j >= 0 && j < b; j = text.indexOf(d, j + dl)) k++;
+          if (k >= headerFields - 1) ok = false;
+        }
+      }
+    }
+    if (!ok) {
+      // reject the first line only; read on from the next
+      const nl = text.indexOf('\n', recStart);
+      const lineEnd = nl < 0 ? n : nl;
+      const col = openedAt >= 0 && openedAt < lineEnd ? openedAt - recStart + 1 : 1;
+      bad.set(recLine, {
+        reason: 'bad-quotes',
+        message: `unclosed quote (") at character ${col} runs past the end of its line; line skipped, the rest of the file is read (close or remove the quote)`,
+      });
+      blanks.push([recStart, lineEnd > recStart && text.charCodeAt(lineEnd - 1) === 13 ? lineEnd - 1 : lineEnd]);
+      pos = lineEnd + 1;
+      line = recLine + 1;
+      continue;
+    }
+    const blank = end === recStart || text.slice(recStart, end).trim() === '';
+    if (!blank && fields === 1 && lines === 1 && openedAt >= 0 && text.slice(recStart, end).replace(/"/g, '').trim() === '') {
+      // `""` alone: one empty cell, which would pass for a blank line
+      bad.set(recLine, { reason: 'empty-row', message: 'the line holds only an empty quoted cell; nothing to read' });
+      blanks.push([recStart, end > recStart && text.charCodeAt(end - 1) === 13 ? end - 1 : end]);
+    }
+    if (headerFields < 0 && !blank) headerFields = fields;
+    if (lines > 1) continued += lines - 1;
+    pos = end + 1;
+    line = recLine + lines;
+  }
+  let out = text;
+  if (blanks.length) {
+    const parts: string[] = [];
+    let at = 0;
+    for (const [a, b] of blanks) {
+      parts.push(text.slice(at, a));
+      at = b;
+    }
+    parts.push(text.slice(at));
+    out = parts.join('');
+  }
+  return { text: out, bad, continued };
+}
+
 /** papaparse options in chunk mode (`chunk` is not in the synchronous `ParseConfig` type). */
 type ChunkConfig = Papa.ParseConfig<string[]> & {
   chunk: (results: Papa.ParseResult<string[]>, parser: Papa.Parser) => void;
@@ -1080,11 +1280,17 @@ export function readCsvText(
 ): CsvResult & { observations: Observation[] } {
   const observations: Observation[] = [];
   const core = new CsvCore(file, opts, onObservation ?? ((o) => observations.push(o)));
-  const nul = text.slice(0, 8192).indexOf('\u0000');
-  if (nul >= 0) {
-    core.row(['\u0000']);
-    return { ...core.finish(), observations };
-  }
+  if (text.charCodeAt(0) === 0xfeff) text = text.slice(1);
+  const ends = normalizeLineEnds(text);
+  text = ends.text;
+  if (ends.note !== null) core.report.notes.push(ends.note);
+  const hasQuote = text.indexOf('"') >= 0;
+  if (hasQuote && text.trim() !== '') {
+    // one stray quote must not swallow the rows after it
+    const q = checkQuotes(text, opts.delimiter ?? guessFormat(text, opts).delimiter);
+    core.useTextChecks(q, text.indexOf('\u0000') >= 0);
+    text = q.text;
+  } else core.useTextChecks(null, text.indexOf('\u0000') >= 0);
   if (text.trim() !== '') {
     const config = papaConfig(opts, core);
     if (text.length <= TEXT_BLOCK) Papa.parse<string[]>(text, config as Papa.ParseConfig<string[]>);
@@ -1114,23 +1320,29 @@ export function readCsvBytes(
   opts: CsvOptions = {},
   onObservation?: (o: Observation) => void,
 ): CsvResult & { observations: Observation[] } {
-  const u = Buffer.isBuffer(bytes) ? bytes : Buffer.from(bytes.buffer, bytes.byteOffset, bytes.byteLength);
-  const bom = u[0] === 0xef && u[1] === 0xbb && u[2] === 0xbf ? 3 : 0;
+  // not UTF-8 → Windows-1252; BOM dropped; lone CRs and mixed line ends made LF (text.ts)
+  const prep = prepareText(bytes);
+  const u = prep.bytes;
+  const withNotes = <T extends { report: FileReport }>(r: T): T => {
+    if (prep.notes.length) r.report.notes.unshift(...prep.notes);
+    return r;
+  };
+  const bom = 0;
   // the text path's checks: NUL in the first 8192 characters; a text that is not blank (first printable byte is ASCII)
   let first = bom;
   while (first < u.length && u[first]! <= 32) first++;
-  const plain = opts.parser !== 'papaparse' && u.length - bom > GUESS_PREFIX && first < u.length && u[first]! < 128 && u.indexOf(34) < 0;
-  if (plain && u.toString('utf8', 0, 32_768).slice(0, 8192).indexOf('\u0000') < 0) {
+  const plain = opts.parser !== 'papaparse' && u.length - bom > GUESS_PREFIX && first < u.length && u[first]! < 128 && u.indexOf(34) < 0 && u.indexOf(0) < 0;
+  if (plain) {
     const prefix = u.toString('utf8', bom, bom + 4 * GUESS_PREFIX);
     const g = prefix.length > GUESS_PREFIX ? guessFromPrefix(prefix.slice(0, GUESS_PREFIX), opts) : null;
     if (g && lineModeFits(g)) {
       const observations: Observation[] = [];
       const core = new CsvCore(file, opts, onObservation ?? ((o) => observations.push(o)));
       core.scanBytes(u, bom, g.newline!, g.delimiter);
-      return { ...core.finish(), observations };
+      return withNotes({ ...core.finish(), observations });
     }
   }
-  return readCsvText(u.toString('utf8'), file, opts, onObservation);
+  return withNotes(readCsvText(u.toString('utf8'), file, opts, onObservation));
 }
 
 /**

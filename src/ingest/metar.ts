@@ -4,11 +4,13 @@
  * Code forms: WMO-No. 306 Manual on Codes FM 15 METAR / FM 16 SPECI; US remarks FMH-1 ch. 12.
  */
 import { addIssue, emptyObservation, newFileReport, type FileReport, type Observation, type ParseIssue } from '../model/index.js';
-import { archiveStampInto, civilFromDays, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
+import { archiveStampInto, civilFromDays, daysInMonth, parseMonthOption, yearMonthFromFileName, type ArchiveStamp, type MonthRef } from './metar/calendar.js';
 import { decodeInto, type DecodeRef } from './metar/decodeMetar.js';
 import { newMetarReport, type MetarReport } from './metar/metarReport.js';
 import { decodeBytesInto } from './metar/byteMetar.js';
 import { MS_PER_DAY } from '../physics/constants.js';
+import { prepareText } from './text.js';
+import { DEFAULT_TIME_WINDOW, outOfWindowMessage, type TimeWindow } from './plausible.js';
 
 export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';
 export type { MetarReport, SkyLayer } from './metar/decodeMetar.js';
@@ -108,14 +110,18 @@ export function readMetarBytes(
   const observations: Observation[] = [];
   const sink = opts.onObservation;
   let report: FileReport;
+  // not UTF-8 → Windows-1252; BOM dropped; lone CRs and mixed line ends made LF (text.ts)
+  const prep = prepareText(bytes);
+  bytes = prep.bytes;
   if (sink) {
     const o = emptyObservation('', NaN, file, 0);
     o.remarks = undefined;
-    report = scanMetar(bytes, file, opts.month, (r, line) => {
+    report = scanMetar(bytes, file, opts.month, opts.timeWindow ?? DEFAULT_TIME_WINDOW, (r, line) => {
       fillObservation(r, line, o);
       sink(o);
     });
-  } else report = scanMetar(bytes, file, opts.month, (r, line) => observations.push(metarToObservation(r, file, line)));
+  } else report = scanMetar(bytes, file, opts.month, opts.timeWindow ?? DEFAULT_TIME_WINDOW, (r, line) => observations.push(metarToObservation(r, file, line)));
+  if (prep.notes.length) report.notes.unshift(...prep.notes);
   return { observations, report };
 }
 
@@ -128,6 +134,8 @@ export interface MetarReadOptions {
    * reused for the next report: copy what you keep (e.g. `SeriesBuilder.add`); its `remarks` array is not reused.
    */
   onObservation?: (o: Observation) => void;
+  /** Accepted report times (default DEFAULT_TIME_WINDOW, plausible.ts); reports outside are `time-out-of-range`. */
+  timeWindow?: Readonly<TimeWindow>;
 }
 
 /** Write a decoded report into a reused Observation (the fields metarToObservation sets). */
@@ -153,7 +161,13 @@ function fillObservation(r: MetarReport, line: number, o: Observation): void {
 }
 
 /** The line loop of readMetarBytes: calls `emit` with each usable report (r is reused). */
-function scanMetar(u: Uint8Array, file: string, month: string | undefined, emit: (r: MetarReport, line: number) => void): FileReport {
+function scanMetar(
+  u: Uint8Array,
+  file: string,
+  month: string | undefined,
+  window: Readonly<TimeWindow>,
+  emit: (r: MetarReport, line: number) => void,
+): FileReport {
   const report = newFileReport(file, 'metar');
   let unknownGroups = 0;
   // Year/month sources other than archive stamps.
@@ -211,6 +225,16 @@ function scanMetar(u: Uint8Array, file: string, month: string | undefined, emit:
     ref.column0 = 0;
     const stamped1 = u[a]! <= 57 && archiveStampInto(u, a, b, st);
     let start = a;
+    if (stamped1 && st.day > daysInMonth(st.year, st.month)) {
+      addIssue(report, {
+        file,
+        line: lineNo,
+        reason: 'bad-stamp',
+        message: `archive stamp day ${st.day} does not exist in ${st.year}-${String(st.month).padStart(2, '0')}; fix the stamp`,
+        column: 1,
+      });
+      continue;
+    }
     if (stamped1) {
       ref.year = st.year;
       ref.month = st.month;
@@ -243,12 +267,34 @@ function scanMetar(u: Uint8Array, file: string, month: string | undefined, emit:
     // then decoded as text by the general decoder (same results either way).
     let is: ParseIssue | null = null;
     if (!decodeBytesInto(r, u, start, b, ref)) {
+      // the byte decoder gives up on control bytes: a damaged line is rejected here, the rest read
+      let ctl = -1;
+      for (let i = a; i < b; i++) {
+        const c = u[i]!;
+        if ((c < 32 && c !== 9 && c !== 11 && c !== 12) || c === 127) {
+          ctl = i;
+          break;
+        }
+      }
+      if (ctl >= 0) {
+        addIssue(report, {
+          file,
+          line: lineNo,
+          reason: 'control-bytes',
+          message: `the line holds a ${u[ctl] === 0 ? 'NUL' : 'control'} byte at character ${ctl - a + 1} (damaged); line skipped, the rest of the file is read`,
+        });
+        continue;
+      }
       const line = buf.toString('utf8', a, b);
       const s0 = start - a; // the stamp and the blanks before it are ASCII: byte and character offsets agree
       is = decodeInto(r, line, s0, line.length, ref, true);
     }
     if (is) {
       addIssue(report, is);
+      continue;
+    }
+    if (!(r.timeMs >= window.fromMs && r.timeMs < window.toMs)) {
+      addIssue(report, { file, line: lineNo, reason: 'time-out-of-range', message: outOfWindowMessage(r.timeMs, window) });
       continue;
     }
     unknownGroups += r.unknownGroups.length;

@@ -385,6 +385,8 @@ export function makeTimeReader(opts: TimeOptions = {}): TimeReader {
       dayMo = p.mo;
       dayD = p.d;
       dayMs = Date.UTC(p.y, p.mo - 1, p.d);
+      // Date.UTC reads years 0–99 as 1900–1999 (ECMA-262 §21.4.3.4 MakeFullYear); year 0001 is year 1
+      if (p.y >= 0 && p.y <= 99) dayMs = new Date(dayMs).setUTCFullYear(p.y);
     }
     const wall = dayMs + p.h * MS_PER_HOUR + p.mi * MS_PER_MINUTE + p.s * 1000 + p.ms;
     if (!Number.isNaN(p.offset)) return wall - p.offset * MS_PER_MINUTE;

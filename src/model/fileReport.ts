@@ -48,6 +48,8 @@ export interface FileReport {
   assumed?: string[];
   /** Which rule gave the station ids (a station column, the METAR text, the file name...), when a reader says. */
   stationIdRule?: string;
+  /** Physical lines that continue a multi-line record (a CSV quoted field holding line breaks). */
+  continuationLines?: number;
   /** Groups the METAR decoder did not recognise, counted. */
   unknownGroups?: number;
 }

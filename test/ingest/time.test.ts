@@ -115,7 +115,7 @@ test('parseOffsetMinutes() reads hh:mm, ±hhmm, hours and minutes', () => {
 
 // ECMAScript Date.UTC (ECMA-262 §21.4.3.4, MakeDay/MakeTime) is the reference for the calendar arithmetic;
 // the text forms cover the quick path (`YYYY-MM-DD HH:MM`, `T`, `Z`) and its neighbours that take the general one.
-test('makeTimeReader() gives Date.UTC for every YYYY-MM-DD[ T]HH:MM[Z][:SS] text, valid or not', () => {
+test('makeTimeReader() gives the proleptic Gregorian UTC time (Date.UTC, years 0–99 as written) for every YYYY-MM-DD[ T]HH:MM[Z][:SS] text, valid or not', () => {
   const reader = makeTimeReader({ zone: 'UTC' });
   const p2 = (v: number) => String(v).padStart(2, '0');
   fc.assert(
@@ -135,7 +135,9 @@ test('makeTimeReader() gives Date.UTC for every YYYY-MM-DD[ T]HH:MM[Z][:SS] text
         const got = reader.read(text);
         if (!valid) return Number.isNaN(got);
         const s = tail === ':07' ? 7 : 0;
-        return got === Date.UTC(y, mo - 1, d, h, mi, s);
+        // Date.UTC reads years 0–99 as 1900–1999 (ECMA-262 §21.4.3.4 MakeFullYear); setUTCFullYear takes the year as given
+        const want = new Date(Date.UTC(2000, 0, 1)).setUTCFullYear(y, mo - 1, d) + ((h * 60 + mi) * 60 + s) * 1000;
+        return got === want;
       },
     ),
     { numRuns: 3000, seed: 7 },

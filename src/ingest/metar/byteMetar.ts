@@ -9,7 +9,7 @@
  */
 import { WX } from '../../model/index.js';
 import { reportTimeMs } from './calendar.js';
-import { knownStation, internStation, type DecodeRef } from './decodeMetar.js';
+import { isNotStationKey, knownStation, internStation, type DecodeRef } from './decodeMetar.js';
 import { resetReport, type MetarReport } from './metarReport.js';
 import {
   beginEnd,
@@ -402,7 +402,9 @@ export function decodeBytesInto(r: MetarReport, u: Uint8Array, start: number, en
         else if (q >= 48 && q <= 57) key = key * 37 + (q - 47);
         else return false;
       }
-      r.station = knownStation(key) ?? internStation(String.fromCharCode.apply(null, u.subarray(a, b) as unknown as number[]), 0, len, key);
+      const known = knownStation(key);
+      if (known === undefined && isNotStationKey(key)) return false; // a code word, not a station: the general decoder says why
+      r.station = known ?? internStation(String.fromCharCode.apply(null, u.subarray(a, b) as unknown as number[]), 0, len, key);
       phase = 3;
       continue;
     }

@@ -119,8 +119,10 @@ function reportDays(day: number, ref: MonthRef): number {
       best = days;
     }
   }
-  // Outside the window in every month (a gap of more than two weeks): the closest candidate.
-  return best;
+  // Outside the window in every month. An archive stamp is taken at the report: a day that fits none of
+  // its months is an error (NaN), never a report a month away. A running reference (a gap of more than two
+  // weeks in a dated file) takes the closest candidate.
+  return ref.refMode === 'nearest' ? best : NaN;
 }
 
 /** A year, month and optional day found in a file name. */

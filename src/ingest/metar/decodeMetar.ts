@@ -70,6 +70,30 @@ function isTrend(u: Uint8Array, a: number, b: number): boolean {
 /** Interned station ids by base-37 key (ids of 3–5 letters/digits are unique keys). */
 const STATION_IDS = new Map<number, string>();
 
+/**
+ * Code words that can stand where the station group belongs when a report lost it (`METAR AUTO 301451Z`,
+ * `KORD` cut off): report modifiers, sky and station-type groups, remark and trend keywords (WMO-No. 306
+ * FM 15 §15.1–15.9 and code table 4678 words; FMH-1 §12.6 AUTO/AO1/AO2). Never read as a station id.
+ */
+export const NOT_STATION_IDS = ['METAR', 'SPECI', 'COR', 'AUTO', 'NIL', 'CLR', 'SKC', 'NSC', 'NCD', 'CAVOK', 'RMK', 'AO1', 'AO2', 'AO1A', 'AO2A', 'NOSIG', 'TEMPO', 'BECMG', 'VRB', 'FEW', 'SCT', 'BKN', 'OVC'];
+
+/** base-37 key of an id as decodeInto and the byte decoder compute it. */
+function stationKey(id: string): number {
+  let key = id.charCodeAt(0) - 54;
+  for (let k = 1; k < id.length; k++) {
+    const q = id.charCodeAt(k);
+    key = key * 37 + (q >= 65 ? q - 54 : q - 47);
+  }
+  return key;
+}
+
+const NOT_STATION_KEYS = new Set(NOT_STATION_IDS.map(stationKey));
+
+/** True when a base-37 station key is one of NOT_STATION_IDS. */
+export function isNotStationKey(key: number): boolean {
+  return NOT_STATION_KEYS.has(key);
+}
+
 /** The interned station id of a base-37 key, if seen before. */
 export function knownStation(key: number): string | undefined {
   return STATION_IDS.get(key);
@@ -152,6 +176,8 @@ export function decodeInto(
       else if (q >= 48 && q <= 57) key = key * 37 + (q - 47);
       else ok = false;
     }
+    if (ok && NOT_STATION_KEYS.has(key))
+      return issue(ref, 'no-station', `"${s.slice(a, b)}" stands where the station identifier belongs; the report lost its station group`, s, a, b, start);
     if (ok) {
       let id = STATION_IDS.get(key);
       if (id === undefined) {
