@@ -101,11 +101,13 @@ export function analyseSeries(series: readonly StationSeries[], opts: AnalyseOpt
       throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
     }
   }
-  let allTracks = network ? trackFronts(all, metas) : [];
+  // Stations that never reported at the same time are never linked into one network or front.
+  const spans = new Map(series.filter((s) => s.length > 0).map((s) => [s.station, { startMs: s.timeMs[0]!, endMs: s.timeMs[s.length - 1]! }]));
+  let allTracks = network ? trackFronts(all, metas, { spans }) : [];
   if (network) {
     all = withNetworkCoherence(all, allTracks, metas, series).filter((e) => e.confidence >= minConfidence);
     // Tracks are refitted on the passages that remain.
-    allTracks = trackFronts(all, metas);
+    allTracks = trackFronts(all, metas, { spans });
   }
   allTracks = opts.network === false ? [] : withFrontogenesis(allTracks, series);
   // The fitted speed is the speed normal to the front; an explicit --front-speed wins.

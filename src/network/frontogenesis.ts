@@ -122,14 +122,24 @@ function fieldsOf(s: StationSeries, meta: StationMeta): StationFields {
 export function withFrontogenesis(tracks: readonly FrontTrack[], series: readonly StationSeries[], neighbours = 4): FrontTrack[] {
   const byId = new Map<string, StationFields>();
   for (const s of series) if (s.meta && Number.isFinite(s.meta.latDeg)) byId.set(s.station, fieldsOf(s, s.meta));
+  // The neighbourhood of a station (and its projection) is the same for all its passages: computed once.
+  const nearOf = new Map<StationFields, { near: StationFields[]; proj: { xKm: Float64Array; yKm: Float64Array } }>();
+  const neighbourhood = (here: StationFields) => {
+    let got = nearOf.get(here);
+    if (!got) {
+      const others = [...byId.values()].filter((f) => f !== here);
+      const dist = (f: StationFields) => Math.hypot(f.meta.latDeg - here.meta.latDeg, (f.meta.lonDeg - here.meta.lonDeg) * Math.cos((here.meta.latDeg * Math.PI) / 180));
+      const near = [here, ...others.sort((a, b) => dist(a) - dist(b) || a.meta.id.localeCompare(b.meta.id)).slice(0, neighbours)];
+      got = { near, proj: projectLocalKm(near.map((f) => f.meta), here.meta) };
+      nearOf.set(here, got);
+    }
+    return got;
+  };
   return tracks.map((t) => {
     const members = t.members.map((m) => {
       const here = byId.get(m.station);
       if (!here) return { ...m, frontogenesisKPer100kmPer3h: NaN };
-      const others = [...byId.values()].filter((f) => f !== here);
-      const dist = (f: StationFields) => Math.hypot(f.meta.latDeg - here.meta.latDeg, (f.meta.lonDeg - here.meta.lonDeg) * Math.cos((here.meta.latDeg * Math.PI) / 180));
-      const near = [here, ...others.sort((a, b) => dist(a) - dist(b) || a.meta.id.localeCompare(b.meta.id)).slice(0, neighbours)];
-      const proj = projectLocalKm(near.map((f) => f.meta), here.meta);
+      const { near, proj } = neighbourhood(here);
       const at = (col: 'thetaK' | 'uMs' | 'vMs') => near.map((f) => valueAt(f.timeMs, f[col], m.event.timeMs));
       const th = planeGradient(proj.xKm, proj.yKm, at('thetaK'));
       const u = planeGradient(proj.xKm, proj.yKm, at('uMs'));
