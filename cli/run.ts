@@ -38,7 +38,7 @@ function wrapWords(text: string, width = 96): string {
   return lines.join('\n');
 }
 
-const EPILOGUE = 'Exit status: 0 success, 1 no usable data or a failure while running, 2 usage error.\n\n' + wrapWords(CAUTION);
+const EPILOGUE = wrapWords('Exit status: 0 success, 1 no usable data or a failure while running (also when detection failed at every station), 2 usage error, 3 some stations failed and were skipped (each named on standard error) while the others gave results.') + '\n\n' + wrapWords(CAUTION);
 
 interface Selected {
   command: 'inspect' | 'detect' | 'verify' | 'report';
@@ -51,7 +51,8 @@ function withDetectionOptions<T>(y: Argv<T>) {
     .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
     .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.4)', group: 'Detection:' })
     .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h, for zone depth and gradient (default: the speed fitted across the network)', group: 'Detection:' })
-    .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' });
+    .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' })
+    .option('jobs', { type: 'number', describe: 'Worker threads for detection (default: the number of cores); the output is the same for every value', group: 'Detection:' });
 }
 
 /** Build the parser; the command handlers only record which command was chosen. */

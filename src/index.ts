@@ -25,7 +25,8 @@ export type {
 } from './model/index.js';
 
 // The pipeline: read → series → station pressure → QC (loadPaths); detect → track → frontogenesis (analyseSeries).
-export { analyseSeries, loadPaths, sortEvents } from './pipeline.js';
+export { analyseSeries, analyseSeriesParallel, loadPaths, sortEvents, type ParallelAnalyseOptions, type StationFailure } from './pipeline.js';
+export { defaultJobs } from './parallel/detectPool.js';
 export type { AnalyseOptions, Analysis, LoadOptions, LoadResult } from './pipeline.js';
 
 // Readers: text or bytes → observations (or parse issues) and a file report.

@@ -15,6 +15,7 @@ import { checkDetectOptions, DEFAULT_MIN_CONFIDENCE, detectStation } from './det
 import { trackFronts, withTrackSpeeds } from './network/track.js';
 import { withFrontogenesis } from './network/frontogenesis.js';
 import { withNetworkCoherence } from './network/coherence.js';
+import { defaultJobs, detectInPool, type StationOutcome } from './parallel/detectPool.js';
 
 /** How to read the inputs (time zone, column mapping, stations file, …). */
 export type LoadOptions = ReadOptions;
@@ -70,10 +71,25 @@ export interface AnalyseOptions extends DetectOptions {
   kinds?: ReadonlySet<BoundaryKind> | null;
 }
 
+export interface ParallelAnalyseOptions extends AnalyseOptions {
+  /** Worker threads for detection (default: the number of cores; 1 runs in this thread). */
+  jobs?: number;
+  /** Called after each station's detection (for progress). */
+  onStation?: (done: number, total: number, s: StationSeries) => void;
+}
+
+/** A station whose detection failed: skipped, the run goes on. */
+export interface StationFailure {
+  station: string;
+  reason: string;
+}
+
 export interface Analysis {
   /** Sorted by station, then time, then kind. */
   events: PassageEvent[];
   tracks: FrontTrack[];
+  /** Stations whose detection failed (skipped), in series order; empty when all went well. */
+  failures: StationFailure[];
 }
 
 /** Stable order: station, then time, then kind. Sorts in place and returns the array. */
@@ -81,40 +97,91 @@ export function sortEvents(events: PassageEvent[]): PassageEvent[] {
   return events.sort((a, b) => (a.station < b.station ? -1 : a.station > b.station ? 1 : a.timeMs - b.timeMs || (a.kind < b.kind ? -1 : a.kind > b.kind ? 1 : 0)));
 }
 
+/** Whether tracking runs, and the confidence detection keeps (with a network, weaker passages too: coherence can keep them, network/coherence.ts). */
+function detectionPlan(series: readonly StationSeries[], opts: AnalyseOptions): { network: boolean; floor: number; minConfidence: number } {
+  checkDetectOptions(opts);
+  const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
+  const located = series.filter((s) => s.meta !== undefined).length;
+  const network = opts.network !== false && located >= 3;
+  return { network, floor: network ? minConfidence * 0.7 : minConfidence, minConfidence };
+}
+
+/** The single-station detector's options (what a worker needs). */
+function stationOptions(opts: AnalyseOptions, floor: number): DetectOptions {
+  const d: DetectOptions = { minConfidence: floor };
+  if (opts.frontSpeedKmh !== undefined) d.frontSpeedKmh = opts.frontSpeedKmh;
+  if (opts.model !== undefined) d.model = opts.model;
+  return d;
+}
+
 /**
- * Detect, track and measure. A failure at one station is re-thrown with the station's id.
- * Throws RangeError for a non-positive or non-finite `frontSpeedKmh` or a `minConfidence` outside 0–1
- * (checkDetectOptions), before any work.
+ * Detect, track and measure. A station whose detection fails is listed in `failures` (id and reason) and
+ * skipped; the others go on. Throws RangeError for a non-positive or non-finite `frontSpeedKmh` or a
+ * `minConfidence` outside 0–1 (checkDetectOptions), before any work.
  */
 export function analyseSeries(series: readonly StationSeries[], opts: AnalyseOptions = {}): Analysis {
-  checkDetectOptions(opts);
-  let all: PassageEvent[] = [];
-  const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
-  const metas = series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const network = opts.network !== false && metas.length >= 3;
-  // With a network, weaker passages are detected too: network coherence can keep them (network/coherence.ts).
-  const floor = network ? minConfidence * 0.7 : minConfidence;
-  for (const s of series) {
+  const plan = detectionPlan(series, opts);
+  const dopts = { ...opts, ...stationOptions(opts, plan.floor) };
+  const outcomes: StationOutcome[] = series.map((s) => {
     try {
-      all.push(...detectStation(s, { ...opts, minConfidence: floor }));
+      return { events: detectStation(s, dopts) };
     } catch (e) {
-      throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
+      return { error: (e as Error).message };
     }
+  });
+  return networkStage(series, outcomes, opts, plan);
+}
+
+/**
+ * {@link analyseSeries} with detection spread over `jobs` worker threads (detectPool.ts). The result is
+ * identical to analyseSeries' for every `jobs` value: stations are detected independently and put back in
+ * series order before tracking.
+ */
+export async function analyseSeriesParallel(series: readonly StationSeries[], opts: ParallelAnalyseOptions = {}): Promise<Analysis> {
+  const jobs = opts.jobs ?? defaultJobs();
+  if (!(Number.isInteger(jobs) && jobs >= 1)) throw new RangeError(`jobs must be a whole number of at least 1 (got ${jobs})`);
+  const { jobs: _jobs, onStation, ...rest } = opts;
+  if (jobs === 1 || series.length < 2) {
+    const r = analyseSeries(series, rest);
+    series.forEach((s, i) => onStation?.(i + 1, series.length, s));
+    return r;
   }
+  const plan = detectionPlan(series, rest);
+  const outcomes = await detectInPool(series, stationOptions(rest, plan.floor), jobs, (done, s) => onStation?.(done, series.length, s));
+  return networkStage(series, outcomes, rest, plan);
+}
+
+/** Tracking, network coherence, frontogenesis and track speeds over the stations that were detected. */
+function networkStage(series: readonly StationSeries[], outcomes: readonly StationOutcome[], opts: AnalyseOptions, plan: { network: boolean; minConfidence: number }): Analysis {
+  const failures: StationFailure[] = [];
+  let all: PassageEvent[] = [];
+  const ok: StationSeries[] = [];
+  outcomes.forEach((o, i) => {
+    const s = series[i]!;
+    if ('error' in o) failures.push({ station: s.station, reason: `detection failed: ${o.error}` });
+    else {
+      all.push(...o.events);
+      ok.push(s);
+    }
+  });
+  // A failed station takes no part in tracking: it neither joins fronts nor counts as a neighbour that saw nothing.
+  const metas = ok.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+  const network = plan.network && metas.length >= 3;
   // Stations that never reported at the same time are never linked into one network or front.
-  const spans = new Map(series.filter((s) => s.length > 0).map((s) => [s.station, { startMs: s.timeMs[0]!, endMs: s.timeMs[s.length - 1]! }]));
+  const spans = new Map(ok.filter((s) => s.length > 0).map((s) => [s.station, { startMs: s.timeMs[0]!, endMs: s.timeMs[s.length - 1]! }]));
   let allTracks = network ? trackFronts(all, metas, { spans }) : [];
   if (network) {
-    all = withNetworkCoherence(all, allTracks, metas, series).filter((e) => e.confidence >= minConfidence);
+    all = withNetworkCoherence(all, allTracks, metas, ok).filter((e) => e.confidence >= plan.minConfidence);
     // Tracks are refitted on the passages that remain.
     allTracks = trackFronts(all, metas, { spans });
-  }
-  allTracks = opts.network === false ? [] : withFrontogenesis(allTracks, series);
+  } else if (plan.network) all = all.filter((e) => e.confidence >= plan.minConfidence);
+  allTracks = opts.network === false ? [] : withFrontogenesis(allTracks, ok);
   // The fitted speed is the speed normal to the front; an explicit --front-speed wins.
   if (opts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
   const kinds = opts.kinds;
   return {
     events: sortEvents(all.filter((e) => !kinds || kinds.has(e.kind))),
     tracks: allTracks.filter((t) => !kinds || kinds.has(t.kind)),
+    failures,
   };
 }

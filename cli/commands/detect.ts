@@ -1,6 +1,7 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { analyseSeries, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
+import { BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
 import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { analysisStatus, parseJobs, runAnalysis } from '../analysis.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
 export function parseKinds(spec: unknown): Set<BoundaryKind> | null {
@@ -37,11 +38,12 @@ function lastNumber(v: unknown): number | undefined {
   return typeof x === 'number' ? x : Number(x);
 }
 
-/** Run detect; returns the exit code (1 when no station has data). */
+/** Run detect; returns the exit code (1 when no station has data or every station failed, 3 when some failed). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
   const args = inputArgs(raw);
   const kinds = parseKinds(raw.kinds);
   const dopts = detectOptions(raw);
+  const jobs = parseJobs(raw.jobs);
   const local = Boolean(raw.local);
   if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
   const opts = await resolveLoadOptions(args, io);
@@ -50,14 +52,16 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
-  const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds });
+  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io);
+  if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);
+  const { events, tracks } = analysis;
   const stations = result.series.map((s) => s.station);
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {
     const { summary, files } = outputFolderFiles(events, tracks, stations);
     const written = writeOutputFolder(outDir, files);
     io.stdout(summary + written.map((p) => `wrote ${p}`).join('\n') + '\n');
-    return 0;
+    return analysisStatus(analysis, result.series.length, io);
   }
   const format = String(raw.format ?? 'table');
   const text =
@@ -69,6 +73,6 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
           ? eventsToNdjson(events)
           : passagesToTable(events, tracks, { zone: local ? opts.zone : undefined, stations });
   await writeOutput(text, args.out, io);
-  return 0;
+  return analysisStatus(analysis, result.series.length, io);
 }
 
