@@ -27,6 +27,8 @@ export type {
 // The pipeline: read → series → station pressure → QC (loadPaths); detect → track → frontogenesis (analyseSeries).
 export { analyseSeries, analyseSeriesParallel, loadPaths, sortEvents, type ParallelAnalyseOptions, type StationFailure } from './pipeline.js';
 export { defaultJobs } from './parallel/detectPool.js';
+export { analyseShard, mergeShards } from './pipeline.js';
+export { fnv1a32, inShard, parseShard, shardFromNdjson, type ShardContent, type ShardSpec } from './parallel/shard.js';
 export type { AnalyseOptions, Analysis, LoadOptions, LoadResult } from './pipeline.js';
 
 // Readers: text or bytes → observations (or parse issues) and a file report.

@@ -1,5 +1,5 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
+import { analyseShard, parseShard, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
 import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { analysisStatus, parseJobs, runAnalysis } from '../analysis.js';
 
@@ -46,11 +46,22 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const jobs = parseJobs(raw.jobs);
   const local = Boolean(raw.local);
   if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
+  const shard = raw.shard === undefined ? undefined : parseShard(String(Array.isArray(raw.shard) ? raw.shard[raw.shard.length - 1] : raw.shard));
+  if (shard && (raw.outDir !== undefined || (raw.format !== undefined && raw.format !== 'ndjson' && raw.format !== 'table'))) {
+    throw new UsageError('--shard writes the shard records (NDJSON) that fropa merge combines; leave out --format and --out-dir');
+  }
   const opts = await resolveLoadOptions(args, io);
   const result = loadPaths(args.paths, opts);
   if (result.series.length === 0) {
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
+  }
+  if (shard) {
+    const r = await analyseShard(result.series, shard, { ...dopts, network: raw.network !== false, jobs });
+    for (const f of r.failures) io.stderr(`fropa: station ${f.station} skipped: ${f.reason}\n`);
+    await writeOutput(r.text, args.out, io);
+    if (!args.quiet) io.stderr(`fropa: shard ${shard.index}/${shard.count}: ${r.stations} of ${result.series.length} stations\n`);
+    return r.failures.length === 0 ? 0 : r.failures.length >= r.stations ? 1 : 3;
   }
   const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io);
   if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);

@@ -9,7 +9,7 @@
  */
 import type { FrontTrack, PassageEvent, StationMeta, StationSeries } from '../model/index.js';
 import { MS_PER_HOUR } from '../physics/constants.js';
-import { stationGraph } from './neighbours.js';
+import { stationGraph, type StationSpan } from './neighbours.js';
 
 /** Neighbours are stations within this distance. */
 export const NEIGHBOUR_KM = 300;
@@ -22,9 +22,9 @@ const ISOLATED_FACTOR = 0.75;
 
 const FRONTS = new Set(['cold-front', 'warm-front', 'occluded-front']);
 
-function reporting(s: StationSeries | undefined, tMs: number): boolean {
-  if (!s || s.length === 0) return false;
-  return s.timeMs[0]! <= tMs - 3 * MS_PER_HOUR && s.timeMs[s.length - 1]! >= tMs + 3 * MS_PER_HOUR;
+function reporting(s: StationSpan | undefined, tMs: number): boolean {
+  if (!s) return false;
+  return s.startMs <= tMs - 3 * MS_PER_HOUR && s.endMs >= tMs + 3 * MS_PER_HOUR;
 }
 
 /**
@@ -32,11 +32,18 @@ function reporting(s: StationSeries | undefined, tMs: number): boolean {
  * those it changes. Stations without coordinates, or without two neighbours reporting at the time, are
  * left as they are (single-station data work as before).
  */
-export function withNetworkCoherence(events: readonly PassageEvent[], tracks: readonly FrontTrack[], metas: readonly StationMeta[], series: readonly StationSeries[]): PassageEvent[] {
+export function withNetworkCoherence(
+  events: readonly PassageEvent[],
+  tracks: readonly FrontTrack[],
+  metas: readonly StationMeta[],
+  series: readonly StationSeries[] | ReadonlyMap<string, StationSpan>,
+): PassageEvent[] {
   const tracked = new Map<PassageEvent, FrontTrack>();
   for (const t of tracks) for (const m of t.members) if (t.members.length >= 3) tracked.set(m.event, t);
   const located = metas.filter((m) => Number.isFinite(m.latDeg) && Number.isFinite(m.lonDeg));
-  const bySeries = new Map(series.map((s) => [s.station, s]));
+  // When each station reported (its series' first and last report, or the spans given).
+  const bySeries: ReadonlyMap<string, StationSpan> =
+    series instanceof Map ? series : new Map((series as readonly StationSeries[]).filter((s) => s.length > 0).map((s) => [s.station, { startMs: s.timeMs[0]!, endMs: s.timeMs[s.length - 1]! }]));
   // Every station within NEIGHBOUR_KM (geodesic), found through the grid of neighbours.ts in about linear time.
   const graph = stationGraph(located, NEIGHBOUR_KM, Number.MAX_SAFE_INTEGER);
   const neighbours = new Map<string, string[]>();
