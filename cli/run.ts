@@ -41,7 +41,7 @@ function wrapWords(text: string, width = 96): string {
 const EPILOGUE = wrapWords('Exit status: 0 success, 1 no usable data or a failure while running (also when detection failed at every station), 2 usage error, 3 some stations failed and were skipped (each named on standard error) while the others gave results.') + '\n\n' + wrapWords(CAUTION);
 
 interface Selected {
-  command: 'inspect' | 'detect' | 'verify' | 'report' | 'merge';
+  command: 'inspect' | 'detect' | 'verify' | 'report' | 'merge' | 'season';
   args: Record<string, unknown>;
 }
 
@@ -129,6 +129,19 @@ function parser(onSelect: (s: Selected) => void) {
       (a) => onSelect({ command: 'report', args: a as Record<string, unknown> }),
     )
     .command(
+      'season <paths...>',
+      'Summarise a season: passages by kind and month, hour of day (UTC and solar), distributions, front speeds and directions',
+      (y) =>
+        withDetectionOptions(withInputOptions(y))
+          .option('since', { type: 'string', describe: 'First day or time counted, ISO 8601 (UTC unless an offset is given)', group: 'Season:' })
+          .option('until', { type: 'string', describe: 'Last day counted (a date alone means the end of that day), or a time', group: 'Season:' })
+          .option('format', { choices: ['table', 'csv', 'json'] as const, default: 'table', describe: 'Output format (CSV: scope, measure, bin, value)', group: 'Output:' })
+          .example('$0 season stations-demo', 'The demo season as tables, network first')
+          .example('$0 season obs/ --since 2025-12-01 --until 2026-02-28 --format csv --out winter.csv', 'One winter, long CSV')
+          .epilogue(EPILOGUE),
+      (a) => onSelect({ command: 'season', args: a as Record<string, unknown> }),
+    )
+    .command(
       'merge <paths...>',
       'Combine the outputs of fropa detect --shard K/N (all N shards) into what one run over the whole archive gives',
       (y) =>
@@ -151,7 +164,7 @@ function parser(onSelect: (s: Selected) => void) {
     .example('$0 detect obs/KXYZ_2026-03.txt --format json', 'Passages as JSON')
     .example('$0 verify stations-demo --forecasts stations-demo/forecasts/forecast_passages.csv', 'Forecast passage times against the demo observations')
     .example('$0 report stations-demo --out report.html', 'A page of charts, fronts and maps to open in a browser')
-    .demandCommand(1, 'Name a command: inspect, detect, verify, report or merge.')
+    .demandCommand(1, 'Name a command: inspect, detect, verify, report, season or merge.')
     .recommendCommands()
     .strict()
     .exitProcess(false)
@@ -194,7 +207,9 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
             ? await import('./commands/verify.js')
             : sel.command === 'report'
               ? await import('./commands/report.js')
-              : await import('./commands/merge.js');
+              : sel.command === 'merge'
+                ? await import('./commands/merge.js')
+                : await import('./commands/season.js');
     return await mod.run(sel.args, io);
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));

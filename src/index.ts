@@ -83,3 +83,6 @@ export type { CiScore, CoveragePeriod, LeadBin, OutcomeKind, VerifiedOutcome, Ve
 export { seriesForecasts, seriesSpans } from './verify/seriesForecasts.js';
 export type { ForecastSeriesSpan } from './verify/seriesForecasts.js';
 export { SCORE_COLUMNS, verificationScoresToCsv } from './verify/format.js';
+// Season summaries (fropa season).
+export { distribution, seasonSummary, SEASON_MEASURES, type Distribution, type SeasonGroup, type SeasonSummary } from './season/season.js';
+export { seasonToCsv, seasonToJson, seasonToTable } from './season/seasonFormat.js';
