@@ -63,7 +63,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     if (!args.quiet) io.stderr(`fropa: shard ${shard.index}/${shard.count}: ${r.stations} of ${result.series.length} stations\n`);
     return r.failures.length === 0 ? 0 : r.failures.length >= r.stations ? 1 : 3;
   }
-  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io);
+  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io, { files: result.reports.length, quiet: Boolean(args.quiet) });
   if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);
   const { events, tracks } = analysis;
   const stations = result.series.map((s) => s.station);

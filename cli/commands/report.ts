@@ -41,7 +41,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     return 1;
   }
   // Detection and tracking on all the data (context outside the period helps), as in `fropa detect`.
-  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io);
+  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io, { files: result.reports.length, quiet: Boolean(args.quiet) });
   if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);
   const { events, tracks } = analysis;
   const files = result.reports

@@ -19,7 +19,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
-  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io);
+  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io, { files: result.reports.length, quiet: Boolean(args.quiet) });
   if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);
   const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
   const summary = seasonSummary(analysis.events, analysis.tracks, metas, result.series.map((s) => s.station), sinceMs, untilMs);
