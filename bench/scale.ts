@@ -11,7 +11,7 @@
  *    every 3 days over the year, at every station).
  * The generator runs in groups of 10 stations (its planner is made for regional networks), so planted fronts
  * do not cross groups; tracking still sees the whole station graph.
- * Usage: npm run bench:scale [-- --sizes 50,200,1000 --days 365 --seed 7 --jobs 1,2 --keep DIR]
+ * Usage: npm run bench:scale [-- --sizes 50,200,1000 --days 365 --seed 7 --jobs 1,2 --keep DIR --tracking-only]
  */
 import { execFileSync, spawnSync } from 'node:child_process';
 import { mkdirSync, mkdtempSync, readdirSync, readFileSync, rmSync, statSync, writeFileSync } from 'node:fs';
@@ -136,12 +136,13 @@ function trackingTime(n: number): { s: number; passages: number; fronts: number 
   return { s: (performance.now() - t) / 1000, passages: events.length, fronts: tracks.length };
 }
 
-execFileSync('npx', ['tsc', '-p', 'tsconfig.build.json'], { cwd: ROOT, stdio: 'inherit' });
+const trackingOnly = args.includes('--tracking-only');
+if (!trackingOnly) execFileSync('npx', ['tsc', '-p', 'tsconfig.build.json'], { cwd: ROOT, stdio: 'inherit' });
 const base = keep || mkdtempSync(join(tmpdir(), 'fropa-scale-'));
 console.log(`bench:scale  seed ${seed}, ${days} days, sizes ${sizes.join(', ')} METAR stations (+5 % 5-min CSV), jobs ${jobsList.join(' vs ')}; files in ${base}`);
 const results: string[] = [];
 const header = ['METAR+CSV stations', 'rows', 'MB', 'read+split rows/s', 'papaparse rows/s', ...jobsList.map((j) => `detect --jobs ${j} rows/s`), 'detect / papaparse', `jobs ${jobsList.at(-1)} / jobs ${jobsList[0]}`, 'peak RSS MiB', 'µs per row (jobs 1)'];
-for (const n of sizes) {
+for (const n of trackingOnly ? [] : sizes) {
   const dir = join(base, `size-${n}`, 'archive');
   const tg = performance.now();
   const rows = writeArchive(dir, gridStations(n, 'XM', 0), gridStations(Math.max(1, Math.round(n * 0.05)), 'XC', 5000));
@@ -164,7 +165,7 @@ for (const n of sizes) {
   console.log(`size ${n}: generated in ${genS.toFixed(0)} s; ${runs[0]!.events} passages; outputs identical across jobs: ${same}`);
   console.log(`| ${header.join(' | ')} |\n| ${results.at(-1)} |`);
 }
-console.log(`\n| ${header.join(' | ')} |\n| ${header.map(() => '---').join(' | ')} |\n${results.map((r) => `| ${r} |`).join('\n')}`);
+if (!trackingOnly) console.log(`\n| ${header.join(' | ')} |\n| ${header.map(() => '---').join(' | ')} |\n${results.map((r) => `| ${r} |`).join('\n')}`);
 console.log('\nTracking alone (trackFronts, planted fronts every 3 days at every station):');
 for (const n of [...new Set([...sizes, 1000])].sort((a, b) => a - b)) {
   const t = trackingTime(n);

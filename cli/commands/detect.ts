@@ -50,6 +50,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   if (shard && (raw.outDir !== undefined || (raw.format !== undefined && raw.format !== 'ndjson' && raw.format !== 'table'))) {
     throw new UsageError('--shard writes the shard records (NDJSON) that fropa merge combines; leave out --format and --out-dir');
   }
+  if (shard && kinds) throw new UsageError('--kinds with --shard: give --kinds to fropa merge (tracking needs every kind)');
   const opts = await resolveLoadOptions(args, io);
   const result = loadPaths(args.paths, opts);
   if (result.series.length === 0) {
