@@ -18,7 +18,7 @@ export { networksOf, type StationSpan } from './neighbours.js';
 /** @deprecated Re-exported for old import paths; import from src/model/. */
 export type { FrontTrack, StrengthTrend, TrackMember } from '../model/track.js';
 import { MS_PER_HOUR } from '../physics/constants.js';
-import { leastSquaresPlane } from './leastSquaresPlane.js';
+import { leastSquaresPlane, PLANE_DEGENERATE_RATIO } from './leastSquaresPlane.js';
 
 export interface TrackOptions {
   /** Kinds to track (default cold, warm and occluded fronts, drylines). */
@@ -67,6 +67,27 @@ export function fitPlane(pts: readonly { x: number; y: number; t: number }[], w?
   const p = leastSquaresPlane(x, y, t, w);
   if (Number.isNaN(p.dfdx)) return null;
   return { t0: p.mean - p.dfdx * p.meanX - p.dfdy * p.meanY, sx: p.dfdx, sy: p.dfdy };
+}
+
+/**
+ * {@link fitPlane} of exactly three points, without allocating: the same sums in the same order as
+ * `leastSquaresPlane` with unit weights (so the same plane to the last bit), for the tracker's inner loop.
+ */
+function fitPlane3(a: Point, b: Point, c: Point): Plane | null {
+  const mx = (a.x + b.x + c.x) / 3, my = (a.y + b.y + c.y) / 3, mf = (a.t + b.t + c.t) / 3;
+  let sxx = 0, sxy = 0, syy = 0, sxf = 0, syf = 0;
+  for (const p of [a, b, c]) {
+    const dx = p.x - mx, dy = p.y - my, df = p.t - mf;
+    sxx += dx * dx;
+    sxy += dx * dy;
+    syy += dy * dy;
+    sxf += dx * df;
+    syf += dy * df;
+  }
+  const det = sxx * syy - sxy * sxy;
+  if (!(Math.abs(det) > PLANE_DEGENERATE_RATIO * (sxx + syy) * (sxx + syy))) return null;
+  const dfdx = (sxf * syy - syf * sxy) / det, dfdy = (syf * sxx - sxf * sxy) / det;
+  return { t0: mf - dfdx * mx - dfdy * my, sx: dfdx, sy: dfdy };
 }
 
 /** Speed (km/h) and direction of motion (degrees true) from a slowness vector in h/km. */
@@ -309,8 +330,9 @@ class TrackSearch {
   private consensus(station: number, plane: Plane): { members: number[]; rss: number } {
     const members: number[] = [];
     let rss = 0;
-    for (const s of [station, ...this.nb[station]!]) {
-      const { k, r } = this.nearest(s, plane);
+    const nb = this.nb[station]!;
+    for (let q = -1; q < nb.length; q++) {
+      const { k, r } = this.nearest(q < 0 ? station : nb[q]!, plane);
       if (k < 0) continue;
       members.push(k);
       rss += r * r;
@@ -348,7 +370,7 @@ class TrackSearch {
       for (let j = i + 1; j < cands.length; j++) {
         const pc = this.pts[cands[j]!]!;
         if (pc.station === pb.station) continue;
-        const plane = fitPlane([pa, pb, pc]);
+        const plane = fitPlane3(pa, pb, pc);
         if (!plane) continue;
         const { speedKmh } = motionFromSlowness(plane.sx, plane.sy);
         if (!(speedKmh >= this.minSpeed && speedKmh <= this.maxSpeed)) continue;
