@@ -12,6 +12,8 @@ export interface CliIo {
   stderr(text: string): void;
   /** All of standard input as text (called only when a path is `-`). */
   readStdin(): Promise<string>;
+  /** Where a progress bar may be drawn: standard error when it is a terminal and not under CI; absent otherwise (silent). */
+  progress?: NodeJS.WriteStream;
 }
 
 /** Last value when an option was given more than once (yargs collects repeats into an array). */

@@ -38,10 +38,10 @@ function wrapWords(text: string, width = 96): string {
   return lines.join('\n');
 }
 
-const EPILOGUE = 'Exit status: 0 success, 1 no usable data or a failure while running, 2 usage error.\n\n' + wrapWords(CAUTION);
+const EPILOGUE = wrapWords('Exit status: 0 success, 1 no usable data or a failure while running (also when detection failed at every station), 2 usage error, 3 some stations failed and were skipped (each named on standard error) while the others gave results.') + '\n\n' + wrapWords(CAUTION);
 
 interface Selected {
-  command: 'inspect' | 'detect' | 'verify' | 'report';
+  command: 'inspect' | 'detect' | 'verify' | 'report' | 'merge' | 'season';
   args: Record<string, unknown>;
 }
 
@@ -51,7 +51,8 @@ function withDetectionOptions<T>(y: Argv<T>) {
     .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
     .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.4)', group: 'Detection:' })
     .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h, for zone depth and gradient (default: the speed fitted across the network)', group: 'Detection:' })
-    .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' });
+    .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' })
+    .option('jobs', { type: 'number', describe: 'Worker threads for detection (default: the number of cores); the output is the same for every value', group: 'Detection:' });
 }
 
 /** Build the parser; the command handlers only record which command was chosen. */
@@ -80,12 +81,14 @@ function parser(onSelect: (s: Selected) => void) {
           .option('format', { choices: ['table', 'csv', 'json', 'ndjson'] as const, default: 'table', describe: 'Output format', group: 'Output:' })
           .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json and summary.txt into DIR', group: 'Output:' })
           .option('local', { type: 'boolean', describe: 'Table times in the --tz zone instead of UTC (needs --tz; CSV/JSON stay UTC)', group: 'Output:' })
+          .option('shard', { type: 'string', describe: 'K/N: detect only shard K of N (a fixed share of the stations by id) and write its records as NDJSON for fropa merge', group: 'Scale:' })
           .conflicts('out', 'out-dir')
           .example('$0 detect stations-demo', 'Passages in the demo folder, as a table')
           .example('$0 detect stations-demo --out-dir fropa-out', 'Write events and fronts (CSV, JSON) and a summary')
           .example('$0 detect obs/ --stations stations.csv --format csv --out events.csv', 'CSV for a spreadsheet')
           .example('$0 detect obs/ --kinds cold-front,dryline --min-confidence 0.6', 'Only confident cold fronts and drylines')
           .example('$0 detect mesonet_march.csv --tz America/Denver --local', 'Local times in the table')
+          .example('$0 detect archive/ --shard 2/8 --out shard-2.ndjson', 'Shard 2 of 8; fropa merge shard-*.ndjson gives what one run gives')
           .epilogue(EPILOGUE),
       (a) => onSelect({ command: 'detect', args: a as Record<string, unknown> }),
     )
@@ -125,6 +128,35 @@ function parser(onSelect: (s: Selected) => void) {
           .epilogue('The page needs no network connection: inline SVG and CSS, no scripts. Without --out it is written to report.html; --out - writes it to standard output.\n\n' + EPILOGUE),
       (a) => onSelect({ command: 'report', args: a as Record<string, unknown> }),
     )
+    .command(
+      'season <paths...>',
+      'Summarise a season: passages by kind and month, hour of day (UTC and solar), distributions, front speeds and directions',
+      (y) =>
+        withDetectionOptions(withInputOptions(y))
+          .option('since', { type: 'string', describe: 'First day or time counted, ISO 8601 (UTC unless an offset is given)', group: 'Season:' })
+          .option('until', { type: 'string', describe: 'Last day counted (a date alone means the end of that day), or a time', group: 'Season:' })
+          .option('format', { choices: ['table', 'csv', 'json'] as const, default: 'table', describe: 'Output format (CSV: scope, measure, bin, value)', group: 'Output:' })
+          .example('$0 season stations-demo', 'The demo season as tables, network first')
+          .example('$0 season obs/ --since 2025-12-01 --until 2026-02-28 --format csv --out winter.csv', 'One winter, long CSV')
+          .epilogue(EPILOGUE),
+      (a) => onSelect({ command: 'season', args: a as Record<string, unknown> }),
+    )
+    .command(
+      'merge <paths...>',
+      'Combine the outputs of fropa detect --shard K/N (all N shards) into what one run over the whole archive gives',
+      (y) =>
+        y
+          .positional('paths', { type: 'string', array: true, describe: 'Shard outputs (NDJSON) of one run, every shard once', demandOption: true })
+          .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Output:' })
+          .option('format', { choices: ['table', 'csv', 'json', 'ndjson'] as const, default: 'table', describe: 'Output format', group: 'Output:' })
+          .option('out', { type: 'string', describe: 'Write the output to FILE instead of standard output', group: 'Output:' })
+          .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json and summary.txt into DIR', group: 'Output:' })
+          .conflicts('out', 'out-dir')
+          .example('$0 merge shard-*.ndjson --format csv --out events.csv', 'Passages of the whole archive, tracked on the merged passages')
+          .example('$0 merge shards/ --out-dir fropa-out', 'Every shard file in a folder; the same bundle as fropa detect --out-dir')
+          .epilogue(EPILOGUE),
+      (a) => onSelect({ command: 'merge', args: a as Record<string, unknown> }),
+    )
     .option('verbose', { type: 'boolean', describe: 'Show stack traces of failures', global: true })
     .option('quiet', { type: 'boolean', describe: 'No notes on standard error', global: true })
     .example('$0 inspect stations-demo', 'How each demo file was read')
@@ -132,7 +164,7 @@ function parser(onSelect: (s: Selected) => void) {
     .example('$0 detect obs/KXYZ_2026-03.txt --format json', 'Passages as JSON')
     .example('$0 verify stations-demo --forecasts stations-demo/forecasts/forecast_passages.csv', 'Forecast passage times against the demo observations')
     .example('$0 report stations-demo --out report.html', 'A page of charts, fronts and maps to open in a browser')
-    .demandCommand(1, 'Name a command: inspect, detect, verify or report.')
+    .demandCommand(1, 'Name a command: inspect, detect, verify, report, season or merge.')
     .recommendCommands()
     .strict()
     .exitProcess(false)
@@ -173,7 +205,11 @@ export async function runCli(argv: readonly string[], io: CliIo): Promise<number
           ? await import('./commands/detect.js')
           : sel.command === 'verify'
             ? await import('./commands/verify.js')
-            : await import('./commands/report.js');
+            : sel.command === 'report'
+              ? await import('./commands/report.js')
+              : sel.command === 'merge'
+                ? await import('./commands/merge.js')
+                : await import('./commands/season.js');
     return await mod.run(sel.args, io);
   } catch (e) {
     const err = e instanceof Error ? e : new Error(String(e));
@@ -191,6 +227,8 @@ export function processIo(): CliIo {
   return {
     stdout: (t) => void process.stdout.write(t),
     stderr: (t) => void process.stderr.write(t),
+    // Progress only on a terminal, never under CI (NO_COLOR is respected: the bar has no colours at all).
+    ...(process.stderr.isTTY && !process.env.CI ? { progress: process.stderr } : {}),
     readStdin: async () => {
       const chunks: Buffer[] = [];
       for await (const c of process.stdin) chunks.push(c as Buffer);

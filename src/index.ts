@@ -25,7 +25,10 @@ export type {
 } from './model/index.js';
 
 // The pipeline: read → series → station pressure → QC (loadPaths); detect → track → frontogenesis (analyseSeries).
-export { analyseSeries, loadPaths, sortEvents } from './pipeline.js';
+export { analyseSeries, analyseSeriesParallel, loadPaths, sortEvents, type ParallelAnalyseOptions, type StationFailure } from './pipeline.js';
+export { defaultJobs } from './parallel/detectPool.js';
+export { analyseShard, mergeShards } from './pipeline.js';
+export { fnv1a32, inShard, parseShard, shardFromNdjson, type ShardContent, type ShardSpec } from './parallel/shard.js';
 export type { AnalyseOptions, Analysis, LoadOptions, LoadResult } from './pipeline.js';
 
 // Readers: text or bytes → observations (or parse issues) and a file report.
@@ -80,3 +83,6 @@ export type { CiScore, CoveragePeriod, LeadBin, OutcomeKind, VerifiedOutcome, Ve
 export { seriesForecasts, seriesSpans } from './verify/seriesForecasts.js';
 export type { ForecastSeriesSpan } from './verify/seriesForecasts.js';
 export { SCORE_COLUMNS, verificationScoresToCsv } from './verify/format.js';
+// Season summaries (fropa season).
+export { distribution, seasonSummary, SEASON_MEASURES, type Distribution, type SeasonGroup, type SeasonSummary } from './season/season.js';
+export { seasonToCsv, seasonToJson, seasonToTable } from './season/seasonFormat.js';

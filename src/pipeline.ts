@@ -13,8 +13,11 @@ import { applyQc, type QcSummary } from './qc/qc.js';
 import type { DetectOptions } from './detect/types.js';
 import { checkDetectOptions, DEFAULT_MIN_CONFIDENCE, detectStation } from './detect/detect.js';
 import { trackFronts, withTrackSpeeds } from './network/track.js';
-import { withFrontogenesis } from './network/frontogenesis.js';
+import { fieldsOf, withFrontogenesisFields, type StationFields } from './network/frontogenesis.js';
 import { withNetworkCoherence } from './network/coherence.js';
+import { defaultJobs, detectInPool, type StationOutcome } from './parallel/detectPool.js';
+import { inShard, shardToNdjson, type ShardContent, type ShardHeader, type ShardSpec, type ShardStation } from './parallel/shard.js';
+import { UsageError } from './model/index.js';
 
 /** How to read the inputs (time zone, column mapping, stations file, …). */
 export type LoadOptions = ReadOptions;
@@ -70,10 +73,25 @@ export interface AnalyseOptions extends DetectOptions {
   kinds?: ReadonlySet<BoundaryKind> | null;
 }
 
+export interface ParallelAnalyseOptions extends AnalyseOptions {
+  /** Worker threads for detection (default: the number of cores; 1 runs in this thread). */
+  jobs?: number;
+  /** Called after each station's detection (for progress). */
+  onStation?: (done: number, total: number, s: StationSeries) => void;
+}
+
+/** A station whose detection failed: skipped, the run goes on. */
+export interface StationFailure {
+  station: string;
+  reason: string;
+}
+
 export interface Analysis {
   /** Sorted by station, then time, then kind. */
   events: PassageEvent[];
   tracks: FrontTrack[];
+  /** Stations whose detection failed (skipped), in series order; empty when all went well. */
+  failures: StationFailure[];
 }
 
 /** Stable order: station, then time, then kind. Sorts in place and returns the array. */
@@ -81,38 +99,178 @@ export function sortEvents(events: PassageEvent[]): PassageEvent[] {
   return events.sort((a, b) => (a.station < b.station ? -1 : a.station > b.station ? 1 : a.timeMs - b.timeMs || (a.kind < b.kind ? -1 : a.kind > b.kind ? 1 : 0)));
 }
 
+/** Whether tracking runs, and the confidence detection keeps (with a network, weaker passages too: coherence can keep them, network/coherence.ts). */
+function detectionPlan(series: readonly StationSeries[], opts: AnalyseOptions): { network: boolean; floor: number; minConfidence: number } {
+  checkDetectOptions(opts);
+  const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
+  const located = series.filter((s) => s.meta !== undefined).length;
+  const network = opts.network !== false && located >= 3;
+  return { network, floor: network ? minConfidence * 0.7 : minConfidence, minConfidence };
+}
+
+/** The single-station detector's options (what a worker needs). */
+function stationOptions(opts: AnalyseOptions, floor: number): DetectOptions {
+  const d: DetectOptions = { minConfidence: floor };
+  if (opts.frontSpeedKmh !== undefined) d.frontSpeedKmh = opts.frontSpeedKmh;
+  if (opts.model !== undefined) d.model = opts.model;
+  return d;
+}
+
 /**
- * Detect, track and measure. A failure at one station is re-thrown with the station's id.
- * Throws RangeError for a non-positive or non-finite `frontSpeedKmh` or a `minConfidence` outside 0–1
- * (checkDetectOptions), before any work.
+ * Detect, track and measure. A station whose detection fails is listed in `failures` (id and reason) and
+ * skipped; the others go on. Throws RangeError for a non-positive or non-finite `frontSpeedKmh` or a
+ * `minConfidence` outside 0–1 (checkDetectOptions), before any work.
  */
 export function analyseSeries(series: readonly StationSeries[], opts: AnalyseOptions = {}): Analysis {
-  checkDetectOptions(opts);
-  let all: PassageEvent[] = [];
-  const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
-  const metas = series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const network = opts.network !== false && metas.length >= 3;
-  // With a network, weaker passages are detected too: network coherence can keep them (network/coherence.ts).
-  const floor = network ? minConfidence * 0.7 : minConfidence;
-  for (const s of series) {
+  const plan = detectionPlan(series, opts);
+  const dopts = { ...opts, ...stationOptions(opts, plan.floor) };
+  const outcomes: StationOutcome[] = series.map((s) => {
     try {
-      all.push(...detectStation(s, { ...opts, minConfidence: floor }));
+      return { events: detectStation(s, dopts) };
     } catch (e) {
-      throw new Error(`${s.station}: detection failed: ${(e as Error).message}`, { cause: e });
+      return { error: (e as Error).message };
     }
+  });
+  return networkStage(series, outcomes, opts, plan);
+}
+
+/**
+ * {@link analyseSeries} with detection spread over `jobs` worker threads (detectPool.ts). The result is
+ * identical to analyseSeries' for every `jobs` value: stations are detected independently and put back in
+ * series order before tracking.
+ */
+export async function analyseSeriesParallel(series: readonly StationSeries[], opts: ParallelAnalyseOptions = {}): Promise<Analysis> {
+  const jobs = opts.jobs ?? defaultJobs();
+  if (!(Number.isInteger(jobs) && jobs >= 1)) throw new RangeError(`jobs must be a whole number of at least 1 (got ${jobs})`);
+  const { jobs: _jobs, onStation, ...rest } = opts;
+  if (jobs === 1 || series.length < 2) {
+    const r = analyseSeries(series, rest);
+    series.forEach((s, i) => onStation?.(i + 1, series.length, s));
+    return r;
   }
-  let allTracks = network ? trackFronts(all, metas) : [];
+  const plan = detectionPlan(series, rest);
+  const outcomes = await detectInPool(series, stationOptions(rest, plan.floor), jobs, (done, s) => onStation?.(done, series.length, s));
+  return networkStage(series, outcomes, rest, plan);
+}
+
+/** What the network stage needs of each station: from its series in one run, from a shard output in a merge. */
+function networkStation(s: StationSeries, outcome: StationOutcome): ShardStation {
+  const st: ShardStation = { station: s.station };
+  if (s.meta) st.meta = s.meta;
+  if (s.length > 0) st.span = { startMs: s.timeMs[0]!, endMs: s.timeMs[s.length - 1]! };
+  if ('error' in outcome) st.failure = `detection failed: ${outcome.error}`;
+  else if (s.meta && Number.isFinite(s.meta.latDeg)) st.fields = fieldsOf(s, s.meta);
+  return st;
+}
+
+function networkStage(series: readonly StationSeries[], outcomes: readonly StationOutcome[], opts: AnalyseOptions, plan: { network: boolean; minConfidence: number }): Analysis {
+  const events: PassageEvent[] = [];
+  outcomes.forEach((o) => {
+    if (!('error' in o)) events.push(...o.events);
+  });
+  return finishAnalysis(series.map((s, i) => networkStation(s, outcomes[i]!)), events, opts, plan);
+}
+
+/**
+ * Tracking, network coherence, frontogenesis and track speeds over the stations that were detected
+ * (`events`: their passages at the detection floor, in station order). Failed stations take no part.
+ */
+function finishAnalysis(stations: readonly ShardStation[], events: PassageEvent[], opts: AnalyseOptions, plan: { network: boolean; minConfidence: number }): Analysis {
+  const failures: StationFailure[] = stations.filter((s) => s.failure !== undefined).map((s) => ({ station: s.station, reason: s.failure! }));
+  const ok = stations.filter((s) => s.failure === undefined);
+  let all = events;
+  // A failed station takes no part in tracking: it neither joins fronts nor counts as a neighbour that saw nothing.
+  const metas = ok.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+  const network = plan.network && metas.length >= 3;
+  // Stations that never reported at the same time are never linked into one network or front.
+  const spans = new Map(ok.filter((s) => s.span !== undefined).map((s) => [s.station, s.span!]));
+  let allTracks = network ? trackFronts(all, metas, { spans }) : [];
   if (network) {
-    all = withNetworkCoherence(all, allTracks, metas, series).filter((e) => e.confidence >= minConfidence);
+    all = withNetworkCoherence(all, allTracks, metas, spans).filter((e) => e.confidence >= plan.minConfidence);
     // Tracks are refitted on the passages that remain.
-    allTracks = trackFronts(all, metas);
-  }
-  allTracks = opts.network === false ? [] : withFrontogenesis(allTracks, series);
+    allTracks = trackFronts(all, metas, { spans });
+  } else if (plan.network) all = all.filter((e) => e.confidence >= plan.minConfidence);
+  allTracks = opts.network === false ? [] : withFrontogenesisFields(allTracks, ok.map((s) => s.fields).filter((f): f is StationFields => f !== undefined));
   // The fitted speed is the speed normal to the front; an explicit --front-speed wins.
   if (opts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
   const kinds = opts.kinds;
   return {
     events: sortEvents(all.filter((e) => !kinds || kinds.has(e.kind))),
     tracks: allTracks.filter((t) => !kinds || kinds.has(t.kind)),
+    failures,
   };
+}
+
+/**
+ * One shard of a run (`fropa detect --shard K/N`): detection at the stations of the shard (inShard), the
+ * plan decided over the whole archive, and the NDJSON records `mergeShards` needs to finish the run.
+ */
+export async function analyseShard(series: readonly StationSeries[], shard: ShardSpec, opts: ParallelAnalyseOptions = {}): Promise<{ text: string; stations: number; failures: StationFailure[] }> {
+  const { jobs: jobsOpt, onStation, ...rest } = opts;
+  const plan = detectionPlan(series, rest);
+  const mine = series.filter((s) => inShard(s.station, shard));
+  const dopts = stationOptions(rest, plan.floor);
+  const jobs = jobsOpt ?? defaultJobs();
+  const outcomes: StationOutcome[] =
+    jobs > 1 && mine.length > 1
+      ? await detectInPool(mine, dopts, jobs, (done, s) => onStation?.(done, mine.length, s))
+      : mine.map((s, i) => {
+          let o: StationOutcome;
+          try {
+            o = { events: detectStation(s, { ...rest, ...dopts }) };
+          } catch (e) {
+            o = { error: (e as Error).message };
+          }
+          onStation?.(i + 1, mine.length, s);
+          return o;
+        });
+  const stations = mine.map((s, i) => networkStation(s, outcomes[i]!));
+  const events = outcomes.flatMap((o) => ('error' in o ? [] : o.events));
+  const header: ShardHeader = { shard, network: plan.network, floor: plan.floor, minConfidence: plan.minConfidence, archiveStations: series.length };
+  if (rest.frontSpeedKmh !== undefined) header.frontSpeedKmh = rest.frontSpeedKmh;
+  return { text: shardToNdjson(header, stations, events), stations: mine.length, failures: stations.filter((s) => s.failure).map((s) => ({ station: s.station, reason: s.failure! })) };
+}
+
+/**
+ * Combine the outputs of shards 1…N (`fropa merge`) into what one run over the whole archive gives: the
+ * passages and failures of every station, tracking, coherence and frontogenesis done on the merged passages.
+ * Throws UsageError when a shard is missing or repeated, the shards disagree on the archive or the plan, or a
+ * station appears twice.
+ */
+export function mergeShards(contents: readonly { source: string; content: ShardContent }[], opts: { kinds?: ReadonlySet<BoundaryKind> | null } = {}): Analysis & { stations: string[] } {
+  if (contents.length === 0) throw new UsageError('name the shard outputs to merge');
+  const first = contents[0]!.content.header;
+  const seen = new Set<number>();
+  for (const { source, content } of contents) {
+    const h = content.header;
+    if (h.shard.count !== first.shard.count || h.archiveStations !== first.archiveStations || h.network !== first.network || h.floor !== first.floor || h.minConfidence !== first.minConfidence || h.frontSpeedKmh !== first.frontSpeedKmh) {
+      throw new UsageError(`${source}: shard ${h.shard.index}/${h.shard.count} is from another run than ${contents[0]!.source} (archive size, shard count or detection options differ)`);
+    }
+    if (seen.has(h.shard.index)) throw new UsageError(`${source}: shard ${h.shard.index}/${h.shard.count} given twice`);
+    seen.add(h.shard.index);
+  }
+  const missing = Array.from({ length: first.shard.count }, (_, i) => i + 1).filter((k) => !seen.has(k));
+  if (missing.length) throw new UsageError(`missing shard${missing.length > 1 ? 's' : ''} ${missing.join(', ')} of ${first.shard.count}: every shard is needed for the result of one run`);
+  const byStation = new Map<string, { st: ShardStation; events: PassageEvent[] }>();
+  for (const { source, content } of contents) {
+    for (const st of content.stations) {
+      if (byStation.has(st.station)) throw new UsageError(`${source}: station ${st.station} is in two shards`);
+      byStation.set(st.station, { st, events: [] });
+    }
+    for (const e of content.events) {
+      const entry = byStation.get(e.station);
+      if (!entry) throw new UsageError(`${source}: a passage at ${e.station}, which has no station record`);
+      entry.events.push(e);
+    }
+  }
+  if (byStation.size !== first.archiveStations) throw new UsageError(`the shards hold ${byStation.size} stations, the archive ${first.archiveStations}`);
+  // As in one run: stations in id order (loadPaths sorts them), each station's passages in detection order.
+  const ids = [...byStation.keys()].sort();
+  const stations = ids.map((id) => byStation.get(id)!.st);
+  const events = ids.flatMap((id) => byStation.get(id)!.events);
+  const plan = { network: first.network, minConfidence: first.minConfidence };
+  // Detection options travel in the header; the merge adds only the kinds to keep.
+  const fopts: AnalyseOptions = { kinds: opts.kinds ?? null, network: first.network ? undefined : false };
+  if (first.frontSpeedKmh !== undefined) fopts.frontSpeedKmh = first.frontSpeedKmh;
+  return { ...finishAnalysis(stations, events, fopts, plan), stations: ids };
 }

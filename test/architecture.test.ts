@@ -16,7 +16,7 @@ const root = fileURLToPath(new URL('..', import.meta.url));
  * Layers from the bottom up; a file may import its own layer or a lower one. `src/<folder>/…` is in layer
  * `<folder>`; `src/pipeline.ts` and `src/index.ts` are the top two.
  */
-export const LAYERS = ['model', 'physics', 'signal', 'ingest', 'series', 'qc', 'detect', 'network', 'report', 'verify', 'pipeline', 'index'] as const;
+export const LAYERS = ['model', 'physics', 'signal', 'ingest', 'series', 'qc', 'detect', 'network', 'report', 'verify', 'season', 'parallel', 'pipeline', 'index'] as const;
 
 type Graph = Map<string, string[]>;
 

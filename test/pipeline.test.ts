@@ -14,7 +14,7 @@ test('analyseSeries(series, { frontSpeedKmh }) throws RangeError for 0, a negati
 test('analyseSeries(series, { minConfidence }) throws RangeError outside 0–1 and for NaN; 0 and 1 are accepted', () => {
   // confidence is defined on [0, 1] (src/model/event.ts PassageEvent.confidence)
   for (const v of [-0.1, 1.01, NaN]) assert.throws(() => analyseSeries([], { minConfidence: v }), isRange(/minConfidence/), String(v));
-  for (const v of [0, 1]) assert.equal(analyseSeries([], { minConfidence: v }), { events: [], tracks: [] });
+  for (const v of [0, 1]) assert.equal(analyseSeries([], { minConfidence: v }), { events: [], tracks: [], failures: [] });
 });
 
 test('detectStation(series, opts) checks the same options (checkDetectOptions)', () => {

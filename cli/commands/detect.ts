@@ -1,6 +1,7 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { analyseSeries, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
+import { analyseShard, parseShard, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
 import { inputArgs, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { analysisStatus, parseJobs, runAnalysis } from '../analysis.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
 export function parseKinds(spec: unknown): Set<BoundaryKind> | null {
@@ -37,13 +38,19 @@ function lastNumber(v: unknown): number | undefined {
   return typeof x === 'number' ? x : Number(x);
 }
 
-/** Run detect; returns the exit code (1 when no station has data). */
+/** Run detect; returns the exit code (1 when no station has data or every station failed, 3 when some failed). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
   const args = inputArgs(raw);
   const kinds = parseKinds(raw.kinds);
   const dopts = detectOptions(raw);
+  const jobs = parseJobs(raw.jobs);
   const local = Boolean(raw.local);
   if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
+  const shard = raw.shard === undefined ? undefined : parseShard(String(Array.isArray(raw.shard) ? raw.shard[raw.shard.length - 1] : raw.shard));
+  if (shard && (raw.outDir !== undefined || (raw.format !== undefined && raw.format !== 'ndjson' && raw.format !== 'table'))) {
+    throw new UsageError('--shard writes the shard records (NDJSON) that fropa merge combines; leave out --format and --out-dir');
+  }
+  if (shard && kinds) throw new UsageError('--kinds with --shard: give --kinds to fropa merge (tracking needs every kind)');
   const opts = await resolveLoadOptions(args, io);
   const result = loadPaths(args.paths, opts);
   if (result.series.length === 0) {
@@ -51,14 +58,23 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     return 1;
   }
   printLoadSummary(result, Boolean(args.quiet), io);
-  const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds });
+  if (shard) {
+    const r = await analyseShard(result.series, shard, { ...dopts, network: raw.network !== false, jobs });
+    for (const f of r.failures) io.stderr(`fropa: station ${f.station} skipped: ${f.reason}\n`);
+    await writeOutput(r.text, args.out, io);
+    if (!args.quiet) io.stderr(`fropa: shard ${shard.index}/${shard.count}: ${r.stations} of ${result.series.length} stations\n`);
+    return r.failures.length === 0 ? 0 : r.failures.length >= r.stations ? 1 : 3;
+  }
+  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io, { files: result.reports.length, quiet: Boolean(args.quiet) });
+  if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);
+  const { events, tracks } = analysis;
   const stations = result.series.map((s) => s.station);
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {
     const { summary, files } = outputFolderFiles(events, tracks, stations);
     const written = writeOutputFolder(outDir, files);
     io.stdout(summary + written.map((p) => `wrote ${p}`).join('\n') + '\n');
-    return 0;
+    return analysisStatus(analysis, result.series.length, io);
   }
   const format = String(raw.format ?? 'table');
   const text =
@@ -70,6 +86,6 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
           ? eventsToNdjson(events)
           : passagesToTable(events, tracks, { zone: local ? opts.zone : undefined, stations });
   await writeOutput(text, args.out, io);
-  return 0;
+  return analysisStatus(analysis, result.series.length, io);
 }
 

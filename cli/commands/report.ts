@@ -1,7 +1,8 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
-import { analyseSeries, CAUTION, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
+import { CAUTION, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
 import { STDIN_TOKEN, inputArgs, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
+import { analysisStatus, parseJobs, runAnalysis } from '../analysis.js';
 
 /** The last value of `--from`/`--to` (undefined when absent) as epoch ms UTC; see parsePeriodTime. */
 export function parseReportTime(v: unknown, name: string, endOfDay = false): number | undefined {
@@ -26,6 +27,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const toMs = parseReportTime(raw.to, '--to', true);
   if (fromMs !== undefined && toMs !== undefined && !(toMs > fromMs)) throw new UsageError('--to must be later than --from');
   const wanted = parseStations(raw.station);
+  const jobs = parseJobs(raw.jobs);
   const opts = await resolveLoadOptions(args, io);
   const result = loadPaths(args.paths, opts);
   if (result.series.length === 0) {
@@ -40,7 +42,9 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     return 1;
   }
   // Detection and tracking on all the data (context outside the period helps), as in `fropa detect`.
-  const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds });
+  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io, { files: result.reports.length, quiet: Boolean(args.quiet) });
+  if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);
+  const { events, tracks } = analysis;
   const files = result.reports
     .filter((f) => f.format !== 'skipped' && f.format !== 'stations')
     .map((f) => ({ file: f.file, format: f.format, parsed: f.parsed, rejected: f.rejected }));
@@ -53,5 +57,5 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     const n = eventsInPeriod(events, series, fromMs, toMs).length;
     io.stdout(`wrote ${out} (${(Buffer.byteLength(html) / 1024).toFixed(0)} KiB): ${series.length} station${series.length === 1 ? '' : 's'}, ${n} passage${n === 1 ? '' : 's'}\n${CAUTION}\n`);
   }
-  return 0;
+  return analysisStatus(analysis, result.series.length, io);
 }

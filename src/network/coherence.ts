@@ -9,7 +9,7 @@
  */
 import type { FrontTrack, PassageEvent, StationMeta, StationSeries } from '../model/index.js';
 import { MS_PER_HOUR } from '../physics/constants.js';
-import { stationDistanceKm } from '../physics/geo.js';
+import { stationGraph, type StationSpan } from './neighbours.js';
 
 /** Neighbours are stations within this distance. */
 export const NEIGHBOUR_KM = 300;
@@ -22,9 +22,9 @@ const ISOLATED_FACTOR = 0.75;
 
 const FRONTS = new Set(['cold-front', 'warm-front', 'occluded-front']);
 
-function reporting(s: StationSeries | undefined, tMs: number): boolean {
-  if (!s || s.length === 0) return false;
-  return s.timeMs[0]! <= tMs - 3 * MS_PER_HOUR && s.timeMs[s.length - 1]! >= tMs + 3 * MS_PER_HOUR;
+function reporting(s: StationSpan | undefined, tMs: number): boolean {
+  if (!s) return false;
+  return s.startMs <= tMs - 3 * MS_PER_HOUR && s.endMs >= tMs + 3 * MS_PER_HOUR;
 }
 
 /**
@@ -32,18 +32,44 @@ function reporting(s: StationSeries | undefined, tMs: number): boolean {
  * those it changes. Stations without coordinates, or without two neighbours reporting at the time, are
  * left as they are (single-station data work as before).
  */
-export function withNetworkCoherence(events: readonly PassageEvent[], tracks: readonly FrontTrack[], metas: readonly StationMeta[], series: readonly StationSeries[]): PassageEvent[] {
+export function withNetworkCoherence(
+  events: readonly PassageEvent[],
+  tracks: readonly FrontTrack[],
+  metas: readonly StationMeta[],
+  series: readonly StationSeries[] | ReadonlyMap<string, StationSpan>,
+): PassageEvent[] {
   const tracked = new Map<PassageEvent, FrontTrack>();
   for (const t of tracks) for (const m of t.members) if (t.members.length >= 3) tracked.set(m.event, t);
-  const meta = new Map(metas.filter((m) => Number.isFinite(m.latDeg) && Number.isFinite(m.lonDeg)).map((m) => [m.id, m]));
-  const bySeries = new Map(series.map((s) => [s.station, s]));
+  const located = metas.filter((m) => Number.isFinite(m.latDeg) && Number.isFinite(m.lonDeg));
+  // When each station reported (its series' first and last report, or the spans given).
+  const bySeries: ReadonlyMap<string, StationSpan> =
+    series instanceof Map ? series : new Map((series as readonly StationSeries[]).filter((s) => s.length > 0).map((s) => [s.station, { startMs: s.timeMs[0]!, endMs: s.timeMs[s.length - 1]! }]));
+  // Every station within NEIGHBOUR_KM (geodesic), found through the grid of neighbours.ts in about linear time.
+  const graph = stationGraph(located, NEIGHBOUR_KM, Number.MAX_SAFE_INTEGER);
   const neighbours = new Map<string, string[]>();
-  for (const [id, a] of meta) {
-    neighbours.set(
-      id,
-      [...meta.values()].filter((b) => b.id !== id && stationDistanceKm(a.latDeg, a.lonDeg, b.latDeg, b.lonDeg) <= NEIGHBOUR_KM).map((b) => b.id),
-    );
+  located.forEach((m, i) => {
+    if (!neighbours.has(m.id)) neighbours.set(m.id, [...graph.neighbours[i]!].sort((a, b) => a - b).map((j) => located[j]!.id).filter((id) => id !== m.id));
+  });
+  // Front passage times per station, sorted, to look up "a front within SAME_FRONT_MS" by binary search.
+  const frontTimes = new Map<string, number[]>();
+  for (const o of events) {
+    if (!FRONTS.has(o.kind)) continue;
+    const list = frontTimes.get(o.station);
+    if (list) list.push(o.timeMs);
+    else frontTimes.set(o.station, [o.timeMs]);
   }
+  for (const list of frontTimes.values()) list.sort((a, b) => a - b);
+  const sawFront = (id: string, tMs: number): boolean => {
+    const list = frontTimes.get(id);
+    if (!list) return false;
+    let lo = 0, hi = list.length;
+    while (lo < hi) {
+      const m = (lo + hi) >> 1;
+      if (list[m]! < tMs - SAME_FRONT_MS) lo = m + 1;
+      else hi = m;
+    }
+    return lo < list.length && list[lo]! <= tMs + SAME_FRONT_MS;
+  };
   return events.map((e) => {
     if (!FRONTS.has(e.kind)) return e;
     const track = tracked.get(e);
@@ -53,7 +79,7 @@ export function withNetworkCoherence(events: readonly PassageEvent[], tracks: re
     }
     const near = (neighbours.get(e.station) ?? []).filter((id) => reporting(bySeries.get(id), e.timeMs));
     if (near.length < 2) return e;
-    const seen = near.filter((id) => events.some((o) => o.station === id && FRONTS.has(o.kind) && Math.abs(o.timeMs - e.timeMs) <= SAME_FRONT_MS));
+    const seen = near.filter((id) => sawFront(id, e.timeMs));
     if (seen.length > 0) return e;
     const confidence = Math.round(e.confidence * ISOLATED_FACTOR * 100) / 100;
     return { ...e, confidence, evidence: [...e.evidence, `− none of ${near.length} neighbouring stations within ${NEIGHBOUR_KM} km saw a front within ${SAME_FRONT_MS / MS_PER_HOUR} h: a local boundary?`] };

@@ -88,7 +88,8 @@ export function valueAt(timeMs: ArrayLike<number>, v: ArrayLike<number>, t: numb
   return NaN;
 }
 
-interface StationFields {
+/** What frontogenesis needs of a station: its position and, per report, θ and the wind components. */
+export interface StationFields {
   meta: StationMeta;
   timeMs: Float64Array;
   thetaK: Float64Array;
@@ -97,7 +98,7 @@ interface StationFields {
 }
 
 /** θ (from temperature and station pressure, or the standard-atmosphere pressure at the station height) and u, v per report. */
-function fieldsOf(s: StationSeries, meta: StationMeta): StationFields {
+export function fieldsOf(s: StationSeries, meta: StationMeta): StationFields {
   const t = cleanColumn(s, 'temperatureC');
   const p = cleanColumn(s, 'stationPressureHpa');
   const d = cleanColumn(s, 'windDirDeg');
@@ -120,16 +121,33 @@ function fieldsOf(s: StationSeries, meta: StationMeta): StationFields {
  * track gets the median over its passages. Returns new tracks (inputs unchanged).
  */
 export function withFrontogenesis(tracks: readonly FrontTrack[], series: readonly StationSeries[], neighbours = 4): FrontTrack[] {
+  const fields: StationFields[] = [];
+  for (const s of series) if (s.meta && Number.isFinite(s.meta.latDeg)) fields.push(fieldsOf(s, s.meta));
+  return withFrontogenesisFields(tracks, fields, neighbours);
+}
+
+/** {@link withFrontogenesis} from the stations' fields (as kept by shard outputs) instead of their series. */
+export function withFrontogenesisFields(tracks: readonly FrontTrack[], fields: readonly StationFields[], neighbours = 4): FrontTrack[] {
   const byId = new Map<string, StationFields>();
-  for (const s of series) if (s.meta && Number.isFinite(s.meta.latDeg)) byId.set(s.station, fieldsOf(s, s.meta));
+  for (const f of fields) byId.set(f.meta.id, f);
+  // The neighbourhood of a station (and its projection) is the same for all its passages: computed once.
+  const nearOf = new Map<StationFields, { near: StationFields[]; proj: { xKm: Float64Array; yKm: Float64Array } }>();
+  const neighbourhood = (here: StationFields) => {
+    let got = nearOf.get(here);
+    if (!got) {
+      const others = [...byId.values()].filter((f) => f !== here);
+      const dist = (f: StationFields) => Math.hypot(f.meta.latDeg - here.meta.latDeg, (f.meta.lonDeg - here.meta.lonDeg) * Math.cos((here.meta.latDeg * Math.PI) / 180));
+      const near = [here, ...others.sort((a, b) => dist(a) - dist(b) || a.meta.id.localeCompare(b.meta.id)).slice(0, neighbours)];
+      got = { near, proj: projectLocalKm(near.map((f) => f.meta), here.meta) };
+      nearOf.set(here, got);
+    }
+    return got;
+  };
   return tracks.map((t) => {
     const members = t.members.map((m) => {
       const here = byId.get(m.station);
       if (!here) return { ...m, frontogenesisKPer100kmPer3h: NaN };
-      const others = [...byId.values()].filter((f) => f !== here);
-      const dist = (f: StationFields) => Math.hypot(f.meta.latDeg - here.meta.latDeg, (f.meta.lonDeg - here.meta.lonDeg) * Math.cos((here.meta.latDeg * Math.PI) / 180));
-      const near = [here, ...others.sort((a, b) => dist(a) - dist(b) || a.meta.id.localeCompare(b.meta.id)).slice(0, neighbours)];
-      const proj = projectLocalKm(near.map((f) => f.meta), here.meta);
+      const { near, proj } = neighbourhood(here);
       const at = (col: 'thetaK' | 'uMs' | 'vMs') => near.map((f) => valueAt(f.timeMs, f[col], m.event.timeMs));
       const th = planeGradient(proj.xKm, proj.yKm, at('thetaK'));
       const u = planeGradient(proj.xKm, proj.yKm, at('uMs'));

@@ -11,12 +11,14 @@
  * is strengthening (frontogenesis), shrinking change with a widening zone is weakening (frontolysis).
  */
 import type { BoundaryKind, FrontTrack, PassageEvent, StationMeta, StrengthTrend, TrackMember } from '../model/index.js';
-import { projectLocalKm, stationDistanceKm } from '../physics/geo.js';
+import { projectLocalKm } from '../physics/geo.js';
+import { stationGraph, type StationSpan } from './neighbours.js';
+export { networksOf, type StationSpan } from './neighbours.js';
 
 /** @deprecated Re-exported for old import paths; import from src/model/. */
 export type { FrontTrack, StrengthTrend, TrackMember } from '../model/track.js';
 import { MS_PER_HOUR } from '../physics/constants.js';
-import { leastSquaresPlane } from './leastSquaresPlane.js';
+import { leastSquaresPlane, PLANE_DEGENERATE_RATIO } from './leastSquaresPlane.js';
 
 export interface TrackOptions {
   /** Kinds to track (default cold, warm and occluded fronts, drylines). */
@@ -30,6 +32,10 @@ export interface TrackOptions {
   linkKm?: number;
   /** Fewest stations for a track (default 3: a plane needs three). */
   minStations?: number;
+  /** Nearest stations each station is linked to (default 12). */
+  neighbours?: number;
+  /** When each station reported (first and last observation); stations that never reported at the same time are never linked. */
+  spans?: ReadonlyMap<string, StationSpan>;
 }
 
 interface Point {
@@ -63,6 +69,27 @@ export function fitPlane(pts: readonly { x: number; y: number; t: number }[], w?
   return { t0: p.mean - p.dfdx * p.meanX - p.dfdy * p.meanY, sx: p.dfdx, sy: p.dfdy };
 }
 
+/**
+ * {@link fitPlane} of exactly three points, without allocating: the same sums in the same order as
+ * `leastSquaresPlane` with unit weights (so the same plane to the last bit), for the tracker's inner loop.
+ */
+function fitPlane3(a: Point, b: Point, c: Point): Plane | null {
+  const mx = (a.x + b.x + c.x) / 3, my = (a.y + b.y + c.y) / 3, mf = (a.t + b.t + c.t) / 3;
+  let sxx = 0, sxy = 0, syy = 0, sxf = 0, syf = 0;
+  for (const p of [a, b, c]) {
+    const dx = p.x - mx, dy = p.y - my, df = p.t - mf;
+    sxx += dx * dx;
+    sxy += dx * dy;
+    syy += dy * dy;
+    sxf += dx * df;
+    syf += dy * df;
+  }
+  const det = sxx * syy - sxy * sxy;
+  if (!(Math.abs(det) > PLANE_DEGENERATE_RATIO * (sxx + syy) * (sxx + syy))) return null;
+  const dfdx = (sxf * syy - syf * sxy) / det, dfdy = (syf * sxx - sxf * sxy) / det;
+  return { t0: mf - dfdx * mx - dfdy * my, sx: dfdx, sy: dfdy };
+}
+
 /** Speed (km/h) and direction of motion (degrees true) from a slowness vector in h/km. */
 export function motionFromSlowness(sx: number, sy: number): { speedKmh: number; directionDeg: number } {
   const m = Math.hypot(sx, sy);
@@ -85,33 +112,6 @@ function robustFit(pts: Point[], scaleH: number): { plane: Plane; weights: numbe
     plane = next;
   }
   return plane ? { plane, weights: w } : null;
-}
-
-/** Stations grouped into networks: connected components of the graph with edges shorter than `linkKm`. */
-export function networksOf(stations: readonly StationMeta[], linkKm: number): StationMeta[][] {
-  const n = stations.length;
-  const comp = new Int32Array(n).fill(-1);
-  let c = 0;
-  for (let i = 0; i < n; i++) {
-    if (comp[i] !== -1) continue;
-    const stack = [i];
-    comp[i] = c;
-    while (stack.length) {
-      const a = stack.pop()!;
-      for (let b = 0; b < n; b++) {
-        if (comp[b] !== -1) continue;
-        const sa = stations[a]!, sb = stations[b]!;
-        if (stationDistanceKm(sa.latDeg, sa.lonDeg, sb.latDeg, sb.lonDeg) <= linkKm) {
-          comp[b] = c;
-          stack.push(b);
-        }
-      }
-    }
-    c++;
-  }
-  const out: StationMeta[][] = Array.from({ length: c }, () => []);
-  for (let i = 0; i < n; i++) out[comp[i]!]!.push(stations[i]!);
-  return out;
 }
 
 /** Ordinary least-squares slope of y on x (NaN with fewer than 3 finite pairs or no spread). */
@@ -168,7 +168,19 @@ export function strengthTrend(members: readonly TrackMember[], speedKmh: number,
 
 /**
  * Group passages into fronts and fit their motion. Pure and deterministic: the same events and stations
- * give the same tracks. Events at stations without coordinates are left out.
+ * give the same tracks, whatever their order. Events at stations without coordinates are left out.
+ *
+ * Cost about linear in stations and passages: stations are linked to their `neighbours` nearest stations
+ * (neighbours.ts); a proposal is a triplet of passages at a station and two of its neighbours whose times
+ * a front of plausible speed could join, scored by the passages near its plane at that station and its
+ * neighbours; the best proposal of all (most stations, then least squared residual, then the first in time)
+ * is taken, grown from station to neighbouring station while passages lie within the tolerance of its
+ * plane, refitted and removed, and the next best taken. Each passage keeps only its own best proposal in a
+ * priority queue, re-scored lazily when its turn comes (a score only worsens as passages are used, so this
+ * takes the same proposals as re-scoring everything after each front). On a network of at most
+ * `neighbours` + 1 stations every station is every other's neighbour and the search is the exhaustive one.
+ * Stations whose data do not overlap in time are never linked (`spans`), so two regions observed in
+ * different years never share a front, a network or an expected passage.
  */
 export function trackFronts(events: readonly PassageEvent[], stations: readonly StationMeta[], opts: TrackOptions = {}): FrontTrack[] {
   const kinds = opts.kinds ?? (['cold-front', 'warm-front', 'occluded-front', 'dryline'] as const);
@@ -177,68 +189,37 @@ export function trackFronts(events: readonly PassageEvent[], stations: readonly 
   const maxSpeed = opts.maxSpeedKmh ?? 120;
   const minStations = opts.minStations ?? 3;
   const located = stations.filter((s) => Number.isFinite(s.latDeg) && Number.isFinite(s.lonDeg));
+  const graph = stationGraph(located, opts.linkKm ?? 800, opts.neighbours ?? 12, opts.spans);
+  const nets: number[][] = Array.from({ length: graph.networks }, () => []);
+  for (let i = 0; i < located.length; i++) nets[graph.network[i]!]!.push(i);
+  const eventsByStation = new Map<string, PassageEvent[]>();
+  for (const e of events) {
+    const list = eventsByStation.get(e.station);
+    if (list) list.push(e);
+    else eventsByStation.set(e.station, [e]);
+  }
   const tracks: FrontTrack[] = [];
-  for (const net of networksOf(located, opts.linkKm ?? 800)) {
-    if (net.length < minStations) continue;
+  for (const members of nets) {
+    if (members.length < minStations) continue;
+    const net = members.map((i) => located[i]!);
+    const local = new Map(members.map((g, i) => [g, i]));
+    const nb = members.map((g) => Array.from(graph.neighbours[g]!, (j) => local.get(j)!));
     const proj = projectLocalKm(net);
-    const index = new Map(net.map((s, i) => [s.id, i]));
     for (const kind of kinds) {
-      const pts: Point[] = events
-        .filter((e) => e.kind === kind && index.has(e.station))
-        .map((e) => {
-          const i = index.get(e.station)!;
-          return { e, station: i, x: proj.xKm[i]!, y: proj.yKm[i]!, t: 0 };
-        })
-        .sort((a, b) => a.e.timeMs - b.e.timeMs || a.station - b.station);
+      const pts: Point[] = [];
+      net.forEach((s, i) => {
+        for (const e of eventsByStation.get(s.id) ?? []) if (e.kind === kind) pts.push({ e, station: i, x: proj.xKm[i]!, y: proj.yKm[i]!, t: 0 });
+      });
+      pts.sort((a, b) => a.e.timeMs - b.e.timeMs || a.station - b.station);
       if (pts.length < minStations) continue;
       const ref = pts[0]!.e.timeMs;
       for (const p of pts) p.t = (p.e.timeMs - ref) / MS_PER_HOUR;
-      // Largest plausible spread of passage times over this network.
-      let diameter = 0;
-      for (let i = 0; i < net.length; i++) for (let j = i + 1; j < net.length; j++) diameter = Math.max(diameter, Math.hypot(proj.xKm[i]! - proj.xKm[j]!, proj.yKm[i]! - proj.yKm[j]!));
-      const spanH = diameter / minSpeed + tolH;
-      const used = new Uint8Array(pts.length);
-      for (;;) {
-        let best: { members: number[]; plane: Plane; rss: number } | null = null;
-        for (let a = 0; a < pts.length; a++) {
-          if (used[a]) continue;
-          for (let b = a + 1; b < pts.length && pts[b]!.t - pts[a]!.t <= spanH; b++) {
-            if (used[b] || pts[b]!.station === pts[a]!.station) continue;
-            for (let c = b + 1; c < pts.length && pts[c]!.t - pts[a]!.t <= spanH; c++) {
-              if (used[c] || pts[c]!.station === pts[a]!.station || pts[c]!.station === pts[b]!.station) continue;
-              const plane = fitPlane([pts[a]!, pts[b]!, pts[c]!]);
-              if (!plane) continue;
-              const { speedKmh } = motionFromSlowness(plane.sx, plane.sy);
-              if (!(speedKmh >= minSpeed && speedKmh <= maxSpeed)) continue;
-              // Consensus: at each station, the unused passage nearest the plane within the tolerance.
-              const members: number[] = [];
-              let rss = 0;
-              const byStation = new Map<number, { k: number; r: number }>();
-              for (let k = 0; k < pts.length; k++) {
-                if (used[k]) continue;
-                const p = pts[k]!;
-                const r = Math.abs(p.t - (plane.t0 + plane.sx * p.x + plane.sy * p.y));
-                if (r > tolH) continue;
-                const prev = byStation.get(p.station);
-                if (!prev || r < prev.r) byStation.set(p.station, { k, r });
-              }
-              for (const { k, r } of byStation.values()) {
-                members.push(k);
-                rss += r * r;
-              }
-              if (members.length < minStations) continue;
-              if (!best || members.length > best.members.length || (members.length === best.members.length && rss < best.rss)) {
-                best = { members: members.sort((u, v) => u - v), plane, rss };
-              }
-            }
-          }
-        }
-        if (!best) break;
-        const memberPts = best.members.map((k) => pts[k]!);
+      const search = new TrackSearch(pts, net.length, nb, tolH, minSpeed, maxSpeed, minStations);
+      for (const found of search.run()) {
+        const memberPts = found.members.map((k) => pts[k]!);
         const fit = robustFit(memberPts, Math.max(tolH / 3, 0.25));
-        const plane = fit?.plane ?? best.plane;
-        for (const k of best.members) used[k] = 1;
-        tracks.push(buildTrack(kind, memberPts, plane, ref, net, proj, tolH));
+        const plane = fit?.plane ?? found.plane;
+        tracks.push(buildTrack(kind, memberPts, plane, ref, net, proj, expectedStations(found.members, pts, nb, net.length), opts.spans));
       }
     }
   }
@@ -254,6 +235,245 @@ export function trackFronts(events: readonly PassageEvent[], stations: readonly 
   return tracks;
 }
 
+/** Stations next to a front: the members' neighbours that are not members themselves (network-local indices, ascending). */
+function expectedStations(members: readonly number[], pts: readonly Point[], nb: readonly (readonly number[])[], n: number): number[] {
+  const have = new Uint8Array(n);
+  for (const k of members) have[pts[k]!.station] = 1;
+  const near = new Uint8Array(n);
+  for (const k of members) for (const j of nb[pts[k]!.station]!) if (!have[j]) near[j] = 1;
+  const out: number[] = [];
+  for (let i = 0; i < n; i++) if (near[i]) out.push(i);
+  return out;
+}
+
+interface Proposal {
+  members: number[];
+  plane: Plane;
+  rss: number;
+}
+
+/** Max-heap order of proposals: more stations, then smaller rss, then the earlier seed passage. */
+function better(countA: number, rssA: number, seedA: number, countB: number, rssB: number, seedB: number): boolean {
+  return countA !== countB ? countA > countB : rssA !== rssB ? rssA < rssB : seedA < seedB;
+}
+
+/** The greedy consensus search of {@link trackFronts} over one kind in one network. */
+class TrackSearch {
+  private readonly used: Uint8Array;
+  /** Per station: indices into pts, in time order. */
+  private readonly atStation: number[][];
+  constructor(
+    private readonly pts: readonly Point[],
+    stations: number,
+    private readonly nb: readonly (readonly number[])[],
+    private readonly tolH: number,
+    private readonly minSpeed: number,
+    private readonly maxSpeed: number,
+    private readonly minStations: number,
+  ) {
+    this.used = new Uint8Array(pts.length);
+    this.atStation = Array.from({ length: stations }, () => []);
+    pts.forEach((p, k) => this.atStation[p.station]!.push(k));
+  }
+
+  /** Every front, best first. */
+  *run(): Generator<Proposal> {
+    const heap = new SeedHeap();
+    for (let a = 0; a < this.pts.length; a++) {
+      const best = this.bestOf(a);
+      if (best) heap.push(a, best.members.length, best.rss);
+    }
+    for (;;) {
+      const top = heap.pop();
+      if (!top) return;
+      if (this.used[top.seed]) continue;
+      const best = this.bestOf(top.seed);
+      if (!best) continue;
+      if (best.members.length !== top.count || best.rss !== top.rss) {
+        heap.push(top.seed, best.members.length, best.rss);
+        continue;
+      }
+      const members = this.grow(best);
+      for (const k of members) this.used[k] = 1;
+      yield { ...best, members };
+    }
+  }
+
+  /** The unused passage at a station nearest the plane within the tolerance (the earlier on ties), or -1. */
+  private nearest(station: number, plane: Plane): { k: number; r: number } {
+    const list = this.atStation[station]!;
+    const p0 = this.pts[list[0] ?? 0];
+    if (!p0) return { k: -1, r: Infinity };
+    const tau = plane.t0 + plane.sx * p0.x + plane.sy * p0.y;
+    let lo = 0, hi = list.length;
+    while (lo < hi) {
+      const m = (lo + hi) >> 1;
+      if (this.pts[list[m]!]!.t < tau - this.tolH) lo = m + 1;
+      else hi = m;
+    }
+    let k = -1, r = Infinity;
+    for (let q = lo; q < list.length; q++) {
+      const idx = list[q]!;
+      const p = this.pts[idx]!;
+      if (p.t > tau + this.tolH) break;
+      if (this.used[idx]) continue;
+      const d = Math.abs(p.t - tau);
+      if (d <= this.tolH && d < r) {
+        k = idx;
+        r = d;
+      }
+    }
+    return { k, r };
+  }
+
+  /** Consensus of a plane over a station and its neighbours: members (ascending) and their squared residuals. */
+  private consensus(station: number, plane: Plane): { members: number[]; rss: number } {
+    const members: number[] = [];
+    let rss = 0;
+    const nb = this.nb[station]!;
+    for (let q = -1; q < nb.length; q++) {
+      const { k, r } = this.nearest(q < 0 ? station : nb[q]!, plane);
+      if (k < 0) continue;
+      members.push(k);
+      rss += r * r;
+    }
+    return { members: members.sort((u, v) => u - v), rss };
+  }
+
+  /** Best proposal seeded at passage a (a and two later passages at its neighbours), or null. */
+  private bestOf(a: number): Proposal | null {
+    const pa = this.pts[a]!;
+    if (this.used[a]) return null;
+    // Later passages at neighbouring stations that a front slower than minSpeed could not join are skipped:
+    // on a plane with |s| ≤ 1/minSpeed, |t_b − t_a| ≤ distance / minSpeed.
+    const cands: number[] = [];
+    for (const s of this.nb[pa.station]!) {
+      const list = this.atStation[s]!;
+      let lo = 0, hi = list.length;
+      while (lo < hi) {
+        const m = (lo + hi) >> 1;
+        if (list[m]! <= a) lo = m + 1;
+        else hi = m;
+      }
+      for (let q = lo; q < list.length; q++) {
+        const k = list[q]!;
+        if (this.used[k]) continue;
+        const p = this.pts[k]!;
+        if (p.t - pa.t > Math.hypot(p.x - pa.x, p.y - pa.y) / this.minSpeed + 1e-9) break;
+        cands.push(k);
+      }
+    }
+    cands.sort((u, v) => u - v);
+    let best: Proposal | null = null;
+    for (let i = 0; i < cands.length; i++) {
+      const pb = this.pts[cands[i]!]!;
+      for (let j = i + 1; j < cands.length; j++) {
+        const pc = this.pts[cands[j]!]!;
+        if (pc.station === pb.station) continue;
+        const plane = fitPlane3(pa, pb, pc);
+        if (!plane) continue;
+        const { speedKmh } = motionFromSlowness(plane.sx, plane.sy);
+        if (!(speedKmh >= this.minSpeed && speedKmh <= this.maxSpeed)) continue;
+        const c = this.consensus(pa.station, plane);
+        if (c.members.length < this.minStations) continue;
+        if (!best || c.members.length > best.members.length || (c.members.length === best.members.length && c.rss < best.rss)) best = { members: c.members, plane, rss: c.rss };
+      }
+    }
+    return best;
+  }
+
+  /**
+   * Members of a proposal grown breadth-first from station to neighbouring station while passages lie within
+   * the tolerance of its plane (ascending). The plane is refitted (least squares) each time the members have
+   * grown by half, so a front followed across hundreds of stations is not held to the plane of its first
+   * three; a station tried under an older plane is tried again under the new one.
+   */
+  private grow(p: Proposal): number[] {
+    const n = this.atStation.length;
+    const tried = new Int32Array(n).fill(-1);
+    const member = new Uint8Array(n);
+    const members = [...p.members];
+    let plane = p.plane;
+    let version = 0;
+    let refitAt = Math.ceil(members.length * 1.5);
+    const queue: number[] = [];
+    for (const k of members) member[this.pts[k]!.station] = 1;
+    const seed = this.pts[p.members[0]!]!.station;
+    for (const s of this.nb[seed]!) tried[s] = 0;
+    for (const k of members) queue.push(this.pts[k]!.station);
+    for (let head = 0; head < queue.length; head++) {
+      const s = queue[head]!;
+      for (const j of this.nb[s]!) {
+        if (member[j] || tried[j] === version) continue;
+        tried[j] = version;
+        const { k } = this.nearest(j, plane);
+        if (k < 0) continue;
+        members.push(k);
+        member[j] = 1;
+        queue.push(j);
+        if (members.length >= refitAt) {
+          const next = fitPlane(members.map((m) => this.pts[m]!));
+          if (next && motionFromSlowness(next.sx, next.sy).speedKmh >= this.minSpeed) {
+            plane = next;
+            version++;
+            // Stations of the queue so far are visited again under the new plane.
+            for (const k2 of members) queue.push(this.pts[k2]!.station);
+          }
+          refitAt = Math.ceil(members.length * 1.5);
+        }
+      }
+    }
+    return members.sort((u, v) => u - v);
+  }
+}
+
+/** Binary max-heap of seed passages keyed by their best proposal's score (see {@link better}). */
+class SeedHeap {
+  private seeds: number[] = [];
+  private counts: number[] = [];
+  private rsss: number[] = [];
+  push(seed: number, count: number, rss: number): void {
+    this.seeds.push(seed);
+    this.counts.push(count);
+    this.rsss.push(rss);
+    let i = this.seeds.length - 1;
+    while (i > 0) {
+      const parent = (i - 1) >> 1;
+      if (!this.above(i, parent)) break;
+      this.swap(i, parent);
+      i = parent;
+    }
+  }
+  pop(): { seed: number; count: number; rss: number } | null {
+    if (this.seeds.length === 0) return null;
+    const top = { seed: this.seeds[0]!, count: this.counts[0]!, rss: this.rsss[0]! };
+    const last = this.seeds.length - 1;
+    this.swap(0, last);
+    this.seeds.pop();
+    this.counts.pop();
+    this.rsss.pop();
+    let i = 0;
+    for (;;) {
+      const l = 2 * i + 1, r = l + 1;
+      let m = i;
+      if (l < this.seeds.length && this.above(l, m)) m = l;
+      if (r < this.seeds.length && this.above(r, m)) m = r;
+      if (m === i) break;
+      this.swap(i, m);
+      i = m;
+    }
+    return top;
+  }
+  private above(i: number, j: number): boolean {
+    return better(this.counts[i]!, this.rsss[i]!, this.seeds[i]!, this.counts[j]!, this.rsss[j]!, this.seeds[j]!);
+  }
+  private swap(i: number, j: number): void {
+    [this.seeds[i], this.seeds[j]] = [this.seeds[j]!, this.seeds[i]!];
+    [this.counts[i], this.counts[j]] = [this.counts[j]!, this.counts[i]!];
+    [this.rsss[i], this.rsss[j]] = [this.rsss[j]!, this.rsss[i]!];
+  }
+}
+
 function buildTrack(
   kind: BoundaryKind,
   pts: Point[],
@@ -261,7 +481,8 @@ function buildTrack(
   refMs: number,
   net: StationMeta[],
   proj: { xKm: Float64Array; yKm: Float64Array; origin: { latDeg: number; lonDeg: number } },
-  tolH: number,
+  near: readonly number[],
+  spans: ReadonlyMap<string, StationSpan> | undefined,
 ): FrontTrack {
   const motion = motionFromSlowness(plane.sx, plane.sy);
   const ux = Math.sin((motion.directionDeg * Math.PI) / 180);
@@ -277,12 +498,13 @@ function buildTrack(
   members.sort((a, b) => a.event.timeMs - b.event.timeMs);
   const rms = Math.sqrt(members.reduce((s, m) => s + m.residualMin ** 2, 0) / members.length);
   const st = strengthTrend(members, motion.speedKmh, kind);
-  const have = new Set(members.map((m) => m.station));
-  const expected = net
-    .map((s, i) => ({ s, i }))
-    .filter(({ s }) => !have.has(s.id))
-    .map(({ s, i }) => ({ station: s.id, timeMs: refMs + (plane.t0 + plane.sx * proj.xKm[i]! + plane.sy * proj.yKm[i]!) * MS_PER_HOUR }));
-  void tolH;
+  // Fitted times at the neighbouring stations that reported then (a station without data at the time expects nothing).
+  const expected = near
+    .map((i) => ({ station: net[i]!.id, timeMs: refMs + (plane.t0 + plane.sx * proj.xKm[i]! + plane.sy * proj.yKm[i]!) * MS_PER_HOUR }))
+    .filter(({ station, timeMs }) => {
+      const span = spans?.get(station);
+      return !span || (timeMs >= span.startMs && timeMs <= span.endMs);
+    });
   return {
     id: '',
     kind,
