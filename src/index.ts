@@ -59,6 +59,7 @@ export type { EventColumn, EventRecord, RecordValue, TableOptions } from './repo
 export { FRONT_COLUMNS, passagesToTable, trackToRecord, tracksToCsv, tracksToJson, tracksToTable } from './report/fronts.js';
 export type { FrontColumn } from './report/fronts.js';
 export { outputFolderFiles, writeOutputFolder, type OutputFile } from './report/outputFolder.js';
+export { checkOutputs, writeFilesSafely, type PlannedFile, type SafeWriteOptions } from './report/safeWrite.js';
 export { eventsInPeriod, parsePeriodTime, periodOutsideData, selectStations } from './report/period.js';
 export { reportHtml } from './report/html/reportHtml.js';
 export type { ReportFile, ReportInput } from './report/html/reportHtml.js';

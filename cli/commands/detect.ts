@@ -1,6 +1,6 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
 import { analyseSeries, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
-import { inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { inputArgs, inputFiles, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
 export function parseKinds(spec: unknown): Set<BoundaryKind> | null {
@@ -52,10 +52,11 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   }
   const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds });
   const stations = result.series.map((s) => s.station);
+  const safe = { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) };
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {
     const { summary, files } = outputFolderFiles(events, tracks, stations);
-    const written = writeOutputFolder(outDir, files);
+    const written = writeOutputFolder(outDir, files, safe);
     io.stdout(summary + written.map((p) => `wrote ${p}`).join('\n') + '\n');
     return 0;
   }
@@ -68,7 +69,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
         : format === 'ndjson'
           ? eventsToNdjson(events)
           : passagesToTable(events, tracks, { zone: local ? opts.zone : undefined, stations });
-  await writeOutput(text, args.out, io);
+  await writeOutput(text, args.out, io, safe);
   return 0;
 }
 

@@ -1,6 +1,6 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
 import { analyseSeries, CAUTION, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
-import { STDIN_TOKEN, inputArgs, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { STDIN_TOKEN, inputArgs, inputFiles, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
 
 /** The last value of `--from`/`--to` (undefined when absent) as epoch ms UTC; see parsePeriodTime. */
@@ -47,7 +47,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION });
   const rawOut = raw.out as string | undefined;
   const out = rawOut === undefined ? 'report.html' : rawOut;
-  await writeOutput(html, out, io);
+  await writeOutput(html, out, io, { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) });
   if (out !== '-' && out !== STDIN_TOKEN) {
     const n = eventsInPeriod(events, series, fromMs, toMs).length;
     io.stdout(`wrote ${out} (${(Buffer.byteLength(html) / 1024).toFixed(0)} KiB): ${series.length} station${series.length === 1 ? '' : 's'}, ${n} passage${n === 1 ? '' : 's'}\n${CAUTION}\n`);

@@ -4,7 +4,8 @@
  *
  * Contract: snake_case keys in the order of EVENT_COLUMNS; times ISO 8601 UTC `YYYY-MM-DDTHH:MM:SSZ`;
  * missing numbers (NaN) are `null` in JSON and empty cells in CSV; evidence is an array in JSON and
- * one cell joined with `; ` in CSV.
+ * one cell joined with `; ` in CSV, its `+`/`−` marks written as `held:`/`failed:` there; CSV text cells that a
+ * spreadsheet would execute are neutralised (csvCell).
  */
 import { DateTime } from 'luxon';
 import type { PassageEvent } from '../model/index.js';
@@ -104,15 +105,41 @@ export function eventToRecord(e: PassageEvent): EventRecord {
   };
 }
 
+/** A cell text a spreadsheet reads as a plain number (left as it is, so negative numbers stay numbers). */
+const PLAIN_NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+/** First characters that make a spreadsheet treat a cell as a formula (OWASP "CSV Injection": = + - @ tab CR). */
+const FORMULA_START = /^[=+\-@\t\r]/;
+
 /**
- * One CSV cell: quoted when it holds a comma, double quote, CR or LF, with inner quotes doubled
- * (RFC 4180 §2 rules 6 and 7). null → empty cell; arrays joined with `; `.
+ * Neutralise a text cell that a spreadsheet would execute: a cell starting with `=`, `+`, `-`, `@`, tab or CR gets a
+ * leading `'` (the prefix the OWASP "CSV Injection" guidance recommends); plain numbers (`-3.5`, `+2`) are left as
+ * they are.
+ * @example neutraliseFormula('=HYPERLINK("x")') // "'=HYPERLINK(\"x\")"
+ */
+export function neutraliseFormula(s: string): string {
+  return FORMULA_START.test(s) && !PLAIN_NUMBER.test(s) ? `'${s}` : s;
+}
+
+/**
+ * One CSV cell: formula-like text neutralised (neutraliseFormula), then quoted when it holds a comma, double quote,
+ * CR or LF, with inner quotes doubled (RFC 4180 §2 rules 6 and 7). null → empty cell; arrays joined with `; `.
+ * Numbers and booleans are written as they are.
  * @example csvCell('a "b", c') // '"a ""b"", c"'
  */
 export function csvCell(v: RecordValue): string {
   if (v === null) return '';
-  const s = Array.isArray(v) ? v.join('; ') : String(v);
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  const s = Array.isArray(v) ? v.join('; ') : typeof v === 'string' ? neutraliseFormula(v) : String(v);
+  const t = Array.isArray(v) ? neutraliseFormula(s) : s;
+  return /[",\r\n]/.test(t) ? `"${t.replace(/"/g, '""')}"` : t;
+}
+
+/**
+ * Evidence lines for a CSV cell: the leading `+ ` / `− ` of each line (criteria that held / failed) become the words
+ * `held:` / `failed:`, so no cell begins with a sign a spreadsheet could read as a formula.
+ * @example evidenceForCsv(['+ wind veered', '− no trough']) // ['held: wind veered', 'failed: no trough']
+ */
+export function evidenceForCsv(lines: readonly string[]): string[] {
+  return lines.map((l) => (l.startsWith('+ ') ? 'held: ' + l.slice(2) : l.startsWith('− ') || l.startsWith('- ') ? 'failed: ' + l.slice(2) : l));
 }
 
 /**
@@ -124,6 +151,7 @@ export function eventsToCsv(events: readonly PassageEvent[]): string {
   const lines = [EVENT_COLUMNS.join(',')];
   for (const e of events) {
     const r = eventToRecord(e);
+    r.evidence = evidenceForCsv(e.evidence);
     lines.push(EVENT_COLUMNS.map((c) => csvCell(r[c])).join(','));
   }
   return lines.join('\n') + '\n';

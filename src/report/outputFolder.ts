@@ -3,10 +3,10 @@
  * (counts per station and kind, the network table, the caution). `outputFolderFiles` is pure; `writeOutputFolder`
  * is the file-system edge.
  */
-import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import type { FrontTrack, PassageEvent } from '../model/index.js';
 import { CAUTION } from './caution.js';
+import { writeFilesSafely, type SafeWriteOptions } from './safeWrite.js';
 import { eventsToCsv, eventsToJson, summaryLines } from './format.js';
 import { tracksToCsv, tracksToJson, tracksToTable } from './fronts.js';
 
@@ -32,13 +32,17 @@ export function outputFolderFiles(events: readonly PassageEvent[], tracks: reado
   };
 }
 
-/** Create `dir` (and its parents) and write the files; returns the paths written. A failure throws an Error naming the folder. */
-export function writeOutputFolder(dir: string, files: readonly OutputFile[]): string[] {
+/**
+ * Create `dir` (and its parents) and write the files atomically as one set (safeWrite.ts): an existing file is
+ * replaced only with `force`, an input file never. Returns the paths written. A failure throws an Error naming the
+ * folder and leaves none of the new files behind; a refused path throws UsageError.
+ */
+export function writeOutputFolder(dir: string, files: readonly OutputFile[], opts: SafeWriteOptions = {}): string[] {
+  const planned = files.map((f) => ({ path: join(dir, f.name), text: f.text }));
   try {
-    mkdirSync(dir, { recursive: true });
-    for (const f of files) writeFileSync(join(dir, f.name), f.text);
+    return writeFilesSafely(planned, { ...opts, mkdirs: true });
   } catch (e) {
-    throw new Error(`${dir}: cannot write the output folder (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+    if (e instanceof RangeError) throw e;
+    throw new Error(`${dir}: cannot write the output folder (${(e as Error).message})`, { cause: e });
   }
-  return files.map((f) => join(dir, f.name));
 }

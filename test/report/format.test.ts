@@ -125,7 +125,8 @@ test('eventsToCsv: header is the contract, no comment line, NaN → empty cell, 
   assert.equal(parsed.errors, []);
   assert.equal(parsed.meta.fields, [...EVENT_COLUMNS]);
   assert.is(parsed.data.length, 2);
-  assert.is(parsed.data[0]!.evidence, '+ wind veered 87°; − no pressure "kink", weak');
+  // OWASP "CSV Injection": no cell begins with + or -; the marks are written as words
+  assert.is(parsed.data[0]!.evidence, 'held: wind veered 87°; failed: no pressure "kink", weak');
   assert.is(parsed.data[0]!.temp_change_c, '-6');
   assert.is(parsed.data[0]!.precip_near, 'true');
   assert.is(parsed.data[0]!.observer_fropa_time, '');
