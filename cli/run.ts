@@ -80,12 +80,17 @@ function parser(onSelect: (s: Selected) => void) {
           .option('format', { choices: ['table', 'csv', 'json', 'ndjson'] as const, default: 'table', describe: 'Output format', group: 'Output:' })
           .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json and summary.txt into DIR', group: 'Output:' })
           .option('local', { type: 'boolean', describe: 'Table times in the --tz zone instead of UTC (needs --tz; CSV/JSON stay UTC)', group: 'Output:' })
+          .option('what', { choices: ['events', 'fronts', 'all'] as const, describe: 'What to write: passages, fronts, or both (default: both in the table, events in CSV/JSON/NDJSON; CSV holds one of them)', group: 'Output:' })
+          .option('wind-unit', { choices: ['kt', 'm/s', 'mph', 'km/h'] as const, describe: 'Wind unit of the table and of extra CSV columns (JSON keeps m/s, the unit in each key)', group: 'Output:' })
+          .option('runway', { type: 'string', describe: 'Runway directions for cross- and tailwind before and after the shift, e.g. 04/22,13/31 (designator × 10 taken as degrees true; or three-digit true headings)', group: 'Output:' })
           .conflicts('out', 'out-dir')
           .example('$0 detect stations-demo', 'Passages in the demo folder, as a table')
           .example('$0 detect stations-demo --out-dir fropa-out', 'Write events and fronts (CSV, JSON) and a summary')
           .example('$0 detect obs/ --stations stations.csv --format csv --out events.csv', 'CSV for a spreadsheet')
           .example('$0 detect obs/ --kinds cold-front,dryline --min-confidence 0.6', 'Only confident cold fronts and drylines')
           .example('$0 detect mesonet_march.csv --tz America/Denver --local', 'Local times in the table')
+          .example('$0 detect obs/ --wind-unit kt --runway 04/22,13/31', 'Winds in knots with runway cross- and tailwind components')
+          .example('$0 detect obs/ --stations stations.csv --format json --what all', 'Passages and fronts in one JSON object')
           .epilogue(EPILOGUE),
       (a) => onSelect({ command: 'detect', args: a as Record<string, unknown> }),
     )

@@ -15,6 +15,7 @@ import { checkDetectOptions, DEFAULT_MIN_CONFIDENCE, detectStation } from './det
 import { trackFronts, withTrackSpeeds } from './network/track.js';
 import { withFrontogenesis } from './network/frontogenesis.js';
 import { withNetworkCoherence } from './network/coherence.js';
+import { withOperatorFields, type RunwayHeading } from './report/operatorFields.js';
 
 /** How to read the inputs (time zone, column mapping, stations file, …). */
 export type LoadOptions = ReadOptions;
@@ -68,6 +69,8 @@ export interface AnalyseOptions extends DetectOptions {
   network?: boolean;
   /** Keep only these kinds in the result (tracking still sees every passage). */
   kinds?: ReadonlySet<BoundaryKind> | null;
+  /** Runway directions for the cross- and tailwind components of each event (none by default). */
+  runways?: readonly RunwayHeading[];
 }
 
 export interface Analysis {
@@ -112,7 +115,8 @@ export function analyseSeries(series: readonly StationSeries[], opts: AnalyseOpt
   if (opts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
   const kinds = opts.kinds;
   return {
-    events: sortEvents(all.filter((e) => !kinds || kinds.has(e.kind))),
+    // The operators' fields (levels, freeze, precipitation type, wind before, which pressure, runways) after detection.
+    events: sortEvents(withOperatorFields(all.filter((e) => !kinds || kinds.has(e.kind)), series, opts.runways)),
     tracks: allTracks.filter((t) => !kinds || kinds.has(t.kind)),
   };
 }

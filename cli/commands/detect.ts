@@ -1,5 +1,5 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { analyseSeries, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
+import { analyseSeries, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, loadPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage } from '../../src/index.js';
 import { inputArgs, inputFiles, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
@@ -37,12 +37,28 @@ function lastNumber(v: unknown): number | undefined {
   return typeof x === 'number' ? x : Number(x);
 }
 
+/** `--runway 04/22,13/31` (repeatable) → runway directions (UsageError on a bad designator). */
+export function runwayOption(v: unknown): RunwayHeading[] {
+  if (v === undefined) return [];
+  const spec = (Array.isArray(v) ? v : [v]).map(String).join(',');
+  try {
+    return parseRunways(spec);
+  } catch (e) {
+    throw new UsageError(`--runway: ${(e as Error).message}`);
+  }
+}
+
 /** Run detect; returns the exit code (1 when no station has data). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
   const args = inputArgs(raw);
   const kinds = parseKinds(raw.kinds);
   const dopts = detectOptions(raw);
   const local = Boolean(raw.local);
+  const runways = runwayOption(raw.runway);
+  const windUnit = (Array.isArray(raw.windUnit) ? raw.windUnit[raw.windUnit.length - 1] : raw.windUnit) as WindUnit | undefined;
+  const format = String(raw.format ?? 'table');
+  const what = (raw.what as 'events' | 'fronts' | 'all' | undefined) ?? (format === 'table' ? 'all' : 'events');
+  if (format === 'csv' && what === 'all') throw new UsageError('--format csv holds one table: use --what events or --what fronts (or --out-dir for both)');
   if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
   const opts = await resolveLoadOptions(args, io);
   const result = loadPaths(args.paths, opts);
@@ -50,7 +66,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
-  const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds });
+  const { events, tracks } = analyseSeries(result.series, { ...dopts, network: raw.network !== false, kinds, runways });
   const stations = result.series.map((s) => s.station);
   const safe = { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) };
   const outDir = raw.outDir as string | undefined;
@@ -60,15 +76,12 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stdout(summary + written.map((p) => `wrote ${p}`).join('\n') + '\n');
     return 0;
   }
-  const format = String(raw.format ?? 'table');
-  const text =
-    format === 'csv'
-      ? eventsToCsv(events)
-      : format === 'json'
-        ? eventsToJson(events)
-        : format === 'ndjson'
-          ? eventsToNdjson(events)
-          : passagesToTable(events, tracks, { zone: local ? opts.zone : undefined, stations });
+  const tableOpts = { zone: local ? opts.zone : undefined, stations, windUnit };
+  let text: string;
+  if (format === 'csv') text = what === 'fronts' ? tracksToCsv(tracks) : eventsToCsv(events, { windUnit });
+  else if (format === 'json') text = what === 'fronts' ? tracksToJson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks) : eventsToJson(events);
+  else if (format === 'ndjson') text = what === 'fronts' ? tracksToNdjson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks, true) : eventsToNdjson(events);
+  else text = what === 'fronts' ? tracksToTable(tracks) || 'no fronts tracked\n' : what === 'events' ? eventsToTable(events, tableOpts) : passagesToTable(events, tracks, tableOpts);
   await writeOutput(text, args.out, io, safe);
   return 0;
 }
