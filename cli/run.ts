@@ -77,10 +77,12 @@ function parser(onSelect: (s: Selected) => void) {
       'Find frontal and other boundary passages at each station',
       (y) =>
         withDetectionOptions(withInputOptions(y))
-          .option('format', { choices: ['table', 'csv', 'json', 'ndjson'] as const, default: 'table', describe: 'Output format', group: 'Output:' })
+          .option('format', { choices: ['table', 'csv', 'json', 'ndjson', 'geojson'] as const, default: 'table', describe: 'Output format (geojson: RFC 7946 stations, passages, hourly front positions, arrivals)', group: 'Output:' })
+          .option('at', { type: 'string', describe: 'Point of interest LAT,LON[,NAME] for estimated front arrivals; repeatable', group: 'Output:' })
+          .option('points', { type: 'string', describe: 'Points-of-interest CSV file with lat, lon and optional name columns', group: 'Output:' })
           .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json and summary.txt into DIR', group: 'Output:' })
           .option('local', { type: 'boolean', describe: 'Table times in the --tz zone instead of UTC (needs --tz; CSV/JSON stay UTC)', group: 'Output:' })
-          .option('what', { choices: ['events', 'fronts', 'all'] as const, describe: 'What to write: passages, fronts, or both (default: both in the table, events in CSV/JSON/NDJSON; CSV holds one of them)', group: 'Output:' })
+          .option('what', { choices: ['events', 'fronts', 'arrivals', 'all'] as const, describe: 'What to write: passages, fronts, estimated arrivals at --at/--points, or all (default: all in the table, events in CSV/JSON/NDJSON; CSV holds one of them)', group: 'Output:' })
           .option('wind-unit', { choices: ['kt', 'm/s', 'mph', 'km/h'] as const, describe: 'Wind unit of the table and of extra CSV columns (JSON keeps m/s, the unit in each key)', group: 'Output:' })
           .option('runway', { type: 'string', describe: 'Runway directions for cross- and tailwind before and after the shift, e.g. 04/22,13/31 (designator × 10 taken as degrees true; or three-digit true headings)', group: 'Output:' })
           .conflicts('out', 'out-dir')
@@ -91,6 +93,8 @@ function parser(onSelect: (s: Selected) => void) {
           .example('$0 detect mesonet_march.csv --tz America/Denver --local', 'Local times in the table')
           .example('$0 detect obs/ --wind-unit kt --runway 04/22,13/31', 'Winds in knots with runway cross- and tailwind components')
           .example('$0 detect obs/ --stations stations.csv --format json --what all', 'Passages and fronts in one JSON object')
+          .example('$0 detect obs/ --stations stations.csv --at 41.88,-87.63,Downtown', 'Estimated arrival of each tracked front at a point')
+          .example('$0 detect obs/ --stations stations.csv --format geojson --out run.geojson', 'Stations, passages and hourly front positions for a GIS')
           .epilogue(EPILOGUE),
       (a) => onSelect({ command: 'detect', args: a as Record<string, unknown> }),
     )

@@ -60,6 +60,9 @@ export { operatorFields, parseRunways, precipTypesOf, pressureSource, windOnRunw
 export { FRONT_COLUMNS, eventsAndTracksToJson, passagesToTable, trackToRecord, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable } from './report/fronts.js';
 export type { FrontColumn } from './report/fronts.js';
 export { outputFolderFiles, writeOutputFolder, type OutputFile } from './report/outputFolder.js';
+export { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, arrivalToRecord, ARRIVAL_COLUMNS, parsePoint, parsePointsFile, type Arrival, type PointOfInterest } from './report/arrivals.js';
+export { toGeoJson, type GeoJsonInput } from './report/geojson.js';
+export { fittedPassageMs, isochrone } from './network/fittedTime.js';
 export { checkOutputs, writeFilesSafely, type PlannedFile, type SafeWriteOptions } from './report/safeWrite.js';
 export { eventsInPeriod, parsePeriodTime, periodOutsideData, selectStations } from './report/period.js';
 export { reportHtml } from './report/html/reportHtml.js';

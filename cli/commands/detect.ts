@@ -1,5 +1,5 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { analyseSeries, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, loadPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage } from '../../src/index.js';
+import { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, CAUTION, parsePoint, parsePointsFile, toGeoJson, type PointOfInterest, type StationMeta, analyseSeries, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, loadPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage } from '../../src/index.js';
 import { inputArgs, inputFiles, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
@@ -48,6 +48,33 @@ export function runwayOption(v: unknown): RunwayHeading[] {
   }
 }
 
+/** `--at LAT,LON[,NAME]` (repeatable) and `--points FILE` → points of interest (UsageError on bad values). */
+export async function pointsOption(at: unknown, file: unknown): Promise<PointOfInterest[]> {
+  const out: PointOfInterest[] = [];
+  for (const spec of at === undefined ? [] : (Array.isArray(at) ? at : [at]).map(String)) {
+    try {
+      out.push(parsePoint(spec));
+    } catch (e) {
+      throw new UsageError(`--at ${(e as Error).message}`);
+    }
+  }
+  for (const f of file === undefined ? [] : (Array.isArray(file) ? file : [file]).map(String)) {
+    const { readFileSync } = await import('node:fs');
+    let text: string;
+    try {
+      text = readFileSync(f, 'utf8');
+    } catch {
+      throw new UsageError(`${f}: cannot read the points file`);
+    }
+    try {
+      out.push(...parsePointsFile(text, f));
+    } catch (e) {
+      throw new UsageError((e as Error).message);
+    }
+  }
+  return out;
+}
+
 /** Run detect; returns the exit code (1 when no station has data). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
   const args = inputArgs(raw);
@@ -57,7 +84,9 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const runways = runwayOption(raw.runway);
   const windUnit = (Array.isArray(raw.windUnit) ? raw.windUnit[raw.windUnit.length - 1] : raw.windUnit) as WindUnit | undefined;
   const format = String(raw.format ?? 'table');
-  const what = (raw.what as 'events' | 'fronts' | 'all' | undefined) ?? (format === 'table' ? 'all' : 'events');
+  const what = (raw.what as 'events' | 'fronts' | 'arrivals' | 'all' | undefined) ?? (format === 'table' || format === 'geojson' ? 'all' : 'events');
+  const points = await pointsOption(raw.at, raw.points);
+  if (what === 'arrivals' && points.length === 0) throw new UsageError('--what arrivals needs points: --at LAT,LON[,NAME] or --points FILE');
   if (format === 'csv' && what === 'all') throw new UsageError('--format csv holds one table: use --what events or --what fronts (or --out-dir for both)');
   if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
   const opts = await resolveLoadOptions(args, io);
@@ -77,11 +106,23 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     return 0;
   }
   const tableOpts = { zone: local ? opts.zone : undefined, stations, windUnit };
+  const arrivals = arrivalsAt(points, tracks);
   let text: string;
-  if (format === 'csv') text = what === 'fronts' ? tracksToCsv(tracks) : eventsToCsv(events, { windUnit });
+  if (what === 'arrivals' && format !== 'table' && format !== 'geojson') text = format === 'csv' ? arrivalsToCsv(arrivals) : arrivalsToJson(arrivals, format === 'ndjson');
+  else if (format === 'geojson') {
+    const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+    text = toGeoJson({ events: what === 'fronts' || what === 'arrivals' ? [] : events, tracks: what === 'events' || what === 'arrivals' ? [] : tracks, stations: metas, arrivals });
+  } else if (format === 'csv') text = what === 'fronts' ? tracksToCsv(tracks) : eventsToCsv(events, { windUnit });
   else if (format === 'json') text = what === 'fronts' ? tracksToJson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks) : eventsToJson(events);
   else if (format === 'ndjson') text = what === 'fronts' ? tracksToNdjson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks, true) : eventsToNdjson(events);
-  else text = what === 'fronts' ? tracksToTable(tracks) || 'no fronts tracked\n' : what === 'events' ? eventsToTable(events, tableOpts) : passagesToTable(events, tracks, tableOpts);
+  else {
+    text = what === 'fronts' ? tracksToTable(tracks) || 'no fronts tracked\n' : what === 'events' ? eventsToTable(events, tableOpts) : what === 'arrivals' ? '' : passagesToTable(events, tracks, tableOpts);
+    if (points.length && (what === 'all' || what === 'arrivals')) {
+      const block = arrivalsToTable(arrivals) || `no tracked front to estimate arrivals at ${points.map((p) => p.name).join(', ')}\n`;
+      const at = text.lastIndexOf(CAUTION);
+      text = at < 0 ? text + (text ? '\n' : '') + block + CAUTION + '\n' : text.slice(0, at) + block + '\n' + text.slice(at);
+    }
+  }
   await writeOutput(text, args.out, io, safe);
   return 0;
 }

@@ -51,4 +51,20 @@ test('--wind-unit kt --runway 04/22: CSV gains knot and runway columns after the
   assert.match(bad.stderr, '--runway: runway "45"');
 });
 
+test('--format geojson --at: a FeatureCollection with isochrones and arrivals; table lists arrivals as estimates; --at checked', async () => {
+  const g = await cli(['detect', ...demo, '--quiet', '--format', 'geojson', '--at', '44.5,-98.5,Midway']);
+  assert.is(g.code, 0, g.stderr);
+  const doc = JSON.parse(g.stdout) as { type: string; features: { properties: { feature: string } }[] };
+  assert.is(doc.type, 'FeatureCollection');
+  const kinds = new Set(doc.features.map((f) => f.properties.feature));
+  for (const k of ['station', 'passage', 'isochrone', 'arrival']) assert.ok(kinds.has(k), k);
+  const t = await cli(['detect', ...demo, '--quiet', '--what', 'arrivals', '--at', '44.5,-98.5,Midway']);
+  assert.match(t.stdout, 'Estimated arrivals at points');
+  assert.match(t.stdout, /Midway\s+cold-front/);
+  assert.match(t.stdout, 'Caution: fropa is not a certified');
+  const bad = await cli(['detect', ...demo, '--quiet', '--at', '200,1']);
+  assert.is(bad.code, 2);
+  assert.match(bad.stderr, '--at "200,1"');
+});
+
 test.run();
