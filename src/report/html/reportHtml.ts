@@ -165,13 +165,14 @@ function passageTable(events: readonly PassageEvent[], panelOf: (e: PassageEvent
         `<tr class="kind-${e.kind}"><td class="t">${href ? `<a href="#${escapeXml(href)}">${time}</a>` : time}</td><td class="t">${escapeXml(e.kind)}</td>` +
         `<td class="n">±${fmt((e.timeLatestMs - e.timeEarliestMs) / 2 / 60000, 0)}</td><td class="n">${fmt(e.confidence, 2)}</td>` +
         `<td class="n">${fmt(e.tempChangeC, 1, true)}</td><td class="n">${fmt(e.dewpointChangeC, 1, true)}</td><td>${wind}</td>` +
+        `<td class="n">${fmt(e.pressureMinHpa, 1)}${e.operator && e.operator.pressureSource !== 'none' ? ` <span class="src">(${escapeXml(e.operator.pressureSource)})</span>` : ''}</td>` +
         `<td class="n">${fmt(e.zoneHours, 1)}</td><td class="ev">${evidenceList(e.evidence)}</td></tr>`
       );
     })
     .join('');
   return (
     '<table><thead><tr><th scope="col">time (UTC)</th><th scope="col">kind</th><th scope="col">± min</th><th scope="col">confidence</th>' +
-    '<th scope="col">ΔT °C</th><th scope="col">ΔTd °C</th><th scope="col">wind ° before→after (turn, + veering)</th><th scope="col">zone h</th><th scope="col">evidence (+ held, − failed)</th></tr></thead>' +
+    '<th scope="col">ΔT °C</th><th scope="col">ΔTd °C</th><th scope="col">wind ° before→after (turn, + veering)</th><th scope="col">p min hPa (pressure drawn)</th><th scope="col">zone h</th><th scope="col">evidence (+ held, − failed)</th></tr></thead>' +
     `<tbody>${rows}</tbody></table>`
   );
 }
