@@ -128,6 +128,7 @@ function parser(onSelect: (s: Selected) => void) {
           .option('from', { type: 'string', describe: 'Start of the period shown, ISO 8601 (UTC unless an offset is given), e.g. 2026-03-02 or 2026-03-02T06:00Z', group: 'Report:' })
           .option('to', { type: 'string', describe: 'End of the period shown (a date alone means the end of that day)', group: 'Report:' })
           .option('station', { type: 'string', describe: 'Show only this station; repeatable or comma-separated', group: 'Report:' })
+          .option('local', { type: 'boolean', describe: 'Show passage times in the --tz zone beside UTC (needs --tz)', group: 'Report:' })
           .example('$0 report stations-demo --out report.html', 'The demo network: overview, fronts with maps, a chart per passage')
           .example('$0 report stations-demo --from 2026-03-02 --to 2026-03-03 --out march2.html', 'Two days, one chart per station covering them')
           .example('$0 report obs/ --stations stations.csv --station KORD --kinds cold-front', 'One station, cold fronts only')

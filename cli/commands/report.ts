@@ -26,6 +26,8 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const toMs = parseReportTime(raw.to, '--to', true);
   if (fromMs !== undefined && toMs !== undefined && !(toMs > fromMs)) throw new UsageError('--to must be later than --from');
   const wanted = parseStations(raw.station);
+  const local = Boolean(raw.local);
+  if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
   const opts = await resolveLoadOptions(args, io);
   const result = loadPaths(args.paths, opts);
   if (result.series.length === 0) {
@@ -44,7 +46,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     .filter((f) => f.format !== 'skipped' && f.format !== 'stations')
     .map((f) => ({ file: f.file, format: f.format, parsed: f.parsed, rejected: f.rejected }));
   const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION });
+  const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION, localZone: local ? opts.zone : undefined });
   const rawOut = raw.out as string | undefined;
   const out = rawOut === undefined ? 'report.html' : rawOut;
   await writeOutput(html, out, io, { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) });

@@ -12,6 +12,7 @@ import { overviewSvg } from './overviewSvg.js';
 import { KIND_STROKES, SERIES_STROKES, kindClass } from './palette.js';
 import { panelSvg } from './panelSvg.js';
 import { utcMinute } from './timeAxis.js';
+import { DateTime } from 'luxon';
 import { legendSvg } from './legendSvg.js';
 
 const HOUR = 3_600_000;
@@ -45,6 +46,8 @@ export interface ReportInput {
   maxPanels?: number;
   /** Periods up to this long get one panel per station instead of one per passage, hours (default 96). */
   singlePanelHours?: number;
+  /** IANA zone: passage times are shown in it beside UTC (tables and captions); UTC only when absent. */
+  localZone?: string;
 }
 
 export interface PanelWindow {
@@ -106,13 +109,13 @@ export function reportCss(): string {
   }).join('\n');
   const S = SERIES_STROKES;
   return `
-body{font:14px/1.45 system-ui,-apple-system,"Segoe UI",Roboto,Helvetica,Arial,sans-serif;color:#1a1a1a;background:#fff;margin:0 auto;max-width:1000px;padding:0 16px 32px}
+body{font:14px/1.45 system-ui,-apple-system,"Segoe UI",Roboto,Helvetica,Arial,sans-serif;color:#1a1a1a;background:#fff;margin:0 auto;max-width:none;padding:0 16px 32px}
 h1{font-size:1.6em;margin:0.6em 0 0.2em}h2{font-size:1.3em;margin:1.6em 0 0.4em;border-bottom:2px solid #ccc;padding-bottom:2px}h3{font-size:1.05em;margin:1.2em 0 0.3em}
 .caution{border:2px solid #8a5a00;background:#fff6e0;padding:8px 12px;font-weight:600}
 table{border-collapse:collapse;margin:0.4em 0 1em;font-size:0.92em}th,td{border:1px solid #bbb;padding:3px 6px;text-align:left;vertical-align:top}th{background:#f0f0f0}td.n{text-align:right;font-variant-numeric:tabular-nums}
 td.ev{font-size:0.88em;line-height:1.3}td.ev .fails{color:#555;font-style:italic}td.t{white-space:nowrap}
 .muted{color:#555}.sr{position:absolute;left:-10000px;width:1px;height:1px;overflow:hidden}nav ul{columns:4;list-style:none;padding:0}figure{margin:0.6em 0 1.2em}figcaption{font-size:0.9em;color:#333}
-svg{max-width:100%;height:auto;font-size:11px;font-family:inherit}svg text{fill:#222}
+svg{max-width:100%;height:auto;font-size:11px;font-family:inherit}svg.panel{width:100%}svg text{fill:#222}
 .grid{stroke:#e3e3e3;stroke-width:1;fill:none}.grid.day{stroke:#bdbdbd}.frame{fill:none;stroke:#999;stroke-width:1}
 .row-title{font-weight:600;fill:#333}.y-labels text,.tick-labels text{fill:#444}
 .temp{fill:none;stroke:${S.temperature.colour};stroke-width:1.8;stroke-linejoin:round;stroke-linecap:round}
@@ -154,12 +157,19 @@ function evidenceList(ev: readonly string[]): string {
     .join('; ');
 }
 
-function passageTable(events: readonly PassageEvent[], panelOf: (e: PassageEvent) => string | undefined): string {
+/** ` (HH:MM ZONE-ABBREVIATION local)` for a time in a zone; '' without a zone or for NaN. */
+function localBeside(ms: number, zone: string | undefined): string {
+  if (!zone || !Number.isFinite(ms)) return '';
+  const d = DateTime.fromMillis(ms, { zone });
+  return ` (${d.toFormat('yyyy-MM-dd HH:mm')} ${d.offsetNameShort ?? zone} local)`;
+}
+
+function passageTable(events: readonly PassageEvent[], panelOf: (e: PassageEvent) => string | undefined, zone?: string): string {
   if (!events.length) return '<p>No passages found at this station in the period.</p>';
   const rows = events
     .map((e) => {
       const href = panelOf(e);
-      const time = escapeXml(utcMinute(e.timeMs));
+      const time = escapeXml(utcMinute(e.timeMs)) + (zone ? `<br><span class="muted">${escapeXml(localBeside(e.timeMs, zone).trim())}</span>` : '');
       const wind = Number.isFinite(e.windBeforeDeg) || Number.isFinite(e.windAfterDeg) ? `${fmt(e.windBeforeDeg, 0)}→${fmt(e.windAfterDeg, 0)} (${fmt(e.windTurnDeg, 0, true)})` : '–';
       return (
         `<tr class="kind-${e.kind}"><td class="t">${href ? `<a href="#${escapeXml(href)}">${time}</a>` : time}</td><td class="t">${escapeXml(e.kind)}</td>` +
@@ -250,12 +260,12 @@ export function reportHtml(r: ReportInput): string {
     let h = `<section id="st-${si}" class="station"><h2>${escapeXml(s.station + name)}</h2>`;
     h += `<p>${plural(s.length, 'report')} in all; median spacing ${fmt(cadence, 0)} min; ${plural(mine.length, 'passage')} in the period.</p>`;
     if (!single) h += `<figure>${overviewSvg({ series: s, events: mine, t0: from, t1: to, id: `st-${si}-ov`, gapMs, windows: windows.map((w, wi) => ({ t0: w.t0, t1: w.t1, href: panelIds[wi]! })) })}</figure>`;
-    h += `<h3>Passages at ${escapeXml(s.station)}</h3>` + passageTable(mine, panelOf);
+    h += `<h3>Passages at ${escapeXml(s.station)}</h3>` + passageTable(mine, panelOf, r.localZone);
     if (windows.length) {
       h += `<h3>Charts${single ? '' : ` around each passage (±${hours} h)`}</h3>`;
       if (dropped) h += `<p class="muted">Only the first ${maxPanels} charts are drawn; ${plural(dropped, 'later passage')} ${dropped === 1 ? 'has' : 'have'} no chart here (restrict the period with --from/--to to see ${dropped === 1 ? 'it' : 'them'}).</p>`;
       windows.forEach((w, wi) => {
-        const cap = w.events.length ? w.events.map((e) => `${e.kind} ${utcMinute(e.timeMs)} UTC`).join('; ') : 'no passage';
+        const cap = w.events.length ? w.events.map((e) => `${e.kind} ${utcMinute(e.timeMs)} UTC${localBeside(e.timeMs, r.localZone)}`).join('; ') : 'no passage';
         h += `<figure id="${panelIds[wi]}">${panelSvg({ series: s, events: mine, t0: w.t0, t1: w.t1, id: `${panelIds[wi]}s`, gapMs })}<figcaption>${escapeXml(`${s.station}, ${utcMinute(w.t0)} to ${utcMinute(w.t1)} UTC: ${cap}`)}</figcaption></figure>`;
       });
     } else if (!single) h += '<p class="muted">No passage, so no detailed chart; the overview above shows the whole period.</p>';
