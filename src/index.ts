@@ -66,6 +66,7 @@ export { fittedPassageMs, isochrone } from './network/fittedTime.js';
 export { checkOutputs, writeFilesSafely, type PlannedFile, type SafeWriteOptions } from './report/safeWrite.js';
 export { eventsInPeriod, parsePeriodTime, periodOutsideData, selectStations } from './report/period.js';
 export { reportHtml } from './report/html/reportHtml.js';
+export { loadGeography, type Geography } from './report/html/geography.js';
 export type { ReportFile, ReportInput } from './report/html/reportHtml.js';
 export { buildInspect, inspectToTable, issueLine, noDataMessage } from './report/inspect.js';
 export type { InspectFile, InspectStation } from './report/inspect.js';

@@ -1,5 +1,5 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
-import { analyseSeries, CAUTION, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
+import { analyseSeries, CAUTION, loadGeography, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
 import { STDIN_TOKEN, inputArgs, inputFiles, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
 
@@ -46,7 +46,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     .filter((f) => f.format !== 'skipped' && f.format !== 'stations')
     .map((f) => ({ file: f.file, format: f.format, parsed: f.parsed, rejected: f.rejected }));
   const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION, localZone: local ? opts.zone : undefined });
+  const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION, localZone: local ? opts.zone : undefined, geography: tracks.length ? loadGeography() : undefined });
   const rawOut = raw.out as string | undefined;
   const out = rawOut === undefined ? 'report.html' : rawOut;
   await writeOutput(html, out, io, { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) });

@@ -16,6 +16,7 @@ import { join } from 'node:path';
 import { fileURLToPath, pathToFileURL } from 'node:url';
 import { analyseSeries, loadPaths } from '../../src/pipeline.js';
 import { reportHtml } from '../../src/report/html/reportHtml.js';
+import { loadGeography } from '../../src/report/html/geography.js';
 import { CAUTION } from '../../src/report/caution.js';
 import type { StationMeta } from '../../src/model/index.js';
 import { passage, smallSeries } from '../report/html/fixture.js';
@@ -54,7 +55,7 @@ run('demo report in chromium: no console errors, every station section and passa
   const to = Date.UTC(2026, 2, 4);
   const { events, tracks } = analyseSeries(loaded.series);
   const metas = loaded.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const html = reportHtml({ series: loaded.series, events, tracks, stations: metas, files: [], fromMs: from, toMs: to, caution: CAUTION });
+  const html = reportHtml({ series: loaded.series, events, tracks, stations: metas, files: [], fromMs: from, toMs: to, caution: CAUTION, geography: loadGeography() });
   const path = join(OUT, 'demo-report.html');
   writeFileSync(path, html);
   const inPeriod = events.filter((e) => e.timeMs >= from && e.timeMs <= to);
@@ -63,8 +64,10 @@ run('demo report in chromium: no console errors, every station section and passa
     for (const s of loaded.series) assert.ok((await page.locator(`text=Passages at ${s.station}`).count()) >= 1, s.station);
     const markers = await page.locator('path.pass').count();
     assert.ok(markers >= inPeriod.length, `${markers} markers for ${inPeriod.length} passages`);
+    assert.ok((await page.locator('svg.map path.land').count()) >= 1, 'maps carry land and coastlines');
     assert.equal(errors, []);
     await page.screenshot({ path: join(OUT, 'demo-report-top.png') });
+    if (await page.locator('svg.map').count()) await page.locator('svg.map').first().screenshot({ path: join(OUT, 'demo-front-map.png') });
     await page.screenshot({ path: join(OUT, 'demo-report-full.png'), fullPage: true });
   });
   assert.ok(existsSync(join(OUT, 'demo-report-full.png')));

@@ -8,6 +8,7 @@ import { BOUNDARY_KINDS, type BoundaryKind, type FrontTrack, type PassageEvent, 
 import { medianCadenceMinutes } from '../../series/series.js';
 import { escapeXml } from './escape.js';
 import { frontMapSvg } from './frontMapSvg.js';
+import type { Geography } from './geography.js';
 import { overviewSvg } from './overviewSvg.js';
 import { KIND_STROKES, SERIES_STROKES, kindClass } from './palette.js';
 import { panelSvg } from './panelSvg.js';
@@ -48,6 +49,8 @@ export interface ReportInput {
   singlePanelHours?: number;
   /** IANA zone: passage times are shown in it beside UTC (tables and captions); UTC only when absent. */
   localZone?: string;
+  /** Land, coastlines and borders for the front maps (geography.ts loadGeography); plain maps when absent. */
+  geography?: Geography;
 }
 
 export interface PanelWindow {
@@ -116,7 +119,7 @@ table{border-collapse:collapse;margin:0.4em 0 1em;font-size:0.92em}th,td{border:
 td.ev{font-size:0.88em;line-height:1.3}td.ev .fails{color:#555;font-style:italic}td.t{white-space:nowrap}
 .muted{color:#555}.sr{position:absolute;left:-10000px;width:1px;height:1px;overflow:hidden}nav ul{columns:4;list-style:none;padding:0}figure{margin:0.6em 0 1.2em}figcaption{font-size:0.9em;color:#333}
 svg{max-width:100%;height:auto;font-size:11px;font-family:inherit}svg.panel{width:100%}svg text{fill:#222}
-.grid{stroke:#e3e3e3;stroke-width:1;fill:none}.grid.day{stroke:#bdbdbd}.frame{fill:none;stroke:#999;stroke-width:1}
+.grid{stroke:#e3e3e3;stroke-width:1;fill:none}.land{fill:#f1efe6;stroke:#8c8c8c;stroke-width:0.8}.graticule{fill:none;stroke:#d6dde6;stroke-width:0.6}.border{fill:none;stroke:#9a9a9a;stroke-width:0.7}.border.state{stroke-dasharray:3 2}.scalebar{fill:none;stroke:#333;stroke-width:1.2}.grid.day{stroke:#bdbdbd}.frame{fill:none;stroke:#999;stroke-width:1}
 .row-title{font-weight:600;fill:#333}.y-labels text,.tick-labels text{fill:#444}
 .temp{fill:none;stroke:${S.temperature.colour};stroke-width:1.8;stroke-linejoin:round;stroke-linecap:round}
 .dew{fill:none;stroke:${S.dewpoint.colour};stroke-width:1.6;stroke-dasharray:${S.dewpoint.dash};stroke-linecap:round}
@@ -187,7 +190,7 @@ function passageTable(events: readonly PassageEvent[], panelOf: (e: PassageEvent
   );
 }
 
-function frontsSection(tracks: readonly FrontTrack[], stations: readonly StationMeta[]): string {
+function frontsSection(tracks: readonly FrontTrack[], stations: readonly StationMeta[], geography?: Geography): string {
   if (!tracks.length) return '';
   const byId = new Map(stations.map((s) => [s.id, s]));
   const rows = tracks
@@ -204,7 +207,7 @@ function frontsSection(tracks: readonly FrontTrack[], stations: readonly Station
       const ids = [...t.members.map((m) => m.station), ...t.expected.map((e) => e.station)];
       const metas = [...new Set(ids)].map((id) => byId.get(id)).filter((m): m is StationMeta => m !== undefined).sort((a, b) => (a.id < b.id ? -1 : 1));
       if (metas.length < 2) return '';
-      return `<figure id="front-${i}">${frontMapSvg({ track: t, stations: metas, id: `map-${i}` })}<figcaption>${escapeXml(t.id)}</figcaption></figure>`;
+      return `<figure id="front-${i}">${frontMapSvg({ track: t, stations: metas, id: `map-${i}`, geography })}<figcaption>${escapeXml(t.id)}</figcaption></figure>`;
     })
     .join('');
   return (
@@ -212,7 +215,9 @@ function frontsSection(tracks: readonly FrontTrack[], stations: readonly Station
     '<p>Passages at three or more stations fitted as one straight front moving steadily. Speed is normal to the front; “toward” is the direction it moves; “fit ± min” is the root-mean-square distance of the observed passage times from the fitted ones; trend: along-track strengthening (frontogenesis) or weakening (frontolysis) of the temperature change; F: Petterssen kinematic frontogenesis at the passages (median), positive when the wind field tightens the temperature gradient.</p>' +
     '<table><thead><tr><th scope="col">front</th><th scope="col">stations</th><th scope="col">first (UTC)</th><th scope="col">last (UTC)</th><th scope="col">speed km/h</th><th scope="col">toward</th><th scope="col">fit ± min</th><th scope="col">trend</th><th scope="col">ΔT °C per 100 km</th><th scope="col">F K per 100 km per 3 h</th></tr></thead>' +
     `<tbody>${rows}</tbody></table>` +
-    '<p>Maps (north up, equirectangular about the network centre): lines are the fitted front position every 3 h, labelled with the hour (UTC); at each station the observed passage time in bold, or the fitted time in brackets where no passage of this front was detected; the arrow shows the motion.</p>' +
+    '<p>Maps (north up, equirectangular about the network centre): lines are the fitted front position every 3 h, labelled with the hour (UTC); at each station the observed passage time in bold, or the fitted time in brackets where no passage of this front was detected; the arrow shows the motion; the bar gives the scale.' +
+    (geography ? ` Grey: land and coastlines, country borders (solid) and US state borders (dashed), with a graticule. ${escapeXml(geography.credit)}` : '') +
+    '</p>' +
     `<div class="maps">${maps}</div></section>`
   );
 }
@@ -290,7 +295,7 @@ export function reportHtml(r: ReportInput): string {
     `<table><thead><tr><th scope="col">station</th><th scope="col">name</th><th scope="col">lat °</th><th scope="col">lon °</th><th scope="col">elevation m</th><th scope="col">reports</th><th scope="col">passages</th></tr></thead><tbody>${stationRows}</tbody></table>` +
     `<h3>How to read the charts</h3><figure>${legendSvg()}</figure></section>\n` +
     nav +
-    frontsSection(tracks, r.stations) +
+    frontsSection(tracks, r.stations, r.geography) +
     '\n' +
     stationsHtml +
     `\n</main>\n<footer>\n${caution}\n</footer>\n</body>\n</html>\n`
