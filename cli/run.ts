@@ -80,7 +80,7 @@ function parser(onSelect: (s: Selected) => void) {
           .option('format', { choices: ['table', 'csv', 'json', 'ndjson', 'geojson'] as const, default: 'table', describe: 'Output format (geojson: RFC 7946 stations, passages, hourly front positions, arrivals)', group: 'Output:' })
           .option('at', { type: 'string', describe: 'Point of interest LAT,LON[,NAME] for estimated front arrivals; repeatable', group: 'Output:' })
           .option('points', { type: 'string', describe: 'Points-of-interest CSV file with lat, lon and optional name columns', group: 'Output:' })
-          .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json and summary.txt into DIR', group: 'Output:' })
+          .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json, summary.txt (and run.geojson with station positions) into DIR', group: 'Output:' })
           .option('local', { type: 'boolean', describe: 'Table times in the --tz zone instead of UTC (needs --tz; CSV/JSON stay UTC)', group: 'Output:' })
           .option('what', { choices: ['events', 'fronts', 'arrivals', 'all'] as const, describe: 'What to write: passages, fronts, estimated arrivals at --at/--points, or all (default: all in the table, events in CSV/JSON/NDJSON; CSV holds one of them)', group: 'Output:' })
           .option('wind-unit', { choices: ['kt', 'm/s', 'mph', 'km/h'] as const, describe: 'Wind unit of the table and of extra CSV columns (JSON keeps m/s, the unit in each key)', group: 'Output:' })

@@ -100,7 +100,8 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const safe = { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) };
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {
-    const { summary, files } = outputFolderFiles(events, tracks, stations);
+    const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+    const { summary, files } = outputFolderFiles(events, tracks, stations, metas);
     const written = writeOutputFolder(outDir, files, safe);
     io.stdout(summary + written.map((p) => `wrote ${p}`).join('\n') + '\n');
     return 0;

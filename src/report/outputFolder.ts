@@ -4,7 +4,8 @@
  * is the file-system edge.
  */
 import { join } from 'node:path';
-import type { FrontTrack, PassageEvent } from '../model/index.js';
+import type { FrontTrack, PassageEvent, StationMeta } from '../model/index.js';
+import { toGeoJson } from './geojson.js';
 import { CAUTION } from './caution.js';
 import { writeFilesSafely, type SafeWriteOptions } from './safeWrite.js';
 import { eventsToCsv, eventsToJson, summaryLines } from './format.js';
@@ -16,8 +17,11 @@ export interface OutputFile {
   text: string;
 }
 
-/** The summary text and the files: events.csv, events.json, fronts.csv, fronts.json, summary.txt (in this order). */
-export function outputFolderFiles(events: readonly PassageEvent[], tracks: readonly FrontTrack[], stations: readonly string[]): { summary: string; files: OutputFile[] } {
+/**
+ * The summary text and the files: events.csv, events.json, fronts.csv, fronts.json, summary.txt (in this order), and
+ * run.geojson (RFC 7946, geojson.ts) when station positions are given.
+ */
+export function outputFolderFiles(events: readonly PassageEvent[], tracks: readonly FrontTrack[], stations: readonly string[], metas: readonly StationMeta[] = []): { summary: string; files: OutputFile[] } {
   const network = tracksToTable(tracks);
   const summary = [...summaryLines(events, stations), ...(network ? ['', network.trimEnd()] : []), CAUTION].join('\n') + '\n';
   return {
@@ -28,6 +32,7 @@ export function outputFolderFiles(events: readonly PassageEvent[], tracks: reado
       { name: 'fronts.csv', text: tracksToCsv(tracks) },
       { name: 'fronts.json', text: tracksToJson(tracks) },
       { name: 'summary.txt', text: summary },
+      ...(metas.length ? [{ name: 'run.geojson', text: toGeoJson({ events, tracks, stations: metas }) }] : []),
     ],
   };
 }
