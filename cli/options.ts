@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Argv } from 'yargs';
-import { buildInspect, loadMappingFile, parseColumnOverride, summaryLine, UsageError, type LoadOptions, type LoadResult } from '../src/index.js';
+import { loadMappingFile, parseColumnOverride, UsageError, writeFilesSafely, type LoadOptions, type SafeWriteOptions, buildInspect, summaryLine, type LoadResult } from '../src/index.js';
 
 /** Standard streams of one CLI run, injectable for in-process tests. */
 export interface CliIo {
@@ -36,6 +36,7 @@ export interface InputArgs {
   mapping?: string;
   missing: string[];
   out?: string;
+  force?: boolean;
   quiet?: boolean;
   verbose?: boolean;
 }
@@ -52,7 +53,8 @@ export function withInputOptions<T>(y: Argv<T>) {
     .option('column', { type: 'string', describe: 'Map a CSV column: name=field[:unit]; repeatable; field "ignore" drops a column', group: 'Input:' })
     .option('mapping', { type: 'string', coerce: last, describe: 'JSON mapping file: {"columns": {...}, "missing": [...], "tz": "..."}', group: 'Input:' })
     .option('missing', { type: 'string', describe: 'Extra missing-value marker for CSV cells; repeatable', group: 'Input:' })
-    .option('out', { type: 'string', coerce: last, describe: 'Write the output to FILE instead of standard output', group: 'Output:' })
+    .option('out', { type: 'string', coerce: last, describe: 'Write the output to FILE instead of standard output (never over an input; an existing file only with --force)', group: 'Output:' })
+    .option('force', { type: 'boolean', describe: 'Replace output files that already exist (input files are never replaced)', group: 'Output:' })
     .conflicts('tz', 'utc-offset');
 }
 
@@ -71,6 +73,7 @@ export function inputArgs(a: Record<string, unknown>): InputArgs {
     mapping: a.mapping as string | undefined,
     missing: all(a.missing),
     out: a.out as string | undefined,
+    force: Boolean(a.force),
     quiet: Boolean(a.quiet),
     verbose: Boolean(a.verbose),
   };
@@ -130,19 +133,23 @@ export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<Lo
   return opts;
 }
 
-/** Deliver command output: to `--out FILE` or standard output. A write failure is a runtime error (exit 1). */
-export async function writeOutput(text: string, out: string | undefined, io: CliIo): Promise<void> {
+/**
+ * Deliver command output: to `--out FILE` or standard output. The file is written atomically, never over an
+ * input file, and over an existing file only with `safe.force` (UsageError, exit 2). A write failure is a runtime
+ * error (exit 1).
+ */
+export async function writeOutput(text: string, out: string | undefined, io: CliIo, safe: SafeWriteOptions = {}): Promise<void> {
   // runCli carries every lone `-` as STDIN_TOKEN; after --out it means standard output.
   if (out === undefined || out === '-' || out === STDIN_TOKEN) {
     io.stdout(text);
     return;
   }
-  const { writeFileSync } = await import('node:fs');
-  try {
-    writeFileSync(out, text);
-  } catch (e) {
-    throw new Error(`${out}: cannot write the output file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
-  }
+  writeFilesSafely([{ path: out, text }], safe);
+}
+
+/** The files a load read (data and stations files), for the never-overwrite-an-input rule. */
+export function inputFiles(reports: readonly { file: string }[], extra: readonly (string | undefined)[] = []): string[] {
+  return [...reports.map((r) => r.file), ...extra.filter((x): x is string => x !== undefined)];
 }
 
 /** The one-line summary of what was read, rejected and assumed (the line `inspect` ends with), on standard error unless --quiet. */

@@ -78,10 +78,15 @@ function parser(onSelect: (s: Selected) => void) {
       'Find frontal and other boundary passages at each station',
       (y) =>
         withDetectionOptions(withInputOptions(y))
-          .option('format', { choices: ['table', 'csv', 'json', 'ndjson'] as const, default: 'table', describe: 'Output format', group: 'Output:' })
-          .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json and summary.txt into DIR', group: 'Output:' })
+          .option('format', { choices: ['table', 'csv', 'json', 'ndjson', 'geojson'] as const, default: 'table', describe: 'Output format (geojson: RFC 7946 stations, passages, hourly front positions, arrivals)', group: 'Output:' })
+          .option('at', { type: 'string', describe: 'Point of interest LAT,LON[,NAME] for estimated front arrivals; repeatable', group: 'Output:' })
+          .option('points', { type: 'string', describe: 'Points-of-interest CSV file with lat, lon and optional name columns', group: 'Output:' })
+          .option('out-dir', { type: 'string', describe: 'Write events.csv, events.json, fronts.csv, fronts.json, summary.txt (and run.geojson with station positions) into DIR', group: 'Output:' })
           .option('local', { type: 'boolean', describe: 'Table times in the --tz zone instead of UTC (needs --tz; CSV/JSON stay UTC)', group: 'Output:' })
           .option('shard', { type: 'string', describe: 'K/N: detect only shard K of N (a fixed share of the stations by id) and write its records as NDJSON for fropa merge', group: 'Scale:' })
+          .option('what', { choices: ['events', 'fronts', 'arrivals', 'all'] as const, describe: 'What to write: passages, fronts, estimated arrivals at --at/--points, or all (default: all in the table, events in CSV/JSON/NDJSON; CSV holds one of them)', group: 'Output:' })
+          .option('wind-unit', { choices: ['kt', 'm/s', 'mph', 'km/h'] as const, describe: 'Wind unit of the table and of extra CSV columns (JSON keeps m/s, the unit in each key)', group: 'Output:' })
+          .option('runway', { type: 'string', describe: 'Runway directions for cross- and tailwind before and after the shift, e.g. 04/22,13/31 (designator × 10 taken as degrees true; or three-digit true headings)', group: 'Output:' })
           .conflicts('out', 'out-dir')
           .example('$0 detect stations-demo', 'Passages in the demo folder, as a table')
           .example('$0 detect stations-demo --out-dir fropa-out', 'Write events and fronts (CSV, JSON) and a summary')
@@ -89,6 +94,10 @@ function parser(onSelect: (s: Selected) => void) {
           .example('$0 detect obs/ --kinds cold-front,dryline --min-confidence 0.6', 'Only confident cold fronts and drylines')
           .example('$0 detect mesonet_march.csv --tz America/Denver --local', 'Local times in the table')
           .example('$0 detect archive/ --shard 2/8 --out shard-2.ndjson', 'Shard 2 of 8; fropa merge shard-*.ndjson gives what one run gives')
+          .example('$0 detect obs/ --wind-unit kt --runway 04/22,13/31', 'Winds in knots with runway cross- and tailwind components')
+          .example('$0 detect obs/ --stations stations.csv --format json --what all', 'Passages and fronts in one JSON object')
+          .example('$0 detect obs/ --stations stations.csv --at 41.88,-87.63,Downtown', 'Estimated arrival of each tracked front at a point')
+          .example('$0 detect obs/ --stations stations.csv --format geojson --out run.geojson', 'Stations, passages and hourly front positions for a GIS')
           .epilogue(EPILOGUE),
       (a) => onSelect({ command: 'detect', args: a as Record<string, unknown> }),
     )
@@ -122,6 +131,7 @@ function parser(onSelect: (s: Selected) => void) {
           .option('from', { type: 'string', describe: 'Start of the period shown, ISO 8601 (UTC unless an offset is given), e.g. 2026-03-02 or 2026-03-02T06:00Z', group: 'Report:' })
           .option('to', { type: 'string', describe: 'End of the period shown (a date alone means the end of that day)', group: 'Report:' })
           .option('station', { type: 'string', describe: 'Show only this station; repeatable or comma-separated', group: 'Report:' })
+          .option('local', { type: 'boolean', describe: 'Show passage times in the --tz zone beside UTC (needs --tz)', group: 'Report:' })
           .example('$0 report stations-demo --out report.html', 'The demo network: overview, fronts with maps, a chart per passage')
           .example('$0 report stations-demo --from 2026-03-02 --to 2026-03-03 --out march2.html', 'Two days, one chart per station covering them')
           .example('$0 report obs/ --stations stations.csv --station KORD --kinds cold-front', 'One station, cold fronts only')

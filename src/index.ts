@@ -57,13 +57,19 @@ export type { VerifyOptions, VerifyResult } from './verify/verify.js';
 export { csi, far, frequencyBias, pod, proportionCorrect, type Contingency } from './verify/contingency.js';
 
 // Writers: records, CSV, JSON, NDJSON, tables, the output folder, the HTML report, inspect, verification.
-export { EVENT_COLUMNS, eventToRecord, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, summaryLines } from './report/format.js';
-export type { EventColumn, EventRecord, RecordValue, TableOptions } from './report/format.js';
-export { FRONT_COLUMNS, passagesToTable, trackToRecord, tracksToCsv, tracksToJson, tracksToTable } from './report/fronts.js';
+export { EVENT_COLUMNS, WIND_UNITS, eventToRecord, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, recordColumns, summaryLines } from './report/format.js';
+export type { EventColumn, EventRecord, RecordOptions, RecordValue, TableOptions, WindUnit } from './report/format.js';
+export { operatorFields, parseRunways, precipTypesOf, pressureSource, windOnRunway, withOperatorFields, type RunwayHeading } from './report/operatorFields.js';
+export { FRONT_COLUMNS, eventsAndTracksToJson, passagesToTable, trackToRecord, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable } from './report/fronts.js';
 export type { FrontColumn } from './report/fronts.js';
 export { outputFolderFiles, writeOutputFolder, type OutputFile } from './report/outputFolder.js';
+export { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, arrivalToRecord, ARRIVAL_COLUMNS, parsePoint, parsePointsFile, type Arrival, type PointOfInterest } from './report/arrivals.js';
+export { toGeoJson, type GeoJsonInput } from './report/geojson.js';
+export { fittedPassageMs, isochrone } from './network/fittedTime.js';
+export { checkOutputs, writeFilesSafely, type PlannedFile, type SafeWriteOptions } from './report/safeWrite.js';
 export { eventsInPeriod, parsePeriodTime, periodOutsideData, selectStations } from './report/period.js';
 export { reportHtml } from './report/html/reportHtml.js';
+export { loadGeography, type Geography } from './report/html/geography.js';
 export type { ReportFile, ReportInput } from './report/html/reportHtml.js';
 export { buildInspect, inspectToTable, issueLine, noDataMessage, summaryLine } from './report/inspect.js';
 export type { InspectFile, InspectStation } from './report/inspect.js';

@@ -18,6 +18,7 @@ import { withNetworkCoherence } from './network/coherence.js';
 import { defaultJobs, detectInPool, type StationOutcome } from './parallel/detectPool.js';
 import { inShard, shardToNdjson, type ShardContent, type ShardHeader, type ShardSpec, type ShardStation } from './parallel/shard.js';
 import { UsageError } from './model/index.js';
+import { detectWithOperatorFields, type RunwayHeading } from './report/operatorFields.js';
 
 /** How to read the inputs (time zone, column mapping, stations file, …). */
 export type LoadOptions = ReadOptions;
@@ -71,6 +72,8 @@ export interface AnalyseOptions extends DetectOptions {
   network?: boolean;
   /** Keep only these kinds in the result (tracking still sees every passage). */
   kinds?: ReadonlySet<BoundaryKind> | null;
+  /** Runway directions for the cross- and tailwind components of each event (none by default). */
+  runways?: readonly RunwayHeading[];
 }
 
 export interface ParallelAnalyseOptions extends AnalyseOptions {
@@ -109,10 +112,11 @@ function detectionPlan(series: readonly StationSeries[], opts: AnalyseOptions): 
 }
 
 /** The single-station detector's options (what a worker needs). */
-function stationOptions(opts: AnalyseOptions, floor: number): DetectOptions {
-  const d: DetectOptions = { minConfidence: floor };
+function stationOptions(opts: AnalyseOptions, floor: number): DetectOptions & { runways?: readonly RunwayHeading[] } {
+  const d: DetectOptions & { runways?: readonly RunwayHeading[] } = { minConfidence: floor };
   if (opts.frontSpeedKmh !== undefined) d.frontSpeedKmh = opts.frontSpeedKmh;
   if (opts.model !== undefined) d.model = opts.model;
+  if (opts.runways?.length) d.runways = opts.runways;
   return d;
 }
 
@@ -126,7 +130,7 @@ export function analyseSeries(series: readonly StationSeries[], opts: AnalyseOpt
   const dopts = { ...opts, ...stationOptions(opts, plan.floor) };
   const outcomes: StationOutcome[] = series.map((s) => {
     try {
-      return { events: detectStation(s, dopts) };
+      return { events: detectWithOperatorFields(s, dopts) };
     } catch (e) {
       return { error: (e as Error).message };
     }
@@ -195,6 +199,7 @@ function finishAnalysis(stations: readonly ShardStation[], events: PassageEvent[
   if (opts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
   const kinds = opts.kinds;
   return {
+    // The operators' fields (levels, freeze, precipitation type, wind before, which pressure, runways) after detection.
     events: sortEvents(all.filter((e) => !kinds || kinds.has(e.kind))),
     tracks: allTracks.filter((t) => !kinds || kinds.has(t.kind)),
     failures,
@@ -217,7 +222,7 @@ export async function analyseShard(series: readonly StationSeries[], shard: Shar
       : mine.map((s, i) => {
           let o: StationOutcome;
           try {
-            o = { events: detectStation(s, { ...rest, ...dopts }) };
+            o = { events: detectWithOperatorFields(s, { ...rest, ...dopts }) };
           } catch (e) {
             o = { error: (e as Error).message };
           }

@@ -1,6 +1,6 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { analyseShard, parseShard, BOUNDARY_KINDS, eventsToCsv, eventsToJson, eventsToNdjson, loadPaths, outputFolderFiles, passagesToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, UsageError, noDataMessage } from '../../src/index.js';
-import { inputArgs, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, CAUTION, parsePoint, parsePointsFile, toGeoJson, type PointOfInterest, type StationMeta, analyseSeries, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, loadPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage, analyseShard, parseShard } from '../../src/index.js';
+import { inputArgs, inputFiles, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { analysisStatus, parseJobs, runAnalysis } from '../analysis.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
@@ -38,6 +38,44 @@ function lastNumber(v: unknown): number | undefined {
   return typeof x === 'number' ? x : Number(x);
 }
 
+/** `--runway 04/22,13/31` (repeatable) → runway directions (UsageError on a bad designator). */
+export function runwayOption(v: unknown): RunwayHeading[] {
+  if (v === undefined) return [];
+  const spec = (Array.isArray(v) ? v : [v]).map(String).join(',');
+  try {
+    return parseRunways(spec);
+  } catch (e) {
+    throw new UsageError(`--runway: ${(e as Error).message}`);
+  }
+}
+
+/** `--at LAT,LON[,NAME]` (repeatable) and `--points FILE` → points of interest (UsageError on bad values). */
+export async function pointsOption(at: unknown, file: unknown): Promise<PointOfInterest[]> {
+  const out: PointOfInterest[] = [];
+  for (const spec of at === undefined ? [] : (Array.isArray(at) ? at : [at]).map(String)) {
+    try {
+      out.push(parsePoint(spec));
+    } catch (e) {
+      throw new UsageError(`--at ${(e as Error).message}`);
+    }
+  }
+  for (const f of file === undefined ? [] : (Array.isArray(file) ? file : [file]).map(String)) {
+    const { readFileSync } = await import('node:fs');
+    let text: string;
+    try {
+      text = readFileSync(f, 'utf8');
+    } catch {
+      throw new UsageError(`${f}: cannot read the points file`);
+    }
+    try {
+      out.push(...parsePointsFile(text, f));
+    } catch (e) {
+      throw new UsageError((e as Error).message);
+    }
+  }
+  return out;
+}
+
 /** Run detect; returns the exit code (1 when no station has data or every station failed, 3 when some failed). */
 export async function run(raw: Record<string, unknown>, io: CliIo): Promise<number> {
   const args = inputArgs(raw);
@@ -45,6 +83,13 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const dopts = detectOptions(raw);
   const jobs = parseJobs(raw.jobs);
   const local = Boolean(raw.local);
+  const runways = runwayOption(raw.runway);
+  const windUnit = (Array.isArray(raw.windUnit) ? raw.windUnit[raw.windUnit.length - 1] : raw.windUnit) as WindUnit | undefined;
+  const format = String(raw.format ?? 'table');
+  const what = (raw.what as 'events' | 'fronts' | 'arrivals' | 'all' | undefined) ?? (format === 'table' || format === 'geojson' ? 'all' : 'events');
+  const points = await pointsOption(raw.at, raw.points);
+  if (what === 'arrivals' && points.length === 0) throw new UsageError('--what arrivals needs points: --at LAT,LON[,NAME] or --points FILE');
+  if (format === 'csv' && what === 'all') throw new UsageError('--format csv holds one table: use --what events or --what fronts (or --out-dir for both)');
   if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
   const shard = raw.shard === undefined ? undefined : parseShard(String(Array.isArray(raw.shard) ? raw.shard[raw.shard.length - 1] : raw.shard));
   if (shard && (raw.outDir !== undefined || (raw.format !== undefined && raw.format !== 'ndjson' && raw.format !== 'table'))) {
@@ -65,27 +110,38 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     if (!args.quiet) io.stderr(`fropa: shard ${shard.index}/${shard.count}: ${r.stations} of ${result.series.length} stations\n`);
     return r.failures.length === 0 ? 0 : r.failures.length >= r.stations ? 1 : 3;
   }
-  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs }, io, { files: result.reports.length, quiet: Boolean(args.quiet) });
+  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs, runways }, io, { files: result.reports.length, quiet: Boolean(args.quiet) });
   if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);
   const { events, tracks } = analysis;
   const stations = result.series.map((s) => s.station);
+  const safe = { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) };
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {
-    const { summary, files } = outputFolderFiles(events, tracks, stations);
-    const written = writeOutputFolder(outDir, files);
+    const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+    const { summary, files } = outputFolderFiles(events, tracks, stations, metas);
+    const written = writeOutputFolder(outDir, files, safe);
     io.stdout(summary + written.map((p) => `wrote ${p}`).join('\n') + '\n');
     return analysisStatus(analysis, result.series.length, io);
   }
-  const format = String(raw.format ?? 'table');
-  const text =
-    format === 'csv'
-      ? eventsToCsv(events)
-      : format === 'json'
-        ? eventsToJson(events)
-        : format === 'ndjson'
-          ? eventsToNdjson(events)
-          : passagesToTable(events, tracks, { zone: local ? opts.zone : undefined, stations });
-  await writeOutput(text, args.out, io);
+  const tableOpts = { zone: local ? opts.zone : undefined, stations, windUnit };
+  const arrivals = arrivalsAt(points, tracks);
+  let text: string;
+  if (what === 'arrivals' && format !== 'table' && format !== 'geojson') text = format === 'csv' ? arrivalsToCsv(arrivals) : arrivalsToJson(arrivals, format === 'ndjson');
+  else if (format === 'geojson') {
+    const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+    text = toGeoJson({ events: what === 'fronts' || what === 'arrivals' ? [] : events, tracks: what === 'events' || what === 'arrivals' ? [] : tracks, stations: metas, arrivals });
+  } else if (format === 'csv') text = what === 'fronts' ? tracksToCsv(tracks) : eventsToCsv(events, { windUnit });
+  else if (format === 'json') text = what === 'fronts' ? tracksToJson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks) : eventsToJson(events);
+  else if (format === 'ndjson') text = what === 'fronts' ? tracksToNdjson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks, true) : eventsToNdjson(events);
+  else {
+    text = what === 'fronts' ? tracksToTable(tracks) || 'no fronts tracked\n' : what === 'events' ? eventsToTable(events, tableOpts) : what === 'arrivals' ? '' : passagesToTable(events, tracks, tableOpts);
+    if (points.length && (what === 'all' || what === 'arrivals')) {
+      const block = arrivalsToTable(arrivals) || `no tracked front to estimate arrivals at ${points.map((p) => p.name).join(', ')}\n`;
+      const at = text.lastIndexOf(CAUTION);
+      text = at < 0 ? text + (text ? '\n' : '') + block + CAUTION + '\n' : text.slice(0, at) + block + '\n' + text.slice(at);
+    }
+  }
+  await writeOutput(text, args.out, io, safe);
   return analysisStatus(analysis, result.series.length, io);
 }
 

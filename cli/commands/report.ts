@@ -1,6 +1,6 @@
 /** `fropa report <paths...>`: detect passages and track fronts as `detect` does, then write one self-contained HTML page. */
-import { CAUTION, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
-import { STDIN_TOKEN, inputArgs, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { analyseSeries, CAUTION, loadGeography, eventsInPeriod, loadPaths, parsePeriodTime, periodOutsideData, reportHtml, selectStations, UsageError, type StationMeta, noDataMessage } from '../../src/index.js';
+import { STDIN_TOKEN, inputArgs, inputFiles, resolveLoadOptions, writeOutput, type CliIo, printLoadSummary } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
 import { analysisStatus, parseJobs, runAnalysis } from '../analysis.js';
 
@@ -28,6 +28,8 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   if (fromMs !== undefined && toMs !== undefined && !(toMs > fromMs)) throw new UsageError('--to must be later than --from');
   const wanted = parseStations(raw.station);
   const jobs = parseJobs(raw.jobs);
+  const local = Boolean(raw.local);
+  if (local && args.tz === undefined) throw new UsageError('--local needs --tz ZONE: fropa shows local time only in a zone you name');
   const opts = await resolveLoadOptions(args, io);
   const result = loadPaths(args.paths, opts);
   if (result.series.length === 0) {
@@ -49,10 +51,10 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     .filter((f) => f.format !== 'skipped' && f.format !== 'stations')
     .map((f) => ({ file: f.file, format: f.format, parsed: f.parsed, rejected: f.rejected }));
   const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
-  const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION });
+  const html = reportHtml({ series, events, tracks, stations: metas, files, fromMs, toMs, caution: CAUTION, localZone: local ? opts.zone : undefined, geography: tracks.length ? loadGeography() : undefined });
   const rawOut = raw.out as string | undefined;
   const out = rawOut === undefined ? 'report.html' : rawOut;
-  await writeOutput(html, out, io);
+  await writeOutput(html, out, io, { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) });
   if (out !== '-' && out !== STDIN_TOKEN) {
     const n = eventsInPeriod(events, series, fromMs, toMs).length;
     io.stdout(`wrote ${out} (${(Buffer.byteLength(html) / 1024).toFixed(0)} KiB): ${series.length} station${series.length === 1 ? '' : 's'}, ${n} passage${n === 1 ? '' : 's'}\n${CAUTION}\n`);

@@ -9,7 +9,7 @@ import {
   analyseSeries, buildStationIndex, issueLine, loadPaths, readForecastsText, seriesForecasts, seriesSpans, verificationScoresToCsv, verificationToCsv, verificationToJson,
   verificationToTable, verifyForecasts, UsageError, noDataMessage, type CoveragePeriod, type FileReport, type ForecastPassage,
 } from '../../src/index.js';
-import { inputArgs, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { inputArgs, inputFiles, resolveLoadOptions, writeOutput, type CliIo, printLoadSummary } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
 
 const last = (v: unknown) => (Array.isArray(v) ? v[v.length - 1] : v);
@@ -121,6 +121,6 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
             observedCount: events.length,
             rejected: reports.map(({ label, report }) => ({ file: label, rejected: report.rejected, byReason: report.rejectedByReason })),
           });
-  await writeOutput(out, args.out, io);
+  await writeOutput(out, args.out, io, { force: args.force, inputs: inputFiles(result.reports, [...args.paths, ...seriesPaths, forecastFile, args.mapping, args.stations]) });
   return 0;
 }

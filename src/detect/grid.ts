@@ -50,7 +50,7 @@ function coverage(v: ArrayLike<number>): number {
 }
 
 /** Choose the pressure column: station pressure, else altimeter setting, else sea-level pressure (first with ≥ 50 % coverage). */
-function choosePressure(s: StationSeries): { values: Float64Array; kind: DetectGrid['pressureKind'] } {
+export function choosePressure(s: StationSeries): { values: Float64Array; kind: DetectGrid['pressureKind'] } {
   const opts: [DetectGrid['pressureKind'], Float64Array][] = [
     ['station', cleanColumn(s, 'stationPressureHpa')],
     ['altimeter', cleanColumn(s, 'altimeterHpa')],

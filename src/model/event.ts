@@ -3,6 +3,8 @@
  * Canonical units: °C, hPa, m/s, degrees true, epoch ms UTC. Missing is NaN.
  */
 
+import type { OperatorFields } from './operator.js';
+
 export const BOUNDARY_KINDS = [
   'cold-front',
   'warm-front',
@@ -56,4 +58,6 @@ export interface PassageEvent {
   timeBasis: 'wind-shift' | 'temperature-change' | 'dew-point-change' | 'change-point';
   /** Criteria that held (`+ …`) and failed (`− …`), in plain words. */
   evidence: string[];
+  /** Levels, freeze risk, precipitation type, wind before, which pressure, runway components (added after detection). */
+  operator?: OperatorFields;
 }

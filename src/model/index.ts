@@ -5,5 +5,6 @@ export * from './station.js';
 export * from './fileReport.js';
 export * from './series.js';
 export * from './event.js';
+export * from './operator.js';
 export * from './track.js';
 export * from './usageError.js';

@@ -4,7 +4,7 @@
  * between stations.
  */
 import { parentPort } from 'node:worker_threads';
-import { detectStation } from '../detect/detect.js';
+import { detectWithOperatorFields } from '../report/operatorFields.js';
 import type { DetectOptions } from '../detect/types.js';
 import type { StationSeries } from '../model/index.js';
 import type { PoolReply, PoolTask } from './detectPool.js';
@@ -14,7 +14,7 @@ if (port) {
   port.on('message', (task: PoolTask) => {
     let reply: PoolReply;
     try {
-      reply = { index: task.index, events: detectStation(task.series as StationSeries, task.opts as DetectOptions) };
+      reply = { index: task.index, events: detectWithOperatorFields(task.series as StationSeries, task.opts as DetectOptions) };
     } catch (e) {
       reply = { index: task.index, error: e instanceof Error ? e.message : String(e) };
     }

@@ -4,10 +4,12 @@
  *
  * Contract: snake_case keys in the order of EVENT_COLUMNS; times ISO 8601 UTC `YYYY-MM-DDTHH:MM:SSZ`;
  * missing numbers (NaN) are `null` in JSON and empty cells in CSV; evidence is an array in JSON and
- * one cell joined with `; ` in CSV.
+ * one cell joined with `; ` in CSV, its `+`/`−` marks written as `held:`/`failed:` there; CSV text cells that a
+ * spreadsheet would execute are neutralised (csvCell).
  */
 import { DateTime } from 'luxon';
-import type { PassageEvent } from '../model/index.js';
+import type { OperatorFields, PassageEvent } from '../model/index.js';
+import { KMH_MS, KNOT_MS, MPH_MS } from '../physics/constants.js';
 import { CAUTION } from './caution.js';
 
 /** Output columns, in contract order (CSV header, JSON key order). */
@@ -40,10 +42,66 @@ export const EVENT_COLUMNS = [
   'gradient_k_per_100km',
   'observer_fropa_time',
   'evidence',
+  'temp_before_c',
+  'temp_after_c',
+  'dewpoint_before_c',
+  'dewpoint_after_c',
+  'temp_min_6h_c',
+  'temp_min_12h_c',
+  'freeze_time',
+  'precip_before_6h',
+  'precip_types',
+  'precip_heavy',
+  'wind_speed_before_ms',
+  'pressure_source',
 ] as const;
 export type EventColumn = (typeof EVENT_COLUMNS)[number];
 export type RecordValue = string | number | boolean | null | string[];
-export type EventRecord = Record<EventColumn, RecordValue>;
+/** One event as a record: the contract columns, and the wind-unit and runway columns when asked for (recordColumns). */
+export type EventRecord = Record<EventColumn, RecordValue> & Record<string, RecordValue>;
+
+/** Wind units for tables and CSV (JSON keeps m/s), with the factor to m/s (NIST SP 811 via physics/constants.ts) and the key suffix. */
+export const WIND_UNITS = {
+  kt: { ms: KNOT_MS, suffix: 'kt' },
+  'm/s': { ms: 1, suffix: 'ms' },
+  mph: { ms: MPH_MS, suffix: 'mph' },
+  'km/h': { ms: KMH_MS, suffix: 'kmh' },
+} as const;
+export type WindUnit = keyof typeof WIND_UNITS;
+
+/** What the writers add to the contract columns. */
+export interface RecordOptions {
+  /** Unit of the extra wind columns (`wind_speed_before_kt`, …) and the runway columns; m/s when absent. JSON always uses m/s. */
+  windUnit?: WindUnit;
+}
+
+/** The runway designators the events carry, in order of first appearance. */
+function runwaysOf(events: readonly PassageEvent[]): string[] {
+  const seen: string[] = [];
+  for (const e of events) for (const r of e.operator?.runways ?? []) if (!seen.includes(r.runway)) seen.push(r.runway);
+  return seen;
+}
+
+/**
+ * The columns of a set of events: EVENT_COLUMNS, then (unit other than m/s) `wind_speed_before_U`,
+ * `wind_speed_after_U`, `gust_max_U`, then per runway `rwy_R_crosswind_before_U`, `rwy_R_tailwind_before_U`,
+ * `rwy_R_crosswind_after_U`, `rwy_R_tailwind_after_U` (U the unit suffix: kt, ms, mph, kmh).
+ */
+export function recordColumns(events: readonly PassageEvent[], opts: RecordOptions = {}): string[] {
+  const u = WIND_UNITS[opts.windUnit ?? 'm/s'].suffix;
+  const cols: string[] = [...EVENT_COLUMNS];
+  if (u !== 'ms') cols.push(`wind_speed_before_${u}`, `wind_speed_after_${u}`, `gust_max_${u}`);
+  for (const r of runwaysOf(events)) {
+    const k = r.toLowerCase();
+    cols.push(`rwy_${k}_crosswind_before_${u}`, `rwy_${k}_tailwind_before_${u}`, `rwy_${k}_crosswind_after_${u}`, `rwy_${k}_tailwind_after_${u}`);
+  }
+  return cols;
+}
+
+const NO_OPERATOR: OperatorFields = {
+  tempBeforeC: NaN, tempAfterC: NaN, dewpointBeforeC: NaN, dewpointAfterC: NaN, tempMin6hC: NaN, tempMin12hC: NaN,
+  freezeTimeMs: NaN, precipBefore6h: false, precipTypes: [], precipHeavy: false, windSpeedBeforeMs: NaN, pressureSource: 'none',
+};
 
 /**
  * Epoch ms → `YYYY-MM-DDTHH:MM:SSZ` (ISO 8601 UTC, no fraction); null when not finite.
@@ -71,8 +129,11 @@ export function roundOrNull(x: number, digits: number): number | null {
  * One event as a flat record with the contract's snake_case keys, in contract order. Rounding:
  * 0.1 for °C, K, hPa, m/s, hours, km and K/100 km; whole degrees for wind; 0.01 for confidence.
  */
-export function eventToRecord(e: PassageEvent): EventRecord {
-  return {
+export function eventToRecord(e: PassageEvent, opts: RecordOptions = {}): EventRecord {
+  const o = e.operator ?? NO_OPERATOR;
+  const unit = WIND_UNITS[opts.windUnit ?? 'm/s'];
+  const w = (ms: number) => roundOrNull(ms / unit.ms, 1);
+  const rec: EventRecord = {
     station: e.station,
     kind: e.kind,
     time: isoUtc(e.timeMs),
@@ -101,18 +162,69 @@ export function eventToRecord(e: PassageEvent): EventRecord {
     gradient_k_per_100km: roundOrNull(e.gradientKPer100km, 1),
     observer_fropa_time: isoUtc(e.observerFropaTimeMs),
     evidence: [...e.evidence],
+    temp_before_c: roundOrNull(o.tempBeforeC, 1),
+    temp_after_c: roundOrNull(o.tempAfterC, 1),
+    dewpoint_before_c: roundOrNull(o.dewpointBeforeC, 1),
+    dewpoint_after_c: roundOrNull(o.dewpointAfterC, 1),
+    temp_min_6h_c: roundOrNull(o.tempMin6hC, 1),
+    temp_min_12h_c: roundOrNull(o.tempMin12hC, 1),
+    freeze_time: isoUtc(o.freezeTimeMs),
+    precip_before_6h: e.operator ? o.precipBefore6h : null,
+    precip_types: [...o.precipTypes],
+    precip_heavy: e.operator ? o.precipHeavy : null,
+    wind_speed_before_ms: roundOrNull(o.windSpeedBeforeMs, 1),
+    pressure_source: e.operator ? o.pressureSource : null,
   };
+  if (unit.suffix !== 'ms') {
+    rec[`wind_speed_before_${unit.suffix}`] = w(o.windSpeedBeforeMs);
+    rec[`wind_speed_after_${unit.suffix}`] = w(e.windSpeedAfterMs);
+    rec[`gust_max_${unit.suffix}`] = w(e.gustMaxMs);
+  }
+  for (const r of o.runways ?? []) {
+    const k = `rwy_${r.runway.toLowerCase()}`;
+    rec[`${k}_crosswind_before_${unit.suffix}`] = w(r.crosswindBeforeMs);
+    rec[`${k}_tailwind_before_${unit.suffix}`] = w(r.tailwindBeforeMs);
+    rec[`${k}_crosswind_after_${unit.suffix}`] = w(r.crosswindAfterMs);
+    rec[`${k}_tailwind_after_${unit.suffix}`] = w(r.tailwindAfterMs);
+  }
+  return rec;
+}
+
+/** A cell text a spreadsheet reads as a plain number (left as it is, so negative numbers stay numbers). */
+const PLAIN_NUMBER = /^[+-]?(\d+(\.\d*)?|\.\d+)([eE][+-]?\d+)?$/;
+/** First characters that make a spreadsheet treat a cell as a formula (OWASP "CSV Injection": = + - @ tab CR). */
+const FORMULA_START = /^[=+\-@\t\r]/;
+
+/**
+ * Neutralise a text cell that a spreadsheet would execute: a cell starting with `=`, `+`, `-`, `@`, tab or CR gets a
+ * leading `'` (the prefix the OWASP "CSV Injection" guidance recommends); plain numbers (`-3.5`, `+2`) are left as
+ * they are.
+ * @example neutraliseFormula('=HYPERLINK("x")') // "'=HYPERLINK(\"x\")"
+ */
+export function neutraliseFormula(s: string): string {
+  return FORMULA_START.test(s) && !PLAIN_NUMBER.test(s) ? `'${s}` : s;
 }
 
 /**
- * One CSV cell: quoted when it holds a comma, double quote, CR or LF, with inner quotes doubled
- * (RFC 4180 §2 rules 6 and 7). null → empty cell; arrays joined with `; `.
+ * One CSV cell: formula-like text neutralised (neutraliseFormula), then quoted when it holds a comma, double quote,
+ * CR or LF, with inner quotes doubled (RFC 4180 §2 rules 6 and 7). null → empty cell; arrays joined with `; `.
+ * Numbers and booleans are written as they are.
  * @example csvCell('a "b", c') // '"a ""b"", c"'
  */
 export function csvCell(v: RecordValue): string {
   if (v === null) return '';
-  const s = Array.isArray(v) ? v.join('; ') : String(v);
-  return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  const s = Array.isArray(v) ? v.join('; ') : typeof v === 'string' ? neutraliseFormula(v) : String(v);
+  const t = Array.isArray(v) ? neutraliseFormula(s) : s;
+  return /[",\r\n]/.test(t) ? `"${t.replace(/"/g, '""')}"` : t;
+}
+
+/**
+ * Evidence lines for a CSV cell: the leading `+ ` / `− ` of each line (criteria that held / failed) become the words
+ * `held:` / `failed:`, so no cell begins with a sign a spreadsheet could read as a formula.
+ * @example evidenceForCsv(['+ wind veered', '− no trough']) // ['held: wind veered', 'failed: no trough']
+ */
+export function evidenceForCsv(lines: readonly string[]): string[] {
+  return lines.map((l) => (l.startsWith('+ ') ? 'held: ' + l.slice(2) : l.startsWith('− ') || l.startsWith('- ') ? 'failed: ' + l.slice(2) : l));
 }
 
 /**
@@ -120,21 +232,23 @@ export function csvCell(v: RecordValue): string {
  * Quoting follows RFC 4180 §2; lines end in LF (not the CRLF of RFC 4180 §2 rule 1) so that
  * line-based Unix tools see clean last cells; every common CSV reader accepts both.
  */
-export function eventsToCsv(events: readonly PassageEvent[]): string {
-  const lines = [EVENT_COLUMNS.join(',')];
+export function eventsToCsv(events: readonly PassageEvent[], opts: RecordOptions = {}): string {
+  const cols = recordColumns(events, opts);
+  const lines = [cols.join(',')];
   for (const e of events) {
-    const r = eventToRecord(e);
-    lines.push(EVENT_COLUMNS.map((c) => csvCell(r[c])).join(','));
+    const r = eventToRecord(e, opts);
+    r.evidence = evidenceForCsv(e.evidence);
+    lines.push(cols.map((c) => csvCell(r[c] ?? null)).join(','));
   }
   return lines.join('\n') + '\n';
 }
 
-/** Events as newline-delimited JSON: one record object per line. */
+/** Events as newline-delimited JSON: one record object per line (winds in m/s, the unit in each key). */
 export function eventsToNdjson(events: readonly PassageEvent[]): string {
   return events.map((e) => JSON.stringify(eventToRecord(e)) + '\n').join('');
 }
 
-/** Events as one JSON array of records (one record per line, for readable diffs). */
+/** Events as one JSON array of records (one record per line, for readable diffs; winds in m/s, the unit in each key). */
 export function eventsToJson(events: readonly PassageEvent[]): string {
   if (events.length === 0) return '[]\n';
   return '[\n' + events.map((e) => '  ' + JSON.stringify(eventToRecord(e))).join(',\n') + '\n]\n';
@@ -145,7 +259,18 @@ export interface TableOptions {
   zone?: string;
   /** Every station read, so stations without events get a summary line too. */
   stations?: readonly string[];
+  /** Unit of the wind speeds, gusts and runway components; m/s when absent. */
+  windUnit?: WindUnit;
 }
+
+/** Short table labels of the pressure sources. */
+const PRESSURE_LABEL: Record<OperatorFields['pressureSource'], string> = {
+  station: 'station',
+  'station-from-altimeter': 'stn<-alt',
+  altimeter: 'altimeter',
+  'sea-level': 'sea-level',
+  none: '-',
+};
 
 /** Pad cells to aligned columns; numeric columns right-aligned. */
 export function alignColumns(header: readonly string[], rows: readonly string[][], rightAligned: readonly boolean[]): string[] {
@@ -202,6 +327,8 @@ export function summaryLines(events: readonly PassageEvent[], stations: readonly
  */
 export function eventsToTable(events: readonly PassageEvent[], opts: TableOptions = {}): string {
   const zoneName = opts.zone ?? 'UTC';
+  const unitName = opts.windUnit ?? 'm/s';
+  const perMs = WIND_UNITS[unitName].ms;
   const header = [
     'station',
     'kind',
@@ -215,14 +342,24 @@ export function eventsToTable(events: readonly PassageEvent[], opts: TableOption
     'Δp 3h hPa',
     'wind °',
     'turn °',
-    'gust m/s',
+    `speed ${unitName}`,
+    `gust ${unitName}`,
     'precip',
     'zone h',
     'zone km',
     'observer',
+    'T °C',
+    'Td °C',
+    'Tmin 12h',
+    'freeze',
+    'wx near',
+    'pressure',
   ];
-  const right = [false, false, false, true, true, true, true, true, true, true, false, true, true, false, true, true, false];
+  const right = [false, false, false, true, true, true, true, true, true, true, false, true, false, true, false, true, true, false, false, false, true, false, false, false];
   const rows = events.map((e) => {
+    const o = e.operator;
+    const pair = (a: number | undefined, b: number | undefined, d: number) =>
+      Number.isFinite(a) || Number.isFinite(b) ? `${num(a ?? NaN, d)}→${num(b ?? NaN, d)}` : '-';
     const halfWindowMin = (e.timeLatestMs - e.timeEarliestMs) / 2 / 60000;
     const wind =
       Number.isFinite(e.windBeforeDeg) || Number.isFinite(e.windAfterDeg) ? `${num(e.windBeforeDeg, 0)}→${num(e.windAfterDeg, 0)}` : '-';
@@ -239,16 +376,40 @@ export function eventsToTable(events: readonly PassageEvent[], opts: TableOption
       num(e.pressureRise3hHpa, 1, true),
       wind,
       num(e.windTurnDeg, 0, true),
-      num(e.gustMaxMs, 1),
-      e.precipNear ? 'yes' : 'no',
+      pair(o ? o.windSpeedBeforeMs / perMs : NaN, e.windSpeedAfterMs / perMs, 0),
+      num(e.gustMaxMs / perMs, 1),
+      e.precipNear ? (o?.precipBefore6h ? 'yes, before' : 'yes') : o?.precipBefore6h ? 'before' : 'no',
       num(e.zoneHours, 1),
       num(e.zoneDepthKm, 1),
       Number.isFinite(e.observerFropaTimeMs) ? clock(e.observerFropaTimeMs, opts.zone, false) : '',
+      pair(o?.tempBeforeC, o?.tempAfterC, 1),
+      pair(o?.dewpointBeforeC, o?.dewpointAfterC, 1),
+      num(o?.tempMin12hC ?? NaN, 1),
+      o && Number.isFinite(o.freezeTimeMs) ? clock(o.freezeTimeMs, opts.zone, false) : '-',
+      o && o.precipTypes.length ? (o.precipHeavy ? 'heavy ' : '') + o.precipTypes.join('+') : '-',
+      o ? PRESSURE_LABEL[o.pressureSource] : '-',
     ];
   });
+  const runwayLines: string[] = [];
+  for (const e of events) {
+    for (const r of e.operator?.runways ?? []) {
+      const c = (x: number) => num(x / perMs, 0, true);
+      runwayLines.push(
+        `${e.station}  ${clock(e.timeMs, opts.zone, true)}  rwy ${r.runway} (${r.headingDeg}°): cross ${c(r.crosswindBeforeMs)} → ${c(r.crosswindAfterMs)}, tail ${c(r.tailwindBeforeMs)} → ${c(r.tailwindAfterMs)} ${unitName}`,
+      );
+    }
+  }
   const out: string[] = [];
   if (rows.length) out.push(...alignColumns(header, rows, right), '');
   else out.push('no passages found', '');
+  if (rows.length) {
+    out.push(
+      'T, Td: median of the hour before → 1–3 h after; Tmin 12h and freeze (first report ≤ 0 °C): in the 12 h after;',
+      'precip "before": in the 6 h before; pressure: the pressure the p columns were measured on (stn<-alt: station pressure from the altimeter setting).',
+      '',
+    );
+  }
+  if (runwayLines.length) out.push(`Runway wind components (${unitName}; cross + from the right; tail − is a headwind), before → after the shift:`, ...runwayLines, '');
   out.push(...summaryLines(events, opts.stations ?? []));
   out.push(CAUTION);
   return out.join('\n') + '\n';

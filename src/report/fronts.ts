@@ -4,7 +4,7 @@
  */
 import type { FrontTrack, PassageEvent } from '../model/index.js';
 import { CAUTION } from './caution.js';
-import { alignColumns, csvCell, eventsToTable, isoUtc, roundOrNull, type RecordValue, type TableOptions } from './format.js';
+import { alignColumns, csvCell, eventToRecord, eventsToTable, isoUtc, roundOrNull, type RecordValue, type TableOptions } from './format.js';
 
 export const FRONT_COLUMNS = [
   'front',
@@ -51,6 +51,27 @@ export function tracksToCsv(tracks: readonly FrontTrack[]): string {
     lines.push(FRONT_COLUMNS.map((c) => csvCell(r[c])).join(','));
   }
   return lines.join('\n') + '\n';
+}
+
+/** Fronts as newline-delimited JSON: one record object per line. */
+export function tracksToNdjson(tracks: readonly FrontTrack[]): string {
+  return tracks.map((t) => JSON.stringify(trackToRecord(t)) + '\n').join('');
+}
+
+/**
+ * Events and fronts together: JSON `{"events": [...], "fronts": [...]}`, or NDJSON lines each with a leading
+ * `"record": "event"` or `"record": "front"` key (events first).
+ */
+export function eventsAndTracksToJson(events: readonly PassageEvent[], tracks: readonly FrontTrack[], ndjson = false): string {
+  if (ndjson) {
+    return [
+      ...events.map((e) => JSON.stringify({ record: 'event', ...eventToRecord(e) })),
+      ...tracks.map((t) => JSON.stringify({ record: 'front', ...trackToRecord(t) })),
+    ].map((l) => l + '\n').join('');
+  }
+  const ev = events.map((e) => '    ' + JSON.stringify(eventToRecord(e))).join(',\n');
+  const fr = tracks.map((t) => '    ' + JSON.stringify(trackToRecord(t))).join(',\n');
+  return `{\n  "events": [${ev ? '\n' + ev + '\n  ' : ''}],\n  "fronts": [${fr ? '\n' + fr + '\n  ' : ''}]\n}\n`;
 }
 
 export function tracksToJson(tracks: readonly FrontTrack[]): string {

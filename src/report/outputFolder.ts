@@ -3,10 +3,11 @@
  * (counts per station and kind, the network table, the caution). `outputFolderFiles` is pure; `writeOutputFolder`
  * is the file-system edge.
  */
-import { mkdirSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import type { FrontTrack, PassageEvent } from '../model/index.js';
+import type { FrontTrack, PassageEvent, StationMeta } from '../model/index.js';
+import { toGeoJson } from './geojson.js';
 import { CAUTION } from './caution.js';
+import { writeFilesSafely, type SafeWriteOptions } from './safeWrite.js';
 import { eventsToCsv, eventsToJson, summaryLines } from './format.js';
 import { tracksToCsv, tracksToJson, tracksToTable } from './fronts.js';
 
@@ -16,8 +17,11 @@ export interface OutputFile {
   text: string;
 }
 
-/** The summary text and the files: events.csv, events.json, fronts.csv, fronts.json, summary.txt (in this order). */
-export function outputFolderFiles(events: readonly PassageEvent[], tracks: readonly FrontTrack[], stations: readonly string[]): { summary: string; files: OutputFile[] } {
+/**
+ * The summary text and the files: events.csv, events.json, fronts.csv, fronts.json, summary.txt (in this order), and
+ * run.geojson (RFC 7946, geojson.ts) when station positions are given.
+ */
+export function outputFolderFiles(events: readonly PassageEvent[], tracks: readonly FrontTrack[], stations: readonly string[], metas: readonly StationMeta[] = []): { summary: string; files: OutputFile[] } {
   const network = tracksToTable(tracks);
   const summary = [...summaryLines(events, stations), ...(network ? ['', network.trimEnd()] : []), CAUTION].join('\n') + '\n';
   return {
@@ -28,17 +32,22 @@ export function outputFolderFiles(events: readonly PassageEvent[], tracks: reado
       { name: 'fronts.csv', text: tracksToCsv(tracks) },
       { name: 'fronts.json', text: tracksToJson(tracks) },
       { name: 'summary.txt', text: summary },
+      ...(metas.length ? [{ name: 'run.geojson', text: toGeoJson({ events, tracks, stations: metas }) }] : []),
     ],
   };
 }
 
-/** Create `dir` (and its parents) and write the files; returns the paths written. A failure throws an Error naming the folder. */
-export function writeOutputFolder(dir: string, files: readonly OutputFile[]): string[] {
+/**
+ * Create `dir` (and its parents) and write the files atomically as one set (safeWrite.ts): an existing file is
+ * replaced only with `force`, an input file never. Returns the paths written. A failure throws an Error naming the
+ * folder and leaves none of the new files behind; a refused path throws UsageError.
+ */
+export function writeOutputFolder(dir: string, files: readonly OutputFile[], opts: SafeWriteOptions = {}): string[] {
+  const planned = files.map((f) => ({ path: join(dir, f.name), text: f.text }));
   try {
-    mkdirSync(dir, { recursive: true });
-    for (const f of files) writeFileSync(join(dir, f.name), f.text);
+    return writeFilesSafely(planned, { ...opts, mkdirs: true });
   } catch (e) {
-    throw new Error(`${dir}: cannot write the output folder (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
+    if (e instanceof RangeError) throw e;
+    throw new Error(`${dir}: cannot write the output folder (${(e as Error).message})`, { cause: e });
   }
-  return files.map((f) => join(dir, f.name));
 }

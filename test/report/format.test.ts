@@ -58,6 +58,9 @@ test('EVENT_COLUMNS equals the output contract, in order', () => {
       'theta_e_change_k', 'pressure_min_hpa', 'pressure_min_time', 'pressure_rise_3h_hpa', 'wind_before_deg',
       'wind_after_deg', 'wind_turn_deg', 'wind_speed_after_ms', 'gust_max_ms', 'precip_near', 'zone_start', 'zone_end',
       'zone_hours', 'zone_depth_km', 'gradient_k_per_100km', 'observer_fropa_time', 'evidence',
+      // operators' fields, appended (issue 13); documented with units in the README
+      'temp_before_c', 'temp_after_c', 'dewpoint_before_c', 'dewpoint_after_c', 'temp_min_6h_c', 'temp_min_12h_c',
+      'freeze_time', 'precip_before_6h', 'precip_types', 'precip_heavy', 'wind_speed_before_ms', 'pressure_source',
     ],
   );
 });
@@ -125,7 +128,8 @@ test('eventsToCsv: header is the contract, no comment line, NaN → empty cell, 
   assert.equal(parsed.errors, []);
   assert.equal(parsed.meta.fields, [...EVENT_COLUMNS]);
   assert.is(parsed.data.length, 2);
-  assert.is(parsed.data[0]!.evidence, '+ wind veered 87°; − no pressure "kink", weak');
+  // OWASP "CSV Injection": no cell begins with + or -; the marks are written as words
+  assert.is(parsed.data[0]!.evidence, 'held: wind veered 87°; failed: no pressure "kink", weak');
   assert.is(parsed.data[0]!.temp_change_c, '-6');
   assert.is(parsed.data[0]!.precip_near, 'true');
   assert.is(parsed.data[0]!.observer_fropa_time, '');

@@ -9,6 +9,8 @@ import { chartLine, windowRange } from './chartLine.js';
 import { escapeXml } from './escape.js';
 import { px } from './linePath.js';
 import { kindClass } from './palette.js';
+import { pressureSource } from '../operatorFields.js';
+import type { PressureSource } from '../../model/index.js';
 import { linearScale, niceTicks, paddedDomain } from './scale.js';
 import { timeAxisSvg, utcMinute } from './timeAxis.js';
 
@@ -32,23 +34,57 @@ interface RowSpec {
   lines: RowLine[];
   /** Fixed domain (wind direction), else padded from the data. */
   domain?: [number, number];
+  /** Wind direction: values below this are drawn 360° higher (see windDirectionCut). */
+  unwrapFrom?: number;
   minSpan: number;
   ticks?: [number, string][];
 }
 
-/** Which pressure to draw: sea-level pressure, else altimeter setting, else station pressure (first with data in the window). */
+/** The series field of each pressure source (station pressure also when derived from the altimeter setting). */
+const SOURCE_FIELD: Record<Exclude<PressureSource, 'none'>, SeriesField> = {
+  station: 'stationPressureHpa',
+  'station-from-altimeter': 'stationPressureHpa',
+  altimeter: 'altimeterHpa',
+  'sea-level': 'seaLevelPressureHpa',
+};
+
+/**
+ * Which pressure to draw: the one detection measured the events on (operatorFields.ts pressureSource: station
+ * pressure, which every report with an altimeter setting has once derived, else the altimeter setting, else
+ * sea-level pressure, which SPECI reports lack), so the chart shows the pressure the tables give; when that
+ * field has nothing in the window, the first of station, altimeter, sea-level that has. Null when none has.
+ */
 export function pressureField(s: StationSeries, from: number, to: number): SeriesField | null {
-  for (const f of ['seaLevelPressureHpa', 'altimeterHpa', 'stationPressureHpa'] as const) {
+  const src = pressureSource(s);
+  const first = src === 'none' ? [] : [SOURCE_FIELD[src]];
+  for (const f of [...first, 'stationPressureHpa', 'altimeterHpa', 'seaLevelPressureHpa'] as const) {
     for (let i = from; i < to; i++) if (Number.isFinite(s[f][i]!)) return f;
   }
   return null;
 }
 
-const PRESSURE_NAMES: Record<string, string> = {
-  seaLevelPressureHpa: 'sea-level pressure',
-  altimeterHpa: 'altimeter setting',
-  stationPressureHpa: 'station pressure',
-};
+/** How the chart names the pressure it draws. */
+export function pressureName(s: StationSeries, f: SeriesField): string {
+  if (f === 'stationPressureHpa') return pressureSource(s) === 'station-from-altimeter' ? 'station pressure, from the altimeter setting' : 'station pressure';
+  return f === 'altimeterHpa' ? 'altimeter setting' : 'sea-level pressure';
+}
+
+/**
+ * Where to cut the compass circle for the wind-direction row: at 0° (N at the top and bottom edges) unless more
+ * directions in the window lie within 45° of north than within 45° of south, then at 180° (N in the middle), so
+ * northerly winds do not jump between the top and bottom edges.
+ */
+export function windDirectionCut(dirDeg: ArrayLike<number>, from: number, to: number): 0 | 180 {
+  let north = 0;
+  let south = 0;
+  for (let i = from; i < to; i++) {
+    const d = dirDeg[i]!;
+    if (!Number.isFinite(d)) continue;
+    if (d <= 45 || d >= 315) north++;
+    else if (d >= 135 && d <= 225) south++;
+  }
+  return north > south ? 180 : 0;
+}
 
 function rowSpecs(s: StationSeries, from: number, to: number): RowSpec[] {
   const pf = pressureField(s, from, to);
@@ -62,14 +98,16 @@ function rowSpecs(s: StationSeries, from: number, to: number): RowSpec[] {
       minSpan: 6,
     },
   ];
-  if (pf) rows.push({ title: `Pressure (${PRESSURE_NAMES[pf]}), hPa`, lines: [{ field: pf, cls: 'pres', name: PRESSURE_NAMES[pf]! }], minSpan: 4 });
+  if (pf) rows.push({ title: `Pressure (${pressureName(s, pf)}), hPa`, lines: [{ field: pf, cls: 'pres', name: pressureName(s, pf) }], minSpan: 4 });
+  const cut = windDirectionCut(s.windDirDeg, from, to);
   rows.push(
     {
       title: 'Wind direction (dots), degrees true, direction the wind blows from',
       lines: [{ field: 'windDirDeg', cls: 'wdir', name: 'wind direction', dots: true }],
-      domain: [0, 360],
+      domain: cut === 0 ? [0, 360] : [180, 540],
       minSpan: 360,
-      ticks: [[0, 'N 0'], [90, 'E 90'], [180, 'S 180'], [270, 'W 270'], [360, 'N 360']],
+      ticks: cut === 0 ? [[0, 'N 0'], [90, 'E 90'], [180, 'S 180'], [270, 'W 270'], [360, 'N 360']] : [[180, 'S 180'], [270, 'W 270'], [360, 'N 0'], [450, 'E 90'], [540, 'S 180']],
+      unwrapFrom: cut,
     },
     {
       title: 'Wind speed (solid) and gust (dotted), m/s',
@@ -164,7 +202,12 @@ export function panelSvg(p: PanelInput): string {
     let flagged = '';
     body += `<g clip-path="url(#${clipId})">`;
     for (const l of r.lines) {
-      const line = chartLine({ timeMs: s.timeMs, values: s[l.field], qc: s.qc[l.field], from, to, x, y, gapMs: p.gapMs, dots: l.dots }, [top, bottom]);
+      let values: Float64Array = s[l.field];
+      if (r.unwrapFrom) {
+        const cut = r.unwrapFrom;
+        values = Float64Array.from(values, (v) => (v < cut ? v + 360 : v));
+      }
+      const line = chartLine({ timeMs: s.timeMs, values, qc: s.qc[l.field], from, to, x, y, gapMs: p.gapMs, dots: l.dots }, [top, bottom]);
       if (line.path) body += `<path class="${l.cls}" d="${line.path}"/>`;
       flagged += line.flagged;
       flaggedTotal += line.flaggedCount;

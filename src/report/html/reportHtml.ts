@@ -8,10 +8,12 @@ import { BOUNDARY_KINDS, type BoundaryKind, type FrontTrack, type PassageEvent, 
 import { medianCadenceMinutes } from '../../series/series.js';
 import { escapeXml } from './escape.js';
 import { frontMapSvg } from './frontMapSvg.js';
+import type { Geography } from './geography.js';
 import { overviewSvg } from './overviewSvg.js';
 import { KIND_STROKES, SERIES_STROKES, kindClass } from './palette.js';
 import { panelSvg } from './panelSvg.js';
 import { utcMinute } from './timeAxis.js';
+import { DateTime } from 'luxon';
 import { legendSvg } from './legendSvg.js';
 
 const HOUR = 3_600_000;
@@ -45,6 +47,10 @@ export interface ReportInput {
   maxPanels?: number;
   /** Periods up to this long get one panel per station instead of one per passage, hours (default 96). */
   singlePanelHours?: number;
+  /** IANA zone: passage times are shown in it beside UTC (tables and captions); UTC only when absent. */
+  localZone?: string;
+  /** Land, coastlines and borders for the front maps (geography.ts loadGeography); plain maps when absent. */
+  geography?: Geography;
 }
 
 export interface PanelWindow {
@@ -106,14 +112,14 @@ export function reportCss(): string {
   }).join('\n');
   const S = SERIES_STROKES;
   return `
-body{font:14px/1.45 system-ui,-apple-system,"Segoe UI",Roboto,Helvetica,Arial,sans-serif;color:#1a1a1a;background:#fff;margin:0 auto;max-width:1000px;padding:0 16px 32px}
+body{font:14px/1.45 system-ui,-apple-system,"Segoe UI",Roboto,Helvetica,Arial,sans-serif;color:#1a1a1a;background:#fff;margin:0 auto;max-width:none;padding:0 16px 32px}
 h1{font-size:1.6em;margin:0.6em 0 0.2em}h2{font-size:1.3em;margin:1.6em 0 0.4em;border-bottom:2px solid #ccc;padding-bottom:2px}h3{font-size:1.05em;margin:1.2em 0 0.3em}
 .caution{border:2px solid #8a5a00;background:#fff6e0;padding:8px 12px;font-weight:600}
 table{border-collapse:collapse;margin:0.4em 0 1em;font-size:0.92em}th,td{border:1px solid #bbb;padding:3px 6px;text-align:left;vertical-align:top}th{background:#f0f0f0}td.n{text-align:right;font-variant-numeric:tabular-nums}
 td.ev{font-size:0.88em;line-height:1.3}td.ev .fails{color:#555;font-style:italic}td.t{white-space:nowrap}
 .muted{color:#555}.sr{position:absolute;left:-10000px;width:1px;height:1px;overflow:hidden}nav ul{columns:4;list-style:none;padding:0}figure{margin:0.6em 0 1.2em}figcaption{font-size:0.9em;color:#333}
-svg{max-width:100%;height:auto;font-size:11px;font-family:inherit}svg text{fill:#222}
-.grid{stroke:#e3e3e3;stroke-width:1;fill:none}.grid.day{stroke:#bdbdbd}.frame{fill:none;stroke:#999;stroke-width:1}
+svg{max-width:100%;height:auto;font-size:11px;font-family:inherit}svg.panel{width:100%}svg text{fill:#222}
+.grid{stroke:#e3e3e3;stroke-width:1;fill:none}.land{fill:#f1efe6;stroke:#8c8c8c;stroke-width:0.8}.graticule{fill:none;stroke:#d6dde6;stroke-width:0.6}.border{fill:none;stroke:#9a9a9a;stroke-width:0.7}.border.state{stroke-dasharray:3 2}.scalebar{fill:none;stroke:#333;stroke-width:1.2}.grid.day{stroke:#bdbdbd}.frame{fill:none;stroke:#999;stroke-width:1}
 .row-title{font-weight:600;fill:#333}.y-labels text,.tick-labels text{fill:#444}
 .temp{fill:none;stroke:${S.temperature.colour};stroke-width:1.8;stroke-linejoin:round;stroke-linecap:round}
 .dew{fill:none;stroke:${S.dewpoint.colour};stroke-width:1.6;stroke-dasharray:${S.dewpoint.dash};stroke-linecap:round}
@@ -154,29 +160,37 @@ function evidenceList(ev: readonly string[]): string {
     .join('; ');
 }
 
-function passageTable(events: readonly PassageEvent[], panelOf: (e: PassageEvent) => string | undefined): string {
+/** ` (HH:MM ZONE-ABBREVIATION local)` for a time in a zone; '' without a zone or for NaN. */
+function localBeside(ms: number, zone: string | undefined): string {
+  if (!zone || !Number.isFinite(ms)) return '';
+  const d = DateTime.fromMillis(ms, { zone });
+  return ` (${d.toFormat('yyyy-MM-dd HH:mm')} ${d.offsetNameShort ?? zone} local)`;
+}
+
+function passageTable(events: readonly PassageEvent[], panelOf: (e: PassageEvent) => string | undefined, zone?: string): string {
   if (!events.length) return '<p>No passages found at this station in the period.</p>';
   const rows = events
     .map((e) => {
       const href = panelOf(e);
-      const time = escapeXml(utcMinute(e.timeMs));
+      const time = escapeXml(utcMinute(e.timeMs)) + (zone ? `<br><span class="muted">${escapeXml(localBeside(e.timeMs, zone).trim())}</span>` : '');
       const wind = Number.isFinite(e.windBeforeDeg) || Number.isFinite(e.windAfterDeg) ? `${fmt(e.windBeforeDeg, 0)}→${fmt(e.windAfterDeg, 0)} (${fmt(e.windTurnDeg, 0, true)})` : '–';
       return (
         `<tr class="kind-${e.kind}"><td class="t">${href ? `<a href="#${escapeXml(href)}">${time}</a>` : time}</td><td class="t">${escapeXml(e.kind)}</td>` +
         `<td class="n">±${fmt((e.timeLatestMs - e.timeEarliestMs) / 2 / 60000, 0)}</td><td class="n">${fmt(e.confidence, 2)}</td>` +
         `<td class="n">${fmt(e.tempChangeC, 1, true)}</td><td class="n">${fmt(e.dewpointChangeC, 1, true)}</td><td>${wind}</td>` +
+        `<td class="n">${fmt(e.pressureMinHpa, 1)}${e.operator && e.operator.pressureSource !== 'none' ? ` <span class="src">(${escapeXml(e.operator.pressureSource)})</span>` : ''}</td>` +
         `<td class="n">${fmt(e.zoneHours, 1)}</td><td class="ev">${evidenceList(e.evidence)}</td></tr>`
       );
     })
     .join('');
   return (
     '<table><thead><tr><th scope="col">time (UTC)</th><th scope="col">kind</th><th scope="col">± min</th><th scope="col">confidence</th>' +
-    '<th scope="col">ΔT °C</th><th scope="col">ΔTd °C</th><th scope="col">wind ° before→after (turn, + veering)</th><th scope="col">zone h</th><th scope="col">evidence (+ held, − failed)</th></tr></thead>' +
+    '<th scope="col">ΔT °C</th><th scope="col">ΔTd °C</th><th scope="col">wind ° before→after (turn, + veering)</th><th scope="col">p min hPa (pressure drawn)</th><th scope="col">zone h</th><th scope="col">evidence (+ held, − failed)</th></tr></thead>' +
     `<tbody>${rows}</tbody></table>`
   );
 }
 
-function frontsSection(tracks: readonly FrontTrack[], stations: readonly StationMeta[]): string {
+function frontsSection(tracks: readonly FrontTrack[], stations: readonly StationMeta[], geography?: Geography): string {
   if (!tracks.length) return '';
   const byId = new Map(stations.map((s) => [s.id, s]));
   const rows = tracks
@@ -193,7 +207,7 @@ function frontsSection(tracks: readonly FrontTrack[], stations: readonly Station
       const ids = [...t.members.map((m) => m.station), ...t.expected.map((e) => e.station)];
       const metas = [...new Set(ids)].map((id) => byId.get(id)).filter((m): m is StationMeta => m !== undefined).sort((a, b) => (a.id < b.id ? -1 : 1));
       if (metas.length < 2) return '';
-      return `<figure id="front-${i}">${frontMapSvg({ track: t, stations: metas, id: `map-${i}` })}<figcaption>${escapeXml(t.id)}</figcaption></figure>`;
+      return `<figure id="front-${i}">${frontMapSvg({ track: t, stations: metas, id: `map-${i}`, geography })}<figcaption>${escapeXml(t.id)}</figcaption></figure>`;
     })
     .join('');
   return (
@@ -201,7 +215,9 @@ function frontsSection(tracks: readonly FrontTrack[], stations: readonly Station
     '<p>Passages at three or more stations fitted as one straight front moving steadily. Speed is normal to the front; “toward” is the direction it moves; “fit ± min” is the root-mean-square distance of the observed passage times from the fitted ones; trend: along-track strengthening (frontogenesis) or weakening (frontolysis) of the temperature change; F: Petterssen kinematic frontogenesis at the passages (median), positive when the wind field tightens the temperature gradient.</p>' +
     '<table><thead><tr><th scope="col">front</th><th scope="col">stations</th><th scope="col">first (UTC)</th><th scope="col">last (UTC)</th><th scope="col">speed km/h</th><th scope="col">toward</th><th scope="col">fit ± min</th><th scope="col">trend</th><th scope="col">ΔT °C per 100 km</th><th scope="col">F K per 100 km per 3 h</th></tr></thead>' +
     `<tbody>${rows}</tbody></table>` +
-    '<p>Maps (north up, equirectangular about the network centre): lines are the fitted front position every 3 h, labelled with the hour (UTC); at each station the observed passage time in bold, or the fitted time in brackets where no passage of this front was detected; the arrow shows the motion.</p>' +
+    '<p>Maps (north up, equirectangular about the network centre): lines are the fitted front position every 3 h, labelled with the hour (UTC); at each station the observed passage time in bold, or the fitted time in brackets where no passage of this front was detected; the arrow shows the motion; the bar gives the scale.' +
+    (geography ? ` Grey: land and coastlines, country borders (solid) and US state borders (dashed), with a graticule. ${escapeXml(geography.credit)}` : '') +
+    '</p>' +
     `<div class="maps">${maps}</div></section>`
   );
 }
@@ -249,12 +265,12 @@ export function reportHtml(r: ReportInput): string {
     let h = `<section id="st-${si}" class="station"><h2>${escapeXml(s.station + name)}</h2>`;
     h += `<p>${plural(s.length, 'report')} in all; median spacing ${fmt(cadence, 0)} min; ${plural(mine.length, 'passage')} in the period.</p>`;
     if (!single) h += `<figure>${overviewSvg({ series: s, events: mine, t0: from, t1: to, id: `st-${si}-ov`, gapMs, windows: windows.map((w, wi) => ({ t0: w.t0, t1: w.t1, href: panelIds[wi]! })) })}</figure>`;
-    h += `<h3>Passages at ${escapeXml(s.station)}</h3>` + passageTable(mine, panelOf);
+    h += `<h3>Passages at ${escapeXml(s.station)}</h3>` + passageTable(mine, panelOf, r.localZone);
     if (windows.length) {
       h += `<h3>Charts${single ? '' : ` around each passage (±${hours} h)`}</h3>`;
       if (dropped) h += `<p class="muted">Only the first ${maxPanels} charts are drawn; ${plural(dropped, 'later passage')} ${dropped === 1 ? 'has' : 'have'} no chart here (restrict the period with --from/--to to see ${dropped === 1 ? 'it' : 'them'}).</p>`;
       windows.forEach((w, wi) => {
-        const cap = w.events.length ? w.events.map((e) => `${e.kind} ${utcMinute(e.timeMs)} UTC`).join('; ') : 'no passage';
+        const cap = w.events.length ? w.events.map((e) => `${e.kind} ${utcMinute(e.timeMs)} UTC${localBeside(e.timeMs, r.localZone)}`).join('; ') : 'no passage';
         h += `<figure id="${panelIds[wi]}">${panelSvg({ series: s, events: mine, t0: w.t0, t1: w.t1, id: `${panelIds[wi]}s`, gapMs })}<figcaption>${escapeXml(`${s.station}, ${utcMinute(w.t0)} to ${utcMinute(w.t1)} UTC: ${cap}`)}</figcaption></figure>`;
       });
     } else if (!single) h += '<p class="muted">No passage, so no detailed chart; the overview above shows the whole period.</p>';
@@ -279,7 +295,7 @@ export function reportHtml(r: ReportInput): string {
     `<table><thead><tr><th scope="col">station</th><th scope="col">name</th><th scope="col">lat °</th><th scope="col">lon °</th><th scope="col">elevation m</th><th scope="col">reports</th><th scope="col">passages</th></tr></thead><tbody>${stationRows}</tbody></table>` +
     `<h3>How to read the charts</h3><figure>${legendSvg()}</figure></section>\n` +
     nav +
-    frontsSection(tracks, r.stations) +
+    frontsSection(tracks, r.stations, r.geography) +
     '\n' +
     stationsHtml +
     `\n</main>\n<footer>\n${caution}\n</footer>\n</body>\n</html>\n`

@@ -1,42 +1,33 @@
-/** Linear scales and "nice" tick values for the report's charts (written here; no d3 package). */
+/** Linear scales and "nice" tick values for the report's charts, on d3-scale and d3-array. */
+import { scaleLinear } from 'd3-scale';
+import { tickStep, ticks } from 'd3-array';
 
 /**
  * A linear map from [d0, d1] to [r0, r1]; a zero-width domain maps everything to the middle of the range.
  * @example linearScale(0, 10, 100, 200)(2.5) // 125
  */
 export function linearScale(d0: number, d1: number, r0: number, r1: number): (v: number) => number {
-  if (!(d1 !== d0)) return () => (r0 + r1) / 2;
-  const k = (r1 - r0) / (d1 - d0);
-  return (v) => r0 + (v - d0) * k;
+  // d3-scale maps a zero-width domain to the middle of the range, as this function always has.
+  const sc = scaleLinear().domain([d0, d1]).range([r0, r1]);
+  return (v) => sc(v);
 }
 
 /**
- * Tick step of 1, 2 or 5 × 10^k giving about `count` intervals over [lo, hi] (the usual "nice numbers"
- * choice; common practice, no source).
+ * Tick step of 1, 2 or 5 × 10^k giving about `count` intervals over [lo, hi] (d3-array `tickStep`).
  * @example niceStep(0, 10, 5) // 2
  */
 export function niceStep(lo: number, hi: number, count: number): number {
-  const span = hi - lo;
-  if (!(span > 0) || !(count > 0)) return 1;
-  const raw = span / count;
-  const mag = Math.pow(10, Math.floor(Math.log10(raw)));
-  const f = raw / mag;
-  return (f <= 1 ? 1 : f <= 2 ? 2 : f <= 5 ? 5 : 10) * mag;
+  if (!(hi - lo > 0) || !(count > 0)) return 1;
+  return Math.abs(tickStep(lo, hi, count));
 }
 
 /**
- * Tick values: multiples of {@link niceStep} inside [lo, hi], rounded to the step's decimals.
+ * Tick values inside [lo, hi]: multiples of 1, 2 or 5 × 10^k, about `count` of them (d3-array `ticks`), never −0.
  * @example niceTicks(-1.3, 8.2, 5) // [0, 2, 4, 6, 8]
  */
 export function niceTicks(lo: number, hi: number, count: number): number[] {
-  const step = niceStep(lo, hi, count);
-  const decimals = Math.max(0, -Math.floor(Math.log10(step)));
-  const out: number[] = [];
-  for (let v = Math.ceil(lo / step - 1e-9) * step; v <= hi + step * 1e-9; v += step) {
-    const r = Number(v.toFixed(decimals));
-    out.push(r === 0 ? 0 : r);
-  }
-  return out;
+  if (!(hi >= lo) || !(count > 0)) return [];
+  return ticks(lo, hi, count).map((v) => (v === 0 ? 0 : v));
 }
 
 /**

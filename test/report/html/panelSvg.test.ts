@@ -4,7 +4,7 @@
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { PANEL_WIDTH, panelSvg, panelX, pressureField } from '../../../src/report/html/panelSvg.js';
+import { PANEL_WIDTH, panelSvg, panelX, pressureField, windDirectionCut } from '../../../src/report/html/panelSvg.js';
 import { H, T0, passage, smallSeries } from './fixture.js';
 import { assertHasFragment } from './svgAssert.js';
 
@@ -46,7 +46,33 @@ test('panelSvg: rows for temperature/dew point, pressure, wind direction, wind s
   assert.match(svg, 'role="img" aria-labelledby="p1-t p1-d"');
   assert.match(svg, '<title id="p1-t">XTST: observations from 2026-03-02 06:00 to 2026-03-03 06:00 UTC</title>');
   assert.match(svg, 'cold-front at 2026-03-02 12:00 UTC');
+  // the fixture has sea-level pressure only
   assert.is(pressureField(s, 0, s.length), 'seaLevelPressureHpa');
+});
+
+test('pressureField: station pressure when the series has it (every report with an altimeter setting does once derived), not the sea-level pressure SPECI lacks', () => {
+  const s = smallSeries();
+  // constructed: station pressure at every report, sea-level pressure at every other one (as METAR vs SPECI)
+  for (let i = 0; i < s.length; i++) {
+    s.stationPressureHpa[i] = 950 + i * 0.01;
+    if (i % 2) s.seaLevelPressureHpa[i] = NaN;
+  }
+  assert.is(pressureField(s, 0, s.length), 'stationPressureHpa');
+  const svg = panelSvg({ series: s, events: [], t0, t1, id: 'pp', gapMs: 25 * 60_000 });
+  assert.match(svg, 'Pressure (station pressure), hPa');
+  const pres = svg.match(/<path class="pres" d="([^"]+)"/)![1]!;
+  assert.is((pres.match(/M/g) ?? []).length, 1, 'one unbroken pressure line');
+});
+
+test('wind direction: northerly winds are drawn about the middle (cut at 180°), not split between the edges', () => {
+  const s = smallSeries();
+  for (let i = 0; i < s.length; i++) s.windDirDeg[i] = i % 2 ? 350 : 10;
+  assert.is(windDirectionCut(s.windDirDeg, 0, s.length), 180);
+  const svg = panelSvg({ series: s, events: [], t0, t1, id: 'pw', gapMs: 25 * 60_000 });
+  assert.match(svg, '>N 0</text>');
+  assert.match(svg, '>S 180</text>');
+  for (let i = 0; i < s.length; i++) s.windDirDeg[i] = 200;
+  assert.is(windDirectionCut(s.windDirDeg, 0, s.length), 0);
 });
 
 test('panelSvg: a missing value breaks the temperature line; a flagged one becomes a cross', () => {

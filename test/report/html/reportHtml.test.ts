@@ -83,4 +83,12 @@ test('passageWindows: passages within 6 h share a window; ±hours; capped with a
   assert.is(clipped.t0, T0 - H, 'clipped to the period');
 });
 
+test('reportHtml: with a local zone, passage times show local time beside UTC (IANA tz database: Chicago is UTC−6, CST, on 2026-03-02)', () => {
+  const e = passage();
+  const html = reportHtml(input({ events: [e], localZone: 'America/Chicago' }));
+  // passage() is at 2026-03-02 12:00 UTC → 06:00 CST
+  assert.match(html, '2026-03-02 06:00 CST local');
+  assert.not.match(reportHtml(input({ events: [e] })), ' local)');
+});
+
 test.run();

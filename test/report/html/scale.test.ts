@@ -1,4 +1,7 @@
-/** Scales and ticks. Nice steps of 1, 2, 5 × 10^k: common practice, no source (the usual chart-axis rule). */
+/**
+ * Scales and ticks. Nice steps of 1, 2, 5 × 10^k: the rule d3-array documents for `ticks` ("uniformly-spaced, nicely-rounded
+ * values ... each value is a power of ten multiplied by 1, 2 or 5", d3-array README), which the report now uses.
+ */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { linearScale, niceStep, niceTicks, paddedDomain } from '../../../src/report/html/scale.js';
@@ -17,10 +20,12 @@ test('linearScale maps the domain ends to the range ends (inverted range for y)'
 
 test('niceStep/niceTicks pick 1-2-5 steps inside the domain', () => {
   assert.is(niceStep(0, 10, 5), 2);
-  assert.is(niceStep(0, 1, 4), 0.5);
+  // d3-array tickStep(0, 1, 4): 0.2 (its error thresholds √50, √10, √2 pick 2 × 10^-1 for a raw step of 0.25)
+  assert.is(niceStep(0, 1, 4), 0.2);
   assert.equal(niceTicks(-1.3, 8.2, 5), [0, 2, 4, 6, 8]);
-  assert.equal(niceTicks(1003.2, 1011.9, 4), [1005, 1010]);
+  assert.equal(niceTicks(1003.2, 1011.9, 4), [1004, 1006, 1008, 1010]);
   assert.equal(niceTicks(1003.2, 1011.9, 5), [1004, 1006, 1008, 1010]);
+  for (const v of niceTicks(-3, 3, 6)) assert.ok(!Object.is(v, -0), 'no -0 tick');
   assert.equal(niceTicks(0.11, 0.49, 4), [0.2, 0.3, 0.4]);
 });
 

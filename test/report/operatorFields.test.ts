@@ -1,0 +1,140 @@
+/**
+ * Operators' event fields: levels before/after, minima and first freeze after, precipitation type near the passage,
+ * wind before, which pressure, runway components. Real cases from ../shared/realdata (station and time named at each
+ * check; expected values read from the reports themselves), constructed cases for the edges.
+ */
+import { test } from 'uvu';
+import * as assert from 'uvu/assert';
+import { loadPaths } from '../../src/pipeline.js';
+import { operatorFields, parseRunways, precipTypesOf, pressureSource, windOnRunway } from '../../src/report/operatorFields.js';
+import { eventToRecord, eventsToCsv, EVENT_COLUMNS, recordColumns } from '../../src/report/format.js';
+import { allocSeries, WX } from '../../src/model/index.js';
+import { KNOT_MS } from '../../src/physics/constants.js';
+import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
+import { sampleEvent } from './sampleEvent.js';
+
+const KORD = 'KORD_2024-02-27_28_metar.txt';
+const real = realdataTest(test, KORD, 'stations.csv', 'oct2010_asos_MSP.csv');
+const near = (a: number, b: number, tol: number, what: string) => assert.ok(Math.abs(a - b) <= tol, `${what}: ${a} vs ${b}`);
+
+function kord() {
+  const r = loadPaths([REALDATA_DIR + KORD], { stationsFile: REALDATA_DIR + 'stations.csv' });
+  return r.series.find((s) => s.station === 'KORD')!;
+}
+
+real('KORD 2024-02-28, synoptic cold front about 04:30-05:30Z: levels, minima and first freeze read from the reports', () => {
+  const s = kord();
+  const t = Date.UTC(2024, 1, 28, 5, 0);
+  const f = operatorFields(s, sampleEvent({ station: 'KORD', timeMs: t }));
+  // KORD 280451Z `12/10 ... T01220100`: 12.2 °C, dew point 10.0 °C, the only report in the hour before 05:00Z
+  near(f.tempBeforeC, 12.2, 0.51, 'temperature before');
+  near(f.dewpointBeforeC, 10.0, 0.51, 'dew point before');
+  // KORD 280651Z 10 °C (T0100) and 280751Z 7 °C (T0072): median of the 1-3 h after ≈ 8.6 °C
+  near(f.tempAfterC, 8.6, 0.51, 'temperature after');
+  // KORD 281051Z `00/M04 ... T00001039`: first report at or below 0 °C after the passage
+  assert.is(new Date(f.freezeTimeMs).toISOString(), '2024-02-28T10:51:00.000Z');
+  // KORD 281551Z `M07/M13 ... T10671128`: lowest in the 12 h after (-6.7 °C, or -7 from the body group)
+  near(f.tempMin12hC, -6.7, 0.31, 'minimum 12 h');
+  // KORD 281051Z 0.0 °C is the lowest through 11:00Z
+  near(f.tempMin6hC, 0, 0.51, 'minimum 6 h');
+  // KORD 280223Z `-TSRA` in the 6 h before 05:00Z
+  assert.is(f.precipBefore6h, true);
+  // KORD 280451Z `25009KT`: 9 kt in the hour before
+  near(f.windSpeedBeforeMs, 9 * KNOT_MS, 0.05, 'wind before');
+});
+
+real('KORD 2024-02-28 08:51Z `-PLRA` and 09:00Z `-RA`: rain and ice pellets near the passage, not heavy', () => {
+  const f = operatorFields(kord(), sampleEvent({ station: 'KORD', timeMs: Date.UTC(2024, 1, 28, 8, 51) }));
+  // WMO-No. 306 code table 4678: PL ice pellets, RA rain; `-` light
+  assert.equal(f.precipTypes, ['rain', 'ice-pellets']);
+  assert.is(f.precipHeavy, false);
+});
+
+real('KORD 2024-02-28 02:23Z `-TSRA` with hail in the remarks window: thunder reported near the squall line', () => {
+  const f = operatorFields(kord(), sampleEvent({ station: 'KORD', timeMs: Date.UTC(2024, 1, 28, 2, 10) }));
+  assert.ok(f.precipTypes.includes('thunder'), f.precipTypes.join(','));
+  assert.ok(f.precipTypes.includes('rain'), f.precipTypes.join(','));
+});
+
+real('which pressure: KORD (altimeter setting A2922 with elevation 204.8 m) vs MSP October 2010 (sea-level pressure only)', () => {
+  // KORD reports carry the altimeter setting; station pressure is derived from it (NWS inversion)
+  assert.is(pressureSource(kord()), 'station-from-altimeter');
+  const msp = loadPaths([REALDATA_DIR + 'oct2010_asos_MSP.csv']).series[0]!;
+  // oct2010 files: columns `station,valid,tmpc,dwpc,drct,sknt,mslp,p01m` (README of the shared data)
+  assert.is(pressureSource(msp), 'sea-level');
+});
+
+test('windOnRunway: FAA-H-8083-25B crosswind chart example (from memory): 40 kt 30° off the runway → 20 kt cross, ≈35 kt head', () => {
+  const c = windOnRunway(70, 40, 40);
+  near(c.crosswindMs, 20, 1e-9, 'crosswind');
+  near(c.tailwindMs, -40 * Math.cos(Math.PI / 6), 1e-9, 'tailwind');
+  // constructed: straight tailwind, left crosswind, calm
+  near(windOnRunway(220, 10, 40).tailwindMs, 10, 1e-9, 'tailwind');
+  near(windOnRunway(310, 10, 40).crosswindMs, -10, 1e-9, 'crosswind from the left');
+  assert.equal(windOnRunway(NaN, 0, 40), { crosswindMs: 0, tailwindMs: 0 });
+  assert.ok(Number.isNaN(windOnRunway(NaN, 5, 40).crosswindMs));
+});
+
+test('parseRunways: ICAO Annex 14 §5.2.2 designators are the heading ÷ 10; three digits are headings; bad parts refused', () => {
+  assert.equal(parseRunways('04/22,13/31').map((r) => [r.runway, r.headingDeg]), [['04', 40], ['22', 220], ['13', 130], ['31', 310]]);
+  assert.equal(parseRunways('09L/27R').map((r) => r.headingDeg), [90, 270]);
+  assert.equal(parseRunways('36/18').map((r) => r.headingDeg), [360, 180]);
+  assert.equal(parseRunways('043').map((r) => r.headingDeg), [43]);
+  assert.throws(() => parseRunways('40/22'), /designators run 01–36/);
+  assert.throws(() => parseRunways('4x'), /expected a designator/);
+});
+
+test('precipTypesOf: WMO-No. 306 code table 4678 (FZRA freezing rain, FZFG fog alone is no precipitation)', () => {
+  assert.equal(precipTypesOf(WX.RAIN | WX.FREEZING | WX.PRECIP), ['freezing-rain']);
+  assert.equal(precipTypesOf(WX.FREEZING | WX.FOG), []);
+  assert.equal(precipTypesOf(WX.SNOW | WX.THUNDER | WX.SHOWER | WX.PRECIP), ['snow', 'thunder']);
+  assert.equal(precipTypesOf(WX.DRIZZLE | WX.FREEZING), ['freezing-drizzle']);
+});
+
+test('constructed series: no freeze when it stays above 0 °C; levels NaN without reports; QC-flagged values ignored', () => {
+  const s = allocSeries('XTST', 4);
+  const t0 = Date.UTC(2026, 0, 1, 12);
+  [-2, -1, 1.5, 3].forEach((h, i) => (s.timeMs[i] = t0 + h * 3600000));
+  s.temperatureC.set([8, 7, 2, 1]);
+  s.qc.temperatureC[3] = 1; // flagged: the 1 °C is not used
+  const f = operatorFields(s, sampleEvent({ station: 'XTST', timeMs: t0 }));
+  assert.is(f.tempBeforeC, 7);
+  assert.is(f.tempAfterC, 2);
+  assert.is(f.tempMin12hC, 2);
+  assert.ok(Number.isNaN(f.freezeTimeMs));
+  assert.ok(Number.isNaN(f.dewpointBeforeC));
+  assert.is(f.pressureSource, 'none');
+});
+
+test('writers: new columns appended after the contract columns; --wind-unit and runway columns only in CSV; JSON keeps m/s', () => {
+  const e = sampleEvent({
+    windSpeedAfterMs: 10 * KNOT_MS,
+    operator: {
+      tempBeforeC: 5, tempAfterC: -1, dewpointBeforeC: 3, dewpointAfterC: -6, tempMin6hC: -2, tempMin12hC: -4.04,
+      freezeTimeMs: Date.UTC(2026, 2, 4, 15), precipBefore6h: true, precipTypes: ['rain', 'snow'], precipHeavy: false,
+      windSpeedBeforeMs: 5 * KNOT_MS, pressureSource: 'station-from-altimeter',
+      runways: [{ runway: '04', headingDeg: 40, crosswindBeforeMs: 1, tailwindBeforeMs: -2, crosswindAfterMs: 3 * KNOT_MS, tailwindAfterMs: -4 }],
+    },
+  });
+  const cols = recordColumns([e], { windUnit: 'kt' });
+  assert.equal(cols.slice(0, EVENT_COLUMNS.length), [...EVENT_COLUMNS]);
+  assert.equal(cols.slice(EVENT_COLUMNS.length), ['wind_speed_before_kt', 'wind_speed_after_kt', 'gust_max_kt', 'rwy_04_crosswind_before_kt', 'rwy_04_tailwind_before_kt', 'rwy_04_crosswind_after_kt', 'rwy_04_tailwind_after_kt']);
+  const r = eventToRecord(e, { windUnit: 'kt' });
+  // NIST SP 811 App. B.8: 1 kt = 1852/3600 m/s
+  assert.is(r.wind_speed_after_kt, 10);
+  assert.is(r.wind_speed_before_kt, 5);
+  assert.is(r.rwy_04_crosswind_after_kt, 3);
+  assert.is(r.temp_min_12h_c, -4);
+  assert.is(r.freeze_time, '2026-03-04T15:00:00Z');
+  assert.equal(r.precip_types, ['rain', 'snow']);
+  assert.is(r.pressure_source, 'station-from-altimeter');
+  const json = eventToRecord(e);
+  assert.is(json.wind_speed_before_ms, 2.6);
+  assert.is(json.rwy_04_crosswind_after_ms, 1.5);
+  assert.is(json.wind_speed_before_kt, undefined);
+  const csv = eventsToCsv([e], { windUnit: 'kt' }).split('\n');
+  assert.is(csv[0], cols.join(','));
+  assert.match(csv[1]!, /,rain; snow,false,2\.6,station-from-altimeter,5,10,/);
+});
+
+test.run();
