@@ -188,11 +188,12 @@ export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classifica
   // Behind a dryline the air is dry but not colder (Schaefer1986): a dew-point crash followed by a lasting
   // fall of temperature, or of the 24-h mean temperature, is a cold front's leading edge.
   const lastingCold = a.tempDayC < -2 || a.tempAdjLastingC < -2 || a.tempDailyMeanC < -1.5;
-  // And where the fitted model sees a cold front, the dew-point crash is that front's leading edge, unless
-  // it is a dryline's sharp crash (10 °C or more within 3 h, Schaefer1986 from memory; common practice for
-  // the size) with the temperature not falling.
-  const sharpDry = f !== undefined && f.dewpointDropMaxC <= -10 && f.tempChangeC >= 0 && pNone < 0.9;
-  if (h.kind === 'dryline' && !lastingCold && h.scores.dryline >= 0.4 && ((probOf('cold-front') < 0.5 && pNone < 0.7) || sharpDry)) {
+  // A dryline leaves dry air behind it (Schaefer1986: a sharp moisture boundary between moist air and
+  // dry continental air, from memory) with moist air ahead (a dew point of 10 °C or more) and the temperature
+  // level or rising; a dew-point fall that leaves
+  // the air still moist (above 5 °C; common practice, no source) is a front's drying, which the model judges.
+  const dryBehind = f !== undefined && f.dewpointBeforeC >= 10 && f.dewpointBeforeC + f.dewpointDropMaxC <= 5 && f.tempChangeC >= -1;
+  if (h.kind === 'dryline' && h.scores.dryline >= 0.4 && dryBehind && pNone < 0.9) {
     kind = 'dryline';
     confidence = calibrate(Math.min(h.scores.dryline, 1 - 0.5 * pNone), params.calibration?.dryline);
   } else if (h.kind === 'occluded-front' && h.scores['occluded-front'] >= 0.4 && !(Math.abs(a.tempDayC) >= 2) && !(Math.abs(a.tempDailyMeanC) >= 2)) {
