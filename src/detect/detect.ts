@@ -98,16 +98,27 @@ export interface ModelCandidate {
   handKind: string;
 }
 
+/** What every candidate of a station is measured against: the grid, the raw columns and their 15-min means. */
+function stationContext(series: StationSeries) {
+  const g = buildGrid(series, medianCadenceMinutes(series.timeMs));
+  if (!g) return null;
+  const hemisphere: 1 | -1 = (series.meta?.latDeg ?? 1) < 0 ? -1 : 1;
+  const perH = MS_PER_HOUR / g.stepMs;
+  return {
+    g,
+    hemisphere,
+    raw: rawColumns(series),
+    perH,
+    tSmooth: runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4))),
+    tRawSmooth: runningMean(g.tC, Math.max(1, Math.round(perH / 4))),
+  };
+}
+
 /** Every change-point candidate of a station with its model inputs (no model applied, nothing dropped). */
 export function modelCandidates(series: StationSeries): ModelCandidate[] {
-  const cadence = medianCadenceMinutes(series.timeMs);
-  const g = buildGrid(series, cadence);
-  if (!g) return [];
-  const hemisphere: 1 | -1 = (series.meta?.latDeg ?? 1) < 0 ? -1 : 1;
-  const raw = rawColumns(series);
-  const perH = MS_PER_HOUR / g.stepMs;
-  const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
-  const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
+  const ctx = stationContext(series);
+  if (!ctx) return [];
+  const { g, hemisphere, raw, tSmooth, tRawSmooth } = ctx;
   const meta = classificationMeta(series, g);
   return changePointCandidates(g).map((i) => {
     const f = measure(g, series, raw, i, tSmooth, tRawSmooth);
@@ -140,14 +151,9 @@ export function checkDetectOptions(opts: DetectOptions): void {
 export function detectStation(series: StationSeries, opts: DetectOptions = {}): PassageEvent[] {
   checkDetectOptions(opts);
   const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
-  const cadence = medianCadenceMinutes(series.timeMs);
-  const g = buildGrid(series, cadence);
-  if (!g) return [];
-  const hemisphere: 1 | -1 = (series.meta?.latDeg ?? 1) < 0 ? -1 : 1;
-  const raw = rawColumns(series);
-  const perH = MS_PER_HOUR / g.stepMs;
-  const tSmooth = runningMean(g.tAdjC, Math.max(1, Math.round(perH / 4)));
-  const tRawSmooth = runningMean(g.tC, Math.max(1, Math.round(perH / 4)));
+  const ctx = stationContext(series);
+  if (!ctx) return [];
+  const { g, hemisphere, raw, tSmooth, tRawSmooth } = ctx;
 
   // The model was fitted on stations that report wind; a record without any wind direction is judged by
   // the signatures alone (which have a temperature-and-moisture path for it).
