@@ -10,6 +10,7 @@ import { decideKind, fitSoftmax, FEATURE_NAMES, MODEL_CLASSES, predictProbabilit
 import { MODEL_PARAMS } from '../../src/detect/modelParams.js';
 import type { AirMassChange } from '../../src/detect/airmass.js';
 import type { Classification } from '../../src/detect/classify.js';
+import type { Features } from '../../src/detect/features.js';
 
 test('predictProbabilities(x, params) is the softmax of the linear scores', () => {
   const params: ModelParams = { classes: ['a', 'b'], features: ['x'], weights: [[0, 0], [1, 0]] };
@@ -53,9 +54,14 @@ test('decideKind: a dew-point crash followed by lasting cold is the cold front, 
   assert.is(d.kind, 'cold-front');
 });
 
-test('decideKind: a dryline whose moist air returns stays a dryline', () => {
-  const d = decideKind([0], air({ tempDayC: 1, dewpointDayC: -1 }), hand('dryline', { dryline: 0.9 }), coldish);
+test('decideKind: a sharp dew-point crash from moist air to dry air, temperature holding, stays a dryline', () => {
+  // Schaefer1986 (from memory): moist air ahead, dry air behind, no cooling; constructed features
+  const f = { dewpointBeforeC: 16, dewpointDropMaxC: -13, tempChangeC: 0.5 } as unknown as Features;
+  const d = decideKind([0], air({ tempDayC: 1, dewpointDayC: -1 }), hand('dryline', { dryline: 0.9 }), coldish, f);
   assert.is(d.kind, 'dryline');
+  // common practice, no source: a fall that leaves the air moist (16 → 11 °C) is a front's drying
+  const moist = { dewpointBeforeC: 16, dewpointDropMaxC: -5, tempChangeC: 0.5 } as unknown as Features;
+  assert.is(decideKind([0], air({}), hand('dryline', { dryline: 0.9 }), coldish, moist).kind, 'cold-front');
 });
 
 test('decideKind: "none" becomes a wind shift only when the shift score holds', () => {
