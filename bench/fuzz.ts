@@ -171,7 +171,7 @@ while (made < TOTAL) {
   const file = `fuzz-${fileNo}.${csv ? 'csv' : 'txt'}`;
   fileNo++;
   try {
-    if (process.env.FUZZ_DUMP === file) (await import('node:fs')).writeFileSync('/tmp/' + file, raw);
+    if (process.env.FUZZ_DUMP === file) (await import('node:fs')).writeFileSync((await import('node:path')).join((await import('node:os')).tmpdir(), file), raw);
     const prep = prepareText(raw);
     const physical = nonBlankLines(prep.bytes);
     const b = new SeriesBuilder();

@@ -1,6 +1,6 @@
 /**
  * The single-pass byte decoder (src/ingest/metar/byteMetar.ts) on the published example reports of
- * /work/shared/check-values.md §6.4 (M2–M5 real, M8–M10 constructed): decoded values, agreement with the
+ * shared/check-values.md (the folder beside the checkout) §6.4 (M2–M5 real, M8–M10 constructed): decoded values, agreement with the
  * general decoder in lite mode, and the forms it leaves to the general decoder. Line-by-line agreement on
  * whole corpora is checked in test/ingest/metar-fastpath.test.ts.
  */

@@ -1,7 +1,7 @@
 /**
  * METAR/SPECI group decoders on bytes (src/ingest/metar/groups.ts), one group at a time, with the
  * published encode/decode examples of WMO-No. 306 FM 15, ICAO Annex 3, FMH-1 ch. 12, the FAA AIM and
- * AFMAN 15-111 (as collected in /work/shared/check-values.md §6; M1–M11 are its example reports).
+ * AFMAN 15-111 (as collected in shared/check-values.md (the folder beside the checkout) §6; M1–M11 are its example reports).
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
