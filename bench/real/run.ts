@@ -2,7 +2,7 @@
  * Load the real development files through fropa's readers and run the main job on them.
  * One group of series per file (the New York 2022 file is a three-station network and is tracked).
  */
-import { readFileSync } from 'node:fs';
+import { existsSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { analyseSeries, loadPaths, type PassageEvent, type StationSeries, type AnalyseOptions } from '../../src/index.js';
 import { joinYmdh, REAL_FILES, SHARED, STATIONS_FILE, type RealFile } from './data.js';
@@ -33,7 +33,7 @@ export function loadRealFiles(files: readonly RealFile[] = REAL_FILES): LoadedFi
       if (f.ymdh) {
         stdinText = joinYmdh(readFileSync(path, 'utf8'));
         paths = ['-'];
-      } else readFileSync(path, { flag: 'r' }).subarray(0, 1);
+      } else if (!existsSync(path)) throw new Error('missing');
     } catch {
       process.stderr.write(`bench:real: ${path} not found, skipped\n`);
       continue;

@@ -52,19 +52,6 @@ export function airMassChange(g: DetectGrid, i: number): AirMassChange {
 
 /** Mean over [i + 2 h, i + 26 h) minus mean over [i − 24 h, i); NaN when either side has under half its samples. */
 function dailyMeanChange(v: Float64Array, i: number, perH: number): number {
-  const side = (lo: number, hi: number) => {
-    lo = Math.max(0, Math.floor(lo));
-    hi = Math.min(v.length, Math.ceil(hi));
-    let s = 0;
-    let k = 0;
-    for (let q = lo; q < hi; q++) {
-      const x = v[q]!;
-      if (x === x) {
-        s += x;
-        k++;
-      }
-    }
-    return k >= 12 * perH ? s / k : NaN;
-  };
-  return side(i + 2 * perH, i + 26 * perH) - side(i - 24 * perH, i);
+  const half = 12 * perH;
+  return meanIn(v, i + 2 * perH, i + 26 * perH, half) - meanIn(v, i - 24 * perH, i, half);
 }

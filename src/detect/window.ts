@@ -1,7 +1,7 @@
 /** Small window statistics over grid arrays (indices clamped; NaN ignored). */
 
-/** Mean of finite values in [lo, hi) (clamped); NaN when none. */
-export function meanIn(v: ArrayLike<number>, lo: number, hi: number): number {
+/** Mean of finite values in [lo, hi) (clamped); NaN when fewer than `minCount` (default 1). */
+export function meanIn(v: ArrayLike<number>, lo: number, hi: number, minCount = 1): number {
   lo = Math.max(0, Math.floor(lo));
   hi = Math.min(v.length, Math.ceil(hi));
   let s = 0;
@@ -13,7 +13,7 @@ export function meanIn(v: ArrayLike<number>, lo: number, hi: number): number {
       k++;
     }
   }
-  return k ? s / k : NaN;
+  return k >= minCount && k > 0 ? s / k : NaN;
 }
 
 /** Index of the minimum (or maximum with sign −1) finite value in [lo, hi); −1 when none. */
