@@ -207,16 +207,28 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
   const kept: PassageEvent[] = [];
   const thermalSign = (e: PassageEvent) => (e.kind === 'cold-front' || e.kind === 'outflow-boundary' ? -1 : e.kind === 'warm-front' ? 1 : 0);
   for (const e of byStrength) {
-    // Two cold-front candidates within 4 h are one passage seen at the wind shift and at the fall: keep the
-    // stronger, timed at the wind shift when the shift came first (FMH-1), with both times reported.
-    const twin = kept.find((k) => k.kind === 'cold-front' && e.kind === 'cold-front' && Math.abs(k.timeMs - e.timeMs) < 4 * MS_PER_HOUR);
+    // Two cold-front candidates within 4 h (of each other, or of the kept one's temperature fall) are one
+    // passage seen at the wind shift and at the fall: keep the stronger, timed at the wind shift nearest its
+    // fall, from 3 h before to 2 h after it (FMH-1 times a passage at the wind shift; a dew-point crash or a
+    // small veer hours ahead of the fall is not the front's shift), with both times reported.
+    const fallOf = (k: PassageEvent) => (Number.isFinite(k.changeStartTimeMs) ? k.changeStartTimeMs : k.timeBasis === 'temperature-change' ? k.timeMs : NaN);
+    const twin = kept.find((k) => {
+      if (k.kind !== 'cold-front' || e.kind !== 'cold-front') return false;
+      const fall = fallOf(k);
+      return Math.abs(k.timeMs - e.timeMs) < 4 * MS_PER_HOUR || Math.abs(fall - e.timeMs) < 4 * MS_PER_HOUR;
+    });
     if (twin) {
-      if (e.timeBasis === 'wind-shift' && twin.timeBasis !== 'wind-shift' && e.timeMs < twin.timeMs && twin.timeMs - e.timeMs <= 3 * MS_PER_HOUR) {
-        const fall = twin.timeMs;
-        Object.assign(twin, { timeMs: e.timeMs, timeEarliestMs: e.timeEarliestMs, timeLatestMs: e.timeLatestMs, windShiftTimeMs: e.windShiftTimeMs, timeBasis: 'wind-shift', zoneStartMs: e.timeMs });
-        if (Number.isNaN(twin.changeStartTimeMs)) twin.changeStartTimeMs = fall;
+      const fall = fallOf(twin);
+      const offset = e.timeMs - fall;
+      const nearer = twin.timeBasis !== 'wind-shift' || Math.abs(offset) < Math.abs(twin.timeMs - fall);
+      if (e.timeBasis === 'wind-shift' && Number.isFinite(fall) && offset >= -3 * MS_PER_HOUR && offset <= 2 * MS_PER_HOUR && nearer) {
+        Object.assign(twin, {
+          timeMs: e.timeMs, timeEarliestMs: e.timeEarliestMs, timeLatestMs: e.timeLatestMs, windShiftTimeMs: e.windShiftTimeMs, timeBasis: 'wind-shift', zoneStartMs: e.timeMs,
+          windBeforeDeg: e.windBeforeDeg, windAfterDeg: e.windAfterDeg, windTurnDeg: e.windTurnDeg,
+        });
+        twin.changeStartTimeMs = fall;
         twin.zoneHours = Number.isNaN(twin.zoneEndMs) ? NaN : (twin.zoneEndMs - twin.timeMs) / MS_PER_HOUR;
-        twin.evidence = [...twin.evidence.filter((x) => !x.startsWith('timed at')), `timed at the wind shift, between the reports at ${hhmm(e.timeEarliestMs)} and ${hhmm(e.timeLatestMs)} UTC; the temperature fall starts at ${hhmm(twin.changeStartTimeMs)} UTC`];
+        twin.evidence = [...twin.evidence.filter((x) => !x.startsWith('timed at')), `timed at the wind shift, between the reports at ${hhmm(e.timeEarliestMs)} and ${hhmm(e.timeLatestMs)} UTC (placed at the first report with the new wind); the temperature fall starts at ${hhmm(fall)} UTC`];
       }
       continue;
     }
@@ -237,11 +249,22 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
 
 /**
  * A wind shift with a pressure trough and little temperature change, followed within 1–8 h by a cold
- * front at the same station, is a prefrontal trough (Schultz2005), not an occluded front: keep it as an
- * unclassified wind shift and say so.
+ * front at the same station, is a prefrontal trough (Schultz2005), not an occluded front; a drying without
+ * cooling 1–7 h ahead of a cold front's fall is the front's dry leading edge, not a dryline or a second
+ * front. Both are kept as unclassified wind shifts, and the evidence says why.
  */
 export function markPrefrontalTroughs(events: PassageEvent[]): PassageEvent[] {
   return events.map((e) => {
+    // A drying without cooling up to 7 h ahead of a cold front's fall is the front's dry leading edge (a
+    // dew-point crash in the westerlies ahead of the cold air), neither a second front nor a dryline; a
+    // dryline overtaken later by a cold front stays a dryline. common practice, no source, for the 7 h.
+    if (e.kind === 'dryline' || (e.kind === 'cold-front' && !(e.tempChangeC < -1))) {
+      const front = events.find((c) => c !== e && c.kind === 'cold-front' && c.tempChangeC <= -3 && c.timeMs - e.timeMs >= MS_PER_HOUR && c.timeMs - e.timeMs <= 7 * MS_PER_HOUR);
+      if (front) {
+        const lead = ((front.timeMs - e.timeMs) / MS_PER_HOUR).toFixed(1);
+        return { ...e, kind: 'wind-shift', evidence: [...e.evidence, `+ the cold front's temperature fall follows ${lead} h later: drying ahead of the front, not a front of its own`] };
+      }
+    }
     if (e.kind !== 'occluded-front' && e.kind !== 'wind-shift') return e;
     const front = events.find((c) => c.kind === 'cold-front' && c.timeMs - e.timeMs >= MS_PER_HOUR && c.timeMs - e.timeMs <= 8 * MS_PER_HOUR);
     if (!front) return e;
@@ -297,9 +320,14 @@ const hhmm = (ms: number) => new Date(ms).toISOString().slice(11, 16);
 
 function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEvent {
   const f = c.f;
-  const timeMs = c.timing?.timeMs ?? f.timeMs;
+  // A passage timed at the wind shift is placed at the first report with the new wind (the shift began
+  // between the last report with the old wind and that one: `windShiftTimeMs` estimates when, FMH-1 §5.4.6).
+  // For a warm front that is also where the station enters the warm air: its temperature contrast lies
+  // ahead of it, on the cold side (Petterssen 1956, from memory), so the rise comes before the front.
+  const byWind = c.timeBasis === 'wind-shift' && c.timing !== undefined;
+  const timeMs = byWind ? (process.env.X_MID && c.c.kind !== 'warm-front' ? (c.timing!.earliestMs + c.timing!.latestMs) / 2 : c.timing!.latestMs) : c.timing?.timeMs ?? f.timeMs;
   const evidence = [...c.c.evidence];
-  if (c.basis) evidence.push(`${c.basis}, between the reports at ${hhmm(c.timing!.earliestMs)} and ${hhmm(c.timing!.latestMs)} UTC`);
+  if (c.basis) evidence.push(`${c.basis}, between the reports at ${hhmm(c.timing!.earliestMs)} and ${hhmm(c.timing!.latestMs)} UTC${byWind ? ' (placed at the first report with the new wind)' : ''}`);
   if (c.prefrontalShiftMs !== undefined) {
     evidence.push(`+ wind shift ${((timeMs - c.prefrontalShiftMs) / MS_PER_HOUR).toFixed(1)} h ahead of the temperature fall: prefrontal trough; the front is placed at the fall`);
   }
@@ -324,9 +352,10 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
     pressureMinHpa: f.pressureMinHpa,
     pressureMinTimeMs: f.pressureMinTimeMs,
     pressureRise3hHpa: f.pressureRise3hHpa,
-    windBeforeDeg: f.windBeforeDeg,
-    windAfterDeg: f.windAfterDeg,
-    windTurnDeg: f.turnDeg,
+    // The winds either side of the timed shift (the split's means), so the window and the winds agree.
+    windBeforeDeg: byWind && Number.isFinite(c.timing!.beforeDeg) ? c.timing!.beforeDeg! : f.windBeforeDeg,
+    windAfterDeg: byWind && Number.isFinite(c.timing!.afterDeg) ? c.timing!.afterDeg! : f.windAfterDeg,
+    windTurnDeg: byWind && Number.isFinite(c.timing!.turnDeg) ? c.timing!.turnDeg : f.turnDeg,
     windSpeedAfterMs: f.speedAfterMs,
     gustMaxMs: f.gustMaxMs,
     precipNear: f.precipNear,

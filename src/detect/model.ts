@@ -193,7 +193,11 @@ export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classifica
   // level or rising; a dew-point fall that leaves
   // the air still moist (above 5 °C; common practice, no source) is a front's drying, which the model judges.
   const dryBehind = f !== undefined && f.dewpointBeforeC >= 10 && f.dewpointBeforeC + f.dewpointDropMaxC <= 5 && f.tempChangeC >= -1;
-  if (h.kind === 'dryline' && h.scores.dryline >= 0.4 && dryBehind && pNone < 0.9) {
+  // A dryline retreats in the evening as the moist air flows back (Schaefer1986, from memory), so 6–12 h
+  // after it the dew point is back near the same hours a day earlier; 8 °C drier then is a new, dry air
+  // mass, and the dew-point crash was a cold front's leading edge. common practice, no source, for the 8 °C.
+  const newAirMass = a.dewpointDayC < -8;
+  if (h.kind === 'dryline' && h.scores.dryline >= 0.4 && dryBehind && !newAirMass && pNone < 0.9) {
     kind = 'dryline';
     confidence = calibrate(Math.min(h.scores.dryline, 1 - 0.5 * pNone), params.calibration?.dryline);
   } else if (h.kind === 'occluded-front' && h.scores['occluded-front'] >= 0.4 && !(Math.abs(a.tempDayC) >= 2) && !(Math.abs(a.tempDailyMeanC) >= 2)) {

@@ -16,6 +16,9 @@ export interface SplitTime {
   turnDeg: number;
   /** Between-group sum of squares of the split, (m/s)². */
   strength: number;
+  /** Mean wind direction of the reports before / after the split (degrees true; NaN for a thermal change). */
+  beforeDeg?: number;
+  afterDeg?: number;
 }
 
 /**
@@ -107,7 +110,7 @@ export function windSplit(timeMs: Float64Array, raw: RawColumns, aroundMs: numbe
         const earliestMs = t0;
         const latestMs = first >= 0 ? Math.max(timeMs[idx[first]!]!, t1) : t1;
         const began = Math.min(latestMs, Math.max(earliestMs, (t0 + t1) / 2));
-        best = { timeMs: began, earliestMs, latestMs, turnDeg: turn, strength: score };
+        best = { timeMs: began, earliestMs, latestMs, turnDeg: turn, strength: score, beforeDeg: wb.dirDeg, afterDeg: wa.dirDeg };
       }
     }
   }

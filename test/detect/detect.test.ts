@@ -125,7 +125,8 @@ test('detectStation() calls a gust front with a pressure jump and recovery an ou
 });
 
 // Schaefer (1986): dryline — by day the dew point falls sharply while the temperature holds or rises, the
-// wind veers to SW–W, little pressure signal.
+// wind veers to SW–W, little pressure signal; at night the dryline retreats west and the moist air returns
+// (its diurnal motion, Schaefer 1986, from memory), here 8–10 h after passage.
 test('detectStation() calls a daytime dew-point collapse with a veer to the west a dryline', () => {
   const fh = day8 + 20; // 13:40 local solar time
   const s = makeSeries({
@@ -135,8 +136,8 @@ test('detectStation() calls a daytime dew-point collapse with a veer to the west
       const k = Math.round(t / 60000);
       return {
         t: 28 + diurnal(t, north.lonDeg, 5) + 1.5 * ramp(x, 0, 1) + noise(k, 0.2),
-        td: 18 - 14 * ramp(x, 0, 1) + noise(k + 7, 0.2),
-        dir: 170 + 75 * ramp(x, 0, 0.5),
+        td: 18 - 14 * ramp(x, 0, 1) + 14 * ramp(x, 8, 10) + noise(k + 7, 0.2),
+        dir: 170 + 75 * ramp(x, 0, 0.5) - 75 * ramp(x, 8, 9),
         spd: 7,
         p: 1005 + noise(k + 3, 0.05),
       };

@@ -111,14 +111,20 @@ test('verify on the demo: timing errors match the planted errors (forecast − o
   }
   const abs = (a: number[]) => a.map(Math.abs);
   const mean = (a: number[]) => a.reduce((s, x) => s + x, 0) / a.length;
-  // Cold fronts: detection timing error (measured: median 3.5 min, p90 24 min) is small next to the planted spread (MAE ≈ 55 min).
+  // Cold fronts: detection timing error is small next to the planted spread (MAE ≈ 55 min). A passage timed at
+  // the wind shift is placed at the first report with the new wind (README, "Passage time"), so at the demo's
+  // hourly METAR stations it can be up to one report interval (60 min) after the planted shift: measured
+  // median 3.5 min, p90 54 min (it was 24 min when passages were placed at the estimated start of the shift).
   assert.ok(diff['cold-front']!.length >= 120);
   assert.ok(quantile(abs(diff['cold-front']!), 0.5) <= 15, `cold: median |verify − planted| ${quantile(abs(diff['cold-front']!), 0.5)}`);
-  assert.ok(quantile(abs(diff['cold-front']!), 0.9) <= 45, `cold: p90 |verify − planted| ${quantile(abs(diff['cold-front']!), 0.9)}`);
+  assert.ok(quantile(abs(diff['cold-front']!), 0.9) <= 60, `cold: p90 |verify − planted| ${quantile(abs(diff['cold-front']!), 0.9)}`);
   assert.ok(Math.abs(quantile(seen['cold-front']!, 0.5) - quantile(plan['cold-front']!, 0.5)) <= 15, 'cold: median error as planted');
   assert.ok(Math.abs(mean(abs(seen['cold-front']!)) - mean(abs(plan['cold-front']!))) <= 15, 'cold: MAE as planted');
-  // Warm fronts are gradual and timed less well (README limitations): measured median |diff| 24 min.
-  assert.ok(quantile(abs(diff['warm-front']!), 0.5) <= 45, `warm: median |verify − planted| ${quantile(abs(diff['warm-front']!), 0.5)}`);
+  // Warm fronts are gradual and timed less well (README limitations). The demo plants a warm front's time at
+  // the start of a 60–150 min veer (tools/synth/planNetwork.ts warmShiftMin) while fropa's `time` is the first
+  // report nearer the new wind, part-way through the veer: measured median |diff| 61.5 min (24 min when
+  // passages were placed at the estimated start of the shift; `wind_shift_time` keeps that estimate).
+  assert.ok(quantile(abs(diff['warm-front']!), 0.5) <= 80, `warm: median |verify − planted| ${quantile(abs(diff['warm-front']!), 0.5)}`);
   assert.ok(mean(abs(seen['warm-front']!)) > mean(abs(seen['cold-front']!)), 'warm-front errors were planted wider than cold-front errors');
 });
 
