@@ -51,6 +51,7 @@ import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from 
 import { assembleTimeText, makeTimeReader, parseOffsetMinutes, timeColumnIndices, type TimeColumns, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
 import { weatherFlags } from './metar/weather.js';
+import { ecccProvince, ecccWeatherFlags, isEcccHeaders } from './eccc.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
 import { MAGNUS_AERK1996 } from '../physics/vapor.js';
 import { normalizeLineEnds, prepareText } from './text.js';
@@ -285,6 +286,12 @@ export class CsvCore {
   private userMissingText = new Set<string>();
   private userMissingNum: number[] = [];
   private wxCache = new Map<string, number>();
+  /** ECCC layout: `Weather` holds words (eccc.ts), and cells with words not known, with those words. */
+  private ecccWords = false;
+  private wxUnknown = new Map<string, string>();
+  /** ECCC LST times without --tz/--utc-offset: each row's offset from its Climate ID (eccc.ts), per id. */
+  private ecccZone = false;
+  private ecccReaders = new Map<string, TimeReader | null>();
   private lastTime = new Map<string, number>();
   private decimalComma = false;
   private aborted = false;
@@ -615,6 +622,15 @@ export class CsvCore {
       this.assume('local standard time all year');
       report.notes.push('times read as local standard time all year (the time column says LST, as in Environment and Climate Change Canada files)');
     }
+    if (isEcccHeaders(fields)) {
+      this.ecccWords = this.wxCol !== NO_COL;
+      if (utcBecause === null && zone === undefined && offsetMinutes === undefined && this.stationCol !== NO_COL && /(^|[^a-z])lst([^a-z]|$)/.test(th)) {
+        this.ecccZone = true;
+        report.notes.push(
+          'no --tz or --utc-offset: the standard time of each row is taken from the province its Climate ID names, where the province keeps one (AB, MB, NB, NS, PE, NT); rows of other provinces need --utc-offset (e.g. -300 for Eastern Standard Time) or --tz',
+        );
+      }
+    }
     if (standardTime === undefined && isLcdHeaders(fields)) {
       standardTime = true;
       this.assume('local standard time all year');
@@ -787,7 +803,7 @@ export class CsvCore {
 
   private timeOf(line: number): number {
     if (this.timeColumns !== null) return this.assembledTimeOf(line, this.timeColumns);
-    if (this.rowFields === null && this.offsetCol === NO_COL) {
+    if (this.rowFields === null && this.offsetCol === NO_COL && !this.ecccZone) {
       // line mode: the common ISO form straight from the bytes
       const ms = this.timeParser!.readQuickBytes(this.rowBytes, this.cellStart[this.timeCol]!, this.cellEnd[this.timeCol]!);
       if (ms === ms) return ms;
@@ -823,6 +839,7 @@ export class CsvCore {
   /** A time text read with the file's reader, or the reader for the row's UTC-offset cell. */
   private readTime(line: number, raw: string): number {
     let parser = this.timeParser!;
+    if (this.ecccZone) parser = this.ecccReader() ?? parser;
     if (this.offsetCol !== NO_COL) {
       const off = parseOffsetMinutes(this.offsetCol < this.cells() ? this.cell(this.offsetCol) : '');
       if (Number.isFinite(off) && Math.abs(off) <= 18 * 60) {
@@ -834,6 +851,27 @@ export class CsvCore {
     const ms = parser.read(raw);
     if (ms === ms) return ms;
     return this.badTime(line, parser, raw);
+  }
+
+  /** The time reader for the current row's Climate ID (its province's standard offset), or null (needs a zone). */
+  private ecccReader(): TimeReader | null {
+    const id = this.stationCol < this.cells() ? this.cell(this.stationCol).trim() : '';
+    let r = this.ecccReaders.get(id);
+    if (r === undefined) {
+      const p = ecccProvince(id);
+      const off = p?.standardOffsetMinutes ?? null;
+      r = off === null ? null : makeTimeReader({ offsetMinutes: off });
+      if (this.ecccReaders.size < 10000) this.ecccReaders.set(id, r);
+      if (off !== null) {
+        this.assume('standard time from the ECCC Climate ID province');
+        this.report.notes.push(`Climate ID ${id}: ${p!.name}, LST read as UTC${off < 0 ? '−' : '+'}${Math.abs(off) / 60}`);
+      } else if (id !== '') {
+        this.report.notes.push(
+          `Climate ID ${id}: ${p ? `${p.name} keeps more than one standard time` : 'names no known province'}; its rows need --utc-offset MINUTES or --tz ZONE`,
+        );
+      }
+    }
+    return r;
   }
 
   /** Reject the row for the time the parser could not read (its `error`); NaN. */
@@ -956,10 +994,18 @@ export class CsvCore {
       if (w.length !== 0 && w !== 'M') {
         let f = this.wxCache.get(w);
         if (f === undefined) {
-          f = weatherFlagsFromCodes(w);
+          if (this.ecccWords) {
+            const e = ecccWeatherFlags(w);
+            f = e.flags;
+            if (e.unknown.length && this.wxUnknown.size < 10000) this.wxUnknown.set(w, e.unknown.join(','));
+          } else f = weatherFlagsFromCodes(w);
           if (this.wxCache.size < 10000) this.wxCache.set(w, f);
         }
         o.weather = f;
+        if (this.ecccWords && this.wxUnknown.size !== 0) {
+          const u = this.wxUnknown.get(w);
+          if (u !== undefined) this.count('unknown-words', 'weather', line, u);
+        }
       }
     }
     if (this.rawCol !== NO_COL) {
@@ -1037,6 +1083,7 @@ const VALUE_NOTE: Record<string, string> = {
   'time-backwards': '; times go backwards within the station (accepted; the series is sorted)',
   'raw-report-undecoded': '; raw report could not be decoded',
   'raw-report-error': '; raw report decoder failed',
+  'unknown-words': '; weather words not known, no weather flag from them (row kept)',
 };
 
 /** A quoted field may hold line breaks for at most this many lines (common practice, no source). */
