@@ -74,6 +74,8 @@ export interface CsvOptions {
   /** Fixed UTC offset (minutes east) for naive times; wins over zone. */
   offsetMinutes?: number;
   defaultStation?: string;
+  /** The IANA zone of a station's naive local times (the stations file's `tz`), when neither zone nor offset is given. */
+  stationZone?: (station: string) => string | undefined;
   /** The station id a file without a station column takes from its name, and the rule that gave it (stations.ts). */
   stationFromFileName?: (file: string) => { id: string; rule: string };
   /** Force a delimiter (default: detect among comma, tab, semicolon, pipe). */
@@ -291,6 +293,10 @@ export class CsvCore {
   /** ECCC layout: `Weather` holds words (eccc.ts), and cells with words not known, with those words. */
   private ecccWords = false;
   private wxUnknown = new Map<string, string>();
+  /** Naive times without --tz/--utc-offset: the zone of the row's station in the stations file, per station. */
+  private zoneByStation = false;
+  private stationReaders = new Map<string, TimeReader | null>();
+  private fileStandardTime = false;
   /** ECCC LST times without --tz/--utc-offset: each row's offset from its Climate ID (eccc.ts), per id. */
   private ecccZone = false;
   private ecccReaders = new Map<string, TimeReader | null>();
@@ -629,6 +635,8 @@ export class CsvCore {
       this.assume('local standard time all year');
       report.notes.push('times read as local standard time all year (the time column says LST, as in Environment and Climate Change Canada files)');
     }
+    this.fileStandardTime = !!standardTime;
+    if (utcBecause === null && zone === undefined && offsetMinutes === undefined && this.opts.stationZone !== undefined && !epoch) this.zoneByStation = true;
     if (isEcccHeaders(fields)) {
       this.ecccWords = this.wxCol !== NO_COL;
       if (utcBecause === null && zone === undefined && offsetMinutes === undefined && this.stationCol !== NO_COL && /(^|[^a-z])lst([^a-z]|$)/.test(th)) {
@@ -810,7 +818,7 @@ export class CsvCore {
 
   private timeOf(line: number): number {
     if (this.timeColumns !== null) return this.assembledTimeOf(line, this.timeColumns);
-    if (this.rowFields === null && this.offsetCol === NO_COL && !this.ecccZone) {
+    if (this.rowFields === null && this.offsetCol === NO_COL && !this.ecccZone && !this.zoneByStation) {
       // line mode: the common ISO form straight from the bytes
       const ms = this.timeParser!.readQuickBytes(this.rowBytes, this.cellStart[this.timeCol]!, this.cellEnd[this.timeCol]!);
       if (ms === ms) return ms;
@@ -846,7 +854,9 @@ export class CsvCore {
   /** A time text read with the file's reader, or the reader for the row's UTC-offset cell. */
   private readTime(line: number, raw: string): number {
     let parser = this.timeParser!;
-    if (this.ecccZone) parser = this.ecccReader() ?? parser;
+    // a zone the stations file gives for the row's station, else (ECCC) the Climate ID's province
+    if (this.zoneByStation) parser = this.stationZoneReader() ?? (this.ecccZone ? this.ecccReader() : null) ?? parser;
+    else if (this.ecccZone) parser = this.ecccReader() ?? parser;
     if (this.offsetCol !== NO_COL) {
       const off = parseOffsetMinutes(this.offsetCol < this.cells() ? this.cell(this.offsetCol) : '');
       if (Number.isFinite(off) && Math.abs(off) <= 18 * 60) {
@@ -858,6 +868,22 @@ export class CsvCore {
     const ms = parser.read(raw);
     if (ms === ms) return ms;
     return this.badTime(line, parser, raw);
+  }
+
+  /** The time reader in the stations file's zone of the current row's station, or null (none listed). */
+  private stationZoneReader(): TimeReader | null {
+    const id = this.stationCol === NO_COL ? this.defaultStation : this.stationCol < this.cells() ? this.cell(this.stationCol).trim() : '';
+    let r = this.stationReaders.get(id);
+    if (r === undefined) {
+      const zone = id === '' ? undefined : this.opts.stationZone!(id);
+      r = zone === undefined ? null : makeTimeReader({ zone, standardTime: this.fileStandardTime });
+      if (this.stationReaders.size < 10000) this.stationReaders.set(id, r);
+      if (zone !== undefined) {
+        this.assume('zone from the stations file');
+        this.report.notes.push(`station ${id}: naive times read in ${zone}${this.fileStandardTime ? ' standard time' : ''} (the stations file's tz)`);
+      }
+    }
+    return r;
   }
 
   /** The time reader for the current row's Climate ID (its province's standard offset), or null (needs a zone). */

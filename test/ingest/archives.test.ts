@@ -6,7 +6,9 @@
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { readCsvText } from '../../src/ingest/csv.js';
 import { ecccProvince, ecccWeatherFlags } from '../../src/ingest/eccc.js';
 import { WX } from '../../src/model/index.js';
@@ -60,6 +62,22 @@ test('ECCC hourly CSV without --tz: LST offset from the Climate ID province wher
   const on = readCsvText([ECCC_HEADER, ecccRowAt('6105978', '2023-07-01 00:00', '')].join('\n') + '\n', 'e.csv', {});
   assert.equal(on.report.rejectedByReason, { 'needs-zone': 1 });
   assert.ok(on.report.notes.some((n) => n.startsWith('Climate ID 6105978: Ontario keeps more than one standard time; its rows need --utc-offset')));
+});
+
+test('loadPaths: naive CSV times take the zone the stations file gives the station (tz), before the Climate ID rule', () => {
+  // invented files; zones and offsets from the IANA tz database (America/Toronto: EST UTC−5, EDT UTC−4)
+  const dir = mkdtempSync(join(tmpdir(), 'fropa-zone-'));
+  writeFileSync(join(dir, 'stations.csv'), 'id,lat,lon,tz\n6105978,45.38,-75.72,America/Toronto\nXGEN,45,-75,America/Toronto\n');
+  writeFileSync(join(dir, 'eccc.csv'), [ECCC_HEADER, ecccRow('2023-07-01 00:00', '20.5', '27', '36', '99.80')].join('\n') + '\n');
+  writeFileSync(join(dir, 'XGEN_2023.csv'), 'time,temp_c\n2023-07-01 00:00,20\n');
+  const r = loadPaths([dir]);
+  const t = (id: string) => iso(r.series.find((s) => s.station === id)!.timeMs[0]!);
+  assert.is(t('6105978'), '2023-07-01T05:00:00.000Z'); // LST: Eastern Standard Time all year, UTC−5
+  assert.is(t('XGEN'), '2023-07-01T04:00:00.000Z'); // a plain naive time: EDT in July, UTC−4
+  const eccc = r.reports.find((x) => x.file.endsWith('eccc.csv'))!;
+  assert.ok(eccc.notes.includes("station 6105978: naive times read in America/Toronto standard time (the stations file's tz)"), eccc.notes.join('\n'));
+  assert.ok(eccc.assumed?.includes('zone from the stations file'));
+  rmSync(dir, { recursive: true });
 });
 
 test('ECCC Weather words give the WX flags of the matching METAR groups (code table 4678); unknown words are counted', () => {
