@@ -9,6 +9,7 @@ export { BOUNDARY_KINDS, QC, SERIES_FIELDS, UsageError, WX } from './model/index
 export type {
   BoundaryKind,
   DuplicateNote,
+  DuplicateReason,
   FieldColumns,
   FileReport,
   FrontTrack,

@@ -45,7 +45,7 @@ export function loadPaths(paths: readonly string[], opts: LoadOptions = {}): Loa
   // Every observation goes straight into per-station columns; ids are resolved once per distinct id.
   const index = buildStationIndex(scanned.stations);
   const builder = new SeriesBuilder((id) => resolveStation(index, id).id);
-  const read = readDataFiles(scanned.dataFiles, opts, (o) => builder.add(o));
+  const read = readDataFiles(scanned.dataFiles, opts, (o) => builder.add(o), index);
   return { ...seriesFromBuilder(builder, index, read.positions), reports: [...scanned.reports, ...read.reports], stations: scanned.stations };
 }
 

@@ -45,12 +45,15 @@
  *   (noted). Ids are trimmed, case kept.
  */
 import Papa from 'papaparse';
+import { Transform } from 'node:stream';
+import { StringDecoder } from 'node:string_decoder';
 import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from '../model/index.js';
 import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, TIME_PARTS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
 import { assembleTimeText, makeTimeReader, parseOffsetMinutes, timeColumnIndices, type TimeColumns, type TimeReader } from './time.js';
 import { looksLikeStationsFile } from './stations.js';
 import { weatherFlags } from './metar/weather.js';
+import { ecccProvince, ecccWeatherFlags, isEcccHeaders } from './eccc.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
 import { MAGNUS_AERK1996 } from '../physics/vapor.js';
 import { normalizeLineEnds, prepareText } from './text.js';
@@ -71,6 +74,8 @@ export interface CsvOptions {
   /** Fixed UTC offset (minutes east) for naive times; wins over zone. */
   offsetMinutes?: number;
   defaultStation?: string;
+  /** The IANA zone of a station's naive local times (the stations file's `tz`), when neither zone nor offset is given. */
+  stationZone?: (station: string) => string | undefined;
   /** The station id a file without a station column takes from its name, and the rule that gave it (stations.ts). */
   stationFromFileName?: (file: string) => { id: string; rule: string };
   /** Force a delimiter (default: detect among comma, tab, semicolon, pipe). */
@@ -285,6 +290,16 @@ export class CsvCore {
   private userMissingText = new Set<string>();
   private userMissingNum: number[] = [];
   private wxCache = new Map<string, number>();
+  /** ECCC layout: `Weather` holds words (eccc.ts), and cells with words not known, with those words. */
+  private ecccWords = false;
+  private wxUnknown = new Map<string, string>();
+  /** Naive times without --tz/--utc-offset: the zone of the row's station in the stations file, per station. */
+  private zoneByStation = false;
+  private stationReaders = new Map<string, TimeReader | null>();
+  private fileStandardTime = false;
+  /** ECCC LST times without --tz/--utc-offset: each row's offset from its Climate ID (eccc.ts), per id. */
+  private ecccZone = false;
+  private ecccReaders = new Map<string, TimeReader | null>();
   private lastTime = new Map<string, number>();
   private decimalComma = false;
   private aborted = false;
@@ -350,6 +365,11 @@ export class CsvCore {
   useTextChecks(q: QuoteCheck | null, hasNul: boolean): void {
     if (q) this.quoteBad = q.bad.size ? q.bad : null;
     this.checkNul = hasNul;
+  }
+
+  /** Take the lines a QuoteScanner rejects as it goes (a stream: its map fills before papaparse sees the lines). */
+  useQuoteScanner(scanner: QuoteScanner): void {
+    this.quoteBad = scanner.bad;
   }
 
   private handle(fields: string[], err: { code?: string; message?: string } | undefined): boolean {
@@ -615,6 +635,17 @@ export class CsvCore {
       this.assume('local standard time all year');
       report.notes.push('times read as local standard time all year (the time column says LST, as in Environment and Climate Change Canada files)');
     }
+    this.fileStandardTime = !!standardTime;
+    if (utcBecause === null && zone === undefined && offsetMinutes === undefined && this.opts.stationZone !== undefined && !epoch) this.zoneByStation = true;
+    if (isEcccHeaders(fields)) {
+      this.ecccWords = this.wxCol !== NO_COL;
+      if (utcBecause === null && zone === undefined && offsetMinutes === undefined && this.stationCol !== NO_COL && /(^|[^a-z])lst([^a-z]|$)/.test(th)) {
+        this.ecccZone = true;
+        report.notes.push(
+          'no --tz or --utc-offset: the standard time of each row is taken from the province its Climate ID names, where the province keeps one (AB, MB, NB, NS, PE, NT); rows of other provinces need --utc-offset (e.g. -300 for Eastern Standard Time) or --tz',
+        );
+      }
+    }
     if (standardTime === undefined && isLcdHeaders(fields)) {
       standardTime = true;
       this.assume('local standard time all year');
@@ -787,7 +818,7 @@ export class CsvCore {
 
   private timeOf(line: number): number {
     if (this.timeColumns !== null) return this.assembledTimeOf(line, this.timeColumns);
-    if (this.rowFields === null && this.offsetCol === NO_COL) {
+    if (this.rowFields === null && this.offsetCol === NO_COL && !this.ecccZone && !this.zoneByStation) {
       // line mode: the common ISO form straight from the bytes
       const ms = this.timeParser!.readQuickBytes(this.rowBytes, this.cellStart[this.timeCol]!, this.cellEnd[this.timeCol]!);
       if (ms === ms) return ms;
@@ -823,6 +854,9 @@ export class CsvCore {
   /** A time text read with the file's reader, or the reader for the row's UTC-offset cell. */
   private readTime(line: number, raw: string): number {
     let parser = this.timeParser!;
+    // a zone the stations file gives for the row's station, else (ECCC) the Climate ID's province
+    if (this.zoneByStation) parser = this.stationZoneReader() ?? (this.ecccZone ? this.ecccReader() : null) ?? parser;
+    else if (this.ecccZone) parser = this.ecccReader() ?? parser;
     if (this.offsetCol !== NO_COL) {
       const off = parseOffsetMinutes(this.offsetCol < this.cells() ? this.cell(this.offsetCol) : '');
       if (Number.isFinite(off) && Math.abs(off) <= 18 * 60) {
@@ -834,6 +868,43 @@ export class CsvCore {
     const ms = parser.read(raw);
     if (ms === ms) return ms;
     return this.badTime(line, parser, raw);
+  }
+
+  /** The time reader in the stations file's zone of the current row's station, or null (none listed). */
+  private stationZoneReader(): TimeReader | null {
+    const id = this.stationCol === NO_COL ? this.defaultStation : this.stationCol < this.cells() ? this.cell(this.stationCol).trim() : '';
+    let r = this.stationReaders.get(id);
+    if (r === undefined) {
+      const zone = id === '' ? undefined : this.opts.stationZone!(id);
+      r = zone === undefined ? null : makeTimeReader({ zone, standardTime: this.fileStandardTime });
+      if (this.stationReaders.size < 10000) this.stationReaders.set(id, r);
+      if (zone !== undefined) {
+        this.assume('zone from the stations file');
+        this.report.notes.push(`station ${id}: naive times read in ${zone}${this.fileStandardTime ? ' standard time' : ''} (the stations file's tz)`);
+      }
+    }
+    return r;
+  }
+
+  /** The time reader for the current row's Climate ID (its province's standard offset), or null (needs a zone). */
+  private ecccReader(): TimeReader | null {
+    const id = this.stationCol < this.cells() ? this.cell(this.stationCol).trim() : '';
+    let r = this.ecccReaders.get(id);
+    if (r === undefined) {
+      const p = ecccProvince(id);
+      const off = p?.standardOffsetMinutes ?? null;
+      r = off === null ? null : makeTimeReader({ offsetMinutes: off });
+      if (this.ecccReaders.size < 10000) this.ecccReaders.set(id, r);
+      if (off !== null) {
+        this.assume('standard time from the ECCC Climate ID province');
+        this.report.notes.push(`Climate ID ${id}: ${p!.name}, LST read as UTC${off < 0 ? '−' : '+'}${Math.abs(off) / 60}`);
+      } else if (id !== '') {
+        this.report.notes.push(
+          `Climate ID ${id}: ${p ? `${p.name} keeps more than one standard time` : 'names no known province'}; its rows need --utc-offset MINUTES or --tz ZONE`,
+        );
+      }
+    }
+    return r;
   }
 
   /** Reject the row for the time the parser could not read (its `error`); NaN. */
@@ -956,10 +1027,18 @@ export class CsvCore {
       if (w.length !== 0 && w !== 'M') {
         let f = this.wxCache.get(w);
         if (f === undefined) {
-          f = weatherFlagsFromCodes(w);
+          if (this.ecccWords) {
+            const e = ecccWeatherFlags(w);
+            f = e.flags;
+            if (e.unknown.length && this.wxUnknown.size < 10000) this.wxUnknown.set(w, e.unknown.join(','));
+          } else f = weatherFlagsFromCodes(w);
           if (this.wxCache.size < 10000) this.wxCache.set(w, f);
         }
         o.weather = f;
+        if (this.ecccWords && this.wxUnknown.size !== 0) {
+          const u = this.wxUnknown.get(w);
+          if (u !== undefined) this.count('unknown-words', 'weather', line, u);
+        }
       }
     }
     if (this.rawCol !== NO_COL) {
@@ -1037,6 +1116,7 @@ const VALUE_NOTE: Record<string, string> = {
   'time-backwards': '; times go backwards within the station (accepted; the series is sorted)',
   'raw-report-undecoded': '; raw report could not be decoded',
   'raw-report-error': '; raw report decoder failed',
+  'unknown-words': '; weather words not known, no weather flag from them (row kept)',
 };
 
 /** A quoted field may hold line breaks for at most this many lines (common practice, no source). */
@@ -1062,118 +1142,164 @@ export interface QuoteCheck {
  * reading starts again on the next line, so one stray quote never swallows the rows after it.
  */
 export function checkQuotes(text: string, delimiter: string): QuoteCheck {
-  const bad = new Map<number, { reason: string; message: string }>();
-  let continued = 0;
-  const n = text.length;
-  const d = delimiter;
-  const dl = d.length;
-  let headerFields = -1;
-  let pos = 0;
-  let line = 1;
-  const blanks: [number, number][] = [];
-  while (pos < n) {
-    // one record from pos, starting on physical line `line`
-    const recStart = pos;
-    const recLine = line;
-    let fields = 1;
-    let p = pos;
-    let lines = 1;
-    let ok = true;
-    let end = -1; // index of the record's line end (or n)
-    let openedAt = -1;
-    let invalid = false;
-    while (p <= n) {
-      // at a field start
-      if (p < n && text.charCodeAt(p) === 34) {
-        openedAt = p;
-        let q = p + 1;
-        let closed = false;
-        for (;;) {
-          const k = text.indexOf('"', q);
-          // line ends crossed before the next quote
-          const stop = k < 0 ? n : k;
-          for (let j = text.indexOf('\n', q); j >= 0 && j < stop; j = text.indexOf('\n', j + 1)) lines++;
-          if (k < 0 || lines > MAX_RECORD_LINES) break;
-          if (text.charCodeAt(k + 1) === 34) {
-            q = k + 2;
-            continue;
+  const scanner = new QuoteScanner(delimiter);
+  return { text: scanner.end(text), bad: scanner.bad, continued: scanner.continued };
+}
+
+/**
+ * checkQuotes on a text that arrives in pieces (a stream): `push` takes the next piece and gives back the text
+ * whose records are decided (unclosed quotes blanked, line ends kept), holding back the last
+ * MAX_RECORD_LINES + 2 lines, which the next piece may still change; `end` gives the rest. The pieces given
+ * back, joined, are what checkQuotes gives for the whole text, and `bad` fills as they are given.
+ */
+export class QuoteScanner {
+  /** Physical line (1-based) → reason and message, as QuoteCheck.bad; filled as records are decided. */
+  readonly bad = new Map<number, { reason: string; message: string }>();
+  /** Physical lines that continue a multi-line record. */
+  continued = 0;
+  private readonly d: string;
+  private headerFields = -1;
+  /** Physical line of the first character held back. */
+  private line = 1;
+  private held = '';
+
+  constructor(delimiter: string) {
+    this.d = delimiter;
+  }
+
+  /** The next piece of the text; returns the decided text before it (possibly empty). */
+  push(piece: string): string {
+    const text = this.held + piece;
+    // records may start only where MAX_RECORD_LINES + 2 line ends still follow (a record decides within them)
+    let limit = text.length;
+    for (let k = 0; k < MAX_RECORD_LINES + 2 && limit > 0; k++) limit = text.lastIndexOf('\n', limit - 1);
+    if (limit <= 0) {
+      this.held = text;
+      return '';
+    }
+    return this.scan(text, limit);
+  }
+
+  /** The last piece (may be empty): returns the rest of the decided text. */
+  end(piece = ''): string {
+    const text = this.held + piece;
+    this.held = '';
+    return this.scan(text, text.length);
+  }
+
+  /** Decide the records of `text` that start before `limit`; hold back the rest; return the decided text. */
+  private scan(text: string, limit: number): string {
+    const bad = this.bad;
+    const n = text.length;
+    const d = this.d;
+    const dl = d.length;
+    let pos = 0;
+    let line = this.line;
+    const blanks: [number, number][] = [];
+    while (pos < n && pos < limit) {
+      // one record from pos, starting on physical line `line`
+      const recStart = pos;
+      const recLine = line;
+      let fields = 1;
+      let p = pos;
+      let lines = 1;
+      let ok = true;
+      let end = -1; // index of the record's line end (or n)
+      let openedAt = -1;
+      let invalid = false;
+      while (p <= n) {
+        // at a field start
+        if (p < n && text.charCodeAt(p) === 34) {
+          openedAt = p;
+          let q = p + 1;
+          let closed = false;
+          for (;;) {
+            const k = text.indexOf('"', q);
+            // line ends crossed before the next quote
+            const stop = k < 0 ? n : k;
+            for (let j = text.indexOf('\n', q); j >= 0 && j < stop; j = text.indexOf('\n', j + 1)) lines++;
+            if (k < 0 || lines > MAX_RECORD_LINES) break;
+            if (text.charCodeAt(k + 1) === 34) {
+              q = k + 2;
+              continue;
+            }
+            let r = k + 1;
+            while (r < n && (text.charCodeAt(r) === 32 || text.charCodeAt(r) === 9)) r++;
+            if (r >= n || text.startsWith(d, r) || text.charCodeAt(r) === 10 || (text.charCodeAt(r) === 13 && text.charCodeAt(r + 1) === 10)) {
+              p = r;
+              closed = true;
+              break;
+            }
+            invalid = true; // a lone quote inside a quoted field (papaparse: InvalidQuotes)
+            q = k + 1;
           }
-          let r = k + 1;
-          while (r < n && (text.charCodeAt(r) === 32 || text.charCodeAt(r) === 9)) r++;
-          if (r >= n || text.startsWith(d, r) || text.charCodeAt(r) === 10 || (text.charCodeAt(r) === 13 && text.charCodeAt(r + 1) === 10)) {
-            p = r;
-            closed = true;
+          if (!closed) {
+            ok = false;
             break;
           }
-          invalid = true; // a lone quote inside a quoted field (papaparse: InvalidQuotes)
-          q = k + 1;
         }
-        if (!closed) {
-          ok = false;
-          break;
+        // unquoted rest of the field: to the delimiter or the line end
+        const nl = text.indexOf('\n', p);
+        const lineEnd = nl < 0 ? n : nl;
+        const dd = dl ? text.indexOf(d, p) : -1;
+        if (dd >= 0 && dd < lineEnd) {
+          fields++;
+          p = dd + dl;
+          continue;
+        }
+        end = lineEnd;
+        break;
+      }
+      if (ok && lines > 1) {
+        if (invalid || lines > MAX_RECORD_LINES || (this.headerFields >= 0 && fields !== this.headerFields)) ok = false;
+        else if (this.headerFields > 1 && dl > 0) {
+          // a line wholly inside the quoted field that holds a whole row's delimiters is a row swallowed by a stray quote
+          let a = text.indexOf('\n', recStart) + 1;
+          for (let b = text.indexOf('\n', a); ok && b >= 0 && b < end; a = b + 1, b = text.indexOf('\n', a)) {
+            let k = 0;
+            for (let j = text.indexOf(d, a); j >= 0 && j < b; j = text.indexOf(d, j + dl)) k++;
+            if (k >= this.headerFields - 1) ok = false;
+          }
         }
       }
-      // unquoted rest of the field: to the delimiter or the line end
-      const nl = text.indexOf('\n', p);
-      const lineEnd = nl < 0 ? n : nl;
-      const dd = dl ? text.indexOf(d, p) : -1;
-      if (dd >= 0 && dd < lineEnd) {
-        fields++;
-        p = dd + dl;
+      if (!ok) {
+        // reject the first line only; read on from the next
+        const nl = text.indexOf('\n', recStart);
+        const lineEnd = nl < 0 ? n : nl;
+        const col = openedAt >= 0 && openedAt < lineEnd ? openedAt - recStart + 1 : 1;
+        bad.set(recLine, {
+          reason: 'bad-quotes',
+          message: `unclosed quote (") at character ${col} runs past the end of its line; line skipped, the rest of the file is read (close or remove the quote)`,
+        });
+        blanks.push([recStart, lineEnd > recStart && text.charCodeAt(lineEnd - 1) === 13 ? lineEnd - 1 : lineEnd]);
+        pos = lineEnd + 1;
+        line = recLine + 1;
         continue;
       }
-      end = lineEnd;
-      break;
-    }
-    if (ok && lines > 1) {
-      if (invalid || lines > MAX_RECORD_LINES || (headerFields >= 0 && fields !== headerFields)) ok = false;
-      else if (headerFields > 1 && dl > 0) {
-        // a line wholly inside the quoted field that holds a whole row's delimiters is a row swallowed by a stray quote
-        let a = text.indexOf('\n', recStart) + 1;
-        for (let b = text.indexOf('\n', a); ok && b >= 0 && b < end; a = b + 1, b = text.indexOf('\n', a)) {
-          let k = 0;
-          for (let j = text.indexOf(d, a); j >= 0 && j < b; j = text.indexOf(d, j + dl)) k++;
-          if (k >= headerFields - 1) ok = false;
-        }
+      const blank = end === recStart || text.slice(recStart, end).trim() === '';
+      if (!blank && fields === 1 && lines === 1 && openedAt >= 0 && text.slice(recStart, end).replace(/"/g, '').trim() === '') {
+        // `""` alone: one empty cell, which would pass for a blank line
+        bad.set(recLine, { reason: 'empty-row', message: 'the line holds only an empty quoted cell; nothing to read' });
+        blanks.push([recStart, end > recStart && text.charCodeAt(end - 1) === 13 ? end - 1 : end]);
       }
+      if (this.headerFields < 0 && !blank) this.headerFields = fields;
+      if (lines > 1) this.continued += lines - 1;
+      pos = end + 1;
+      line = recLine + lines;
     }
-    if (!ok) {
-      // reject the first line only; read on from the next
-      const nl = text.indexOf('\n', recStart);
-      const lineEnd = nl < 0 ? n : nl;
-      const col = openedAt >= 0 && openedAt < lineEnd ? openedAt - recStart + 1 : 1;
-      bad.set(recLine, {
-        reason: 'bad-quotes',
-        message: `unclosed quote (") at character ${col} runs past the end of its line; line skipped, the rest of the file is read (close or remove the quote)`,
-      });
-      blanks.push([recStart, lineEnd > recStart && text.charCodeAt(lineEnd - 1) === 13 ? lineEnd - 1 : lineEnd]);
-      pos = lineEnd + 1;
-      line = recLine + 1;
-      continue;
-    }
-    const blank = end === recStart || text.slice(recStart, end).trim() === '';
-    if (!blank && fields === 1 && lines === 1 && openedAt >= 0 && text.slice(recStart, end).replace(/"/g, '').trim() === '') {
-      // `""` alone: one empty cell, which would pass for a blank line
-      bad.set(recLine, { reason: 'empty-row', message: 'the line holds only an empty quoted cell; nothing to read' });
-      blanks.push([recStart, end > recStart && text.charCodeAt(end - 1) === 13 ? end - 1 : end]);
-    }
-    if (headerFields < 0 && !blank) headerFields = fields;
-    if (lines > 1) continued += lines - 1;
-    pos = end + 1;
-    line = recLine + lines;
-  }
-  let out = text;
-  if (blanks.length) {
+    this.line = line;
+    const done = Math.min(pos, n);
+    this.held = done < n ? text.slice(done) : '';
+    if (blanks.length === 0) return done === n ? text : text.slice(0, done);
     const parts: string[] = [];
     let at = 0;
     for (const [a, b] of blanks) {
       parts.push(text.slice(at, a));
       at = b;
     }
-    parts.push(text.slice(at));
-    out = parts.join('');
+    parts.push(text.slice(at, done));
+    return parts.join('');
   }
-  return { text: out, bad, continued };
 }
 
 /** papaparse options in chunk mode (`chunk` is not in the synchronous `ParseConfig` type). */
@@ -1347,6 +1473,9 @@ export function readCsvBytes(
 
 /**
  * Read a CSV from a Node readable stream, calling `onObservation` for each parsed row (memory stays flat).
+ * The text goes through a QuoteScanner on its way to papaparse, so an unclosed quote rejects its line only
+ * (`bad-quotes`), as in readCsvText (the scanner takes the option's delimiter, or papaparse's guess from the
+ * first piece, as papaparse does).
  * Resolves with the report when the stream ends; rejects on stream errors and on errors thrown by
  * `onObservation` (bad data never throws: it is counted in the report).
  */
@@ -1359,15 +1488,39 @@ export function readCsvStream(
   const core = new CsvCore(file, opts, onObservation);
   const s = stream as NodeJS.ReadableStream & { setEncoding?: (e: BufferEncoding) => unknown };
   if (typeof s.setEncoding === 'function') s.setEncoding('utf8');
+  const decoder = new StringDecoder('utf8');
+  let scanner: QuoteScanner | null = null;
+  let delimiter = opts.delimiter;
+  const checked = new Transform({
+    transform(chunk: Buffer | string, _enc, done) {
+      let piece = typeof chunk === 'string' ? chunk : decoder.write(chunk);
+      if (scanner === null) {
+        if (piece === '') return done();
+        if (piece.charCodeAt(0) === 0xfeff) piece = piece.slice(1);
+        delimiter ??= guessFormat(piece, opts).delimiter;
+        scanner = new QuoteScanner(delimiter);
+        core.useQuoteScanner(scanner);
+      }
+      done(null, scanner.push(piece));
+    },
+    flush(done) {
+      const rest = decoder.end();
+      done(null, scanner === null ? rest : scanner.end(rest));
+    },
+  });
   return new Promise((resolve, reject) => {
     let done = false;
-    stream.on('error', (e) => {
+    const fail = (e: unknown) => {
       if (!done) {
         done = true;
         reject(e);
       }
-    });
-    Papa.parse(stream as unknown as string, {
+    };
+    stream.on('error', fail);
+    checked.on('error', fail);
+    checked.setEncoding('utf8');
+    stream.pipe(checked);
+    Papa.parse(checked as unknown as string, {
       ...papaConfig(opts, core),
       complete: () => {
         if (done) return;
@@ -1375,11 +1528,7 @@ export function readCsvStream(
         resolve(core.finish());
       },
       // an error thrown while handling rows (e.g. by the caller's callback) reaches papaparse's error hook
-      error: (e: unknown) => {
-        if (done) return;
-        done = true;
-        reject(e);
-      },
+      error: fail,
     } as unknown as Papa.ParseConfig<string[]>);
   });
 }

@@ -9,7 +9,7 @@ import { basename, extname, join } from 'node:path';
 import { newFileReport, UsageError, type FileReport, type Observation, type StationMeta } from '../model/index.js';
 import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarBytes } from './metar.js';
 import { readCsvBytes, type CsvOptions, type RawReportDecoded } from './csv.js';
-import { buildStationIndex, looksLikeStationsFile, readStationsText, stationFromFileName, type FileNameStation } from './stations.js';
+import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, stationFromFileName, type FileNameStation, type StationIndex } from './stations.js';
 import type { ColumnOverride } from './columns.js';
 import { compressionOf, expandBytes } from './decompress.js';
 import { isIsdHeaders, readIsdText } from './isd.js';
@@ -278,12 +278,14 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
 /**
  * Second pass: read every data file (METAR or CSV) and hand each observation to `onObservation`. The observation
  * object may be reused by the reader right after the call, so the sink copies what it keeps.
- * Returns the files' reports (in input order) and the station positions CSV rows carried.
+ * Returns the files' reports (in input order) and the station positions CSV rows carried. `index` (the stations
+ * file's) gives CSV files without a zone the `tz` of their stations.
  */
 export function readDataFiles(
   dataFiles: readonly DataFile[],
   opts: ReadOptions,
   onObservation: (o: Observation) => void,
+  index?: StationIndex,
 ): { reports: FileReport[]; positions: StationPositions } {
   const note = opts.onNote ?? (() => {});
   const reports: FileReport[] = [];
@@ -298,6 +300,8 @@ export function readDataFiles(
     decodeRawReport,
     ...(opts.timeWindow ? { timeWindow: opts.timeWindow } : {}),
   };
+  // the stations file's zones, for CSV times that give none (only when it lists any)
+  if (index !== undefined && [...index.byId.values()].some((m) => m.timeZone !== undefined)) csvOpts.stationZone = (id) => resolveStation(index, id).meta?.timeZone;
   const csvSinkOpts: CsvOptions = { ...csvOpts, reuseObservation: true };
   for (const f of dataFiles) {
     if (f.format === 'metar') {

@@ -4,14 +4,16 @@
  * Columns (names matched trimmed, case-insensitively): `id` (also station, icao, station_id, stid),
  * `lat`/`latitude`, `lon`/`lng`/`longitude`, `elevation_m` (also elevation, elev, elev_m; `elevation_ft`
  * / `elev_ft` in feet are converted, NIST SP 811 B.8: 1 ft = 0.3048 m), optional `name`, `alias`/`aliases`
- * (several separated by `;` or `|`), `coastal` (true/false/1/0/yes/no/y/n), `sea_bearing_deg`.
+ * (several separated by `;` or `|`), `coastal` (true/false/1/0/yes/no/y/n), `sea_bearing_deg`, `tz` (also
+ * time_zone, timezone: the IANA zone of the station's naive local times, for CSV files that give none).
  * Empty lat/lon/elevation cells are NaN (a station may be listed without coordinates).
  */
 import Papa from 'papaparse';
 import { addIssue, newFileReport, type FileReport, type StationMeta } from '../model/index.js';
 import { FOOT_M } from '../physics/constants.js';
+import { isKnownZone } from './time.js';
 
-type StationColumn = 'id' | 'lat' | 'lon' | 'elevationM' | 'elevationFt' | 'name' | 'alias' | 'coastal' | 'seaBearing';
+type StationColumn = 'id' | 'lat' | 'lon' | 'elevationM' | 'elevationFt' | 'name' | 'alias' | 'coastal' | 'seaBearing' | 'timeZone';
 
 const NAMES: Record<string, StationColumn> = {
   id: 'id', station: 'id', icao: 'id', station_id: 'id', stid: 'id', stationid: 'id', icao_id: 'id',
@@ -23,6 +25,7 @@ const NAMES: Record<string, StationColumn> = {
   alias: 'alias', aliases: 'alias', alt_id: 'alias', other_ids: 'alias',
   coastal: 'coastal', is_coastal: 'coastal',
   sea_bearing_deg: 'seaBearing', sea_bearing: 'seaBearing', sea_direction_deg: 'seaBearing',
+  tz: 'timeZone', time_zone: 'timeZone', timezone: 'timeZone',
 };
 
 function columnsOf(headers: readonly string[]): Partial<Record<StationColumn, number>> {
@@ -123,6 +126,11 @@ export function readStationsText(text: string, file: string): { stations: Statio
     if (c.seaBearing !== undefined) {
       const v = num(row[c.seaBearing], 'sea_bearing_deg', line, 0, 360);
       if (!Number.isNaN(v)) s.seaBearingDeg = v;
+    }
+    if (c.timeZone !== undefined) {
+      const z = row[c.timeZone]!.trim();
+      if (z !== '' && isKnownZone(z)) s.timeZone = z;
+      else if (z !== '') report.notes.push(`time zone "${z}" at line ${line} is not an IANA zone name (e.g. America/Toronto); ignored`);
     }
     stations.push(s);
     report.parsed++;

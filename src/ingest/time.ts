@@ -329,6 +329,14 @@ export interface TimeReader {
 }
 
 /**
+ * True for a zone name makeTimeReader accepts: an IANA tz database name or a name of UTC.
+ * @example isKnownZone('America/Halifax') // true
+ */
+export function isKnownZone(name: string): boolean {
+  return UTC_NAMES.has(name.trim().toLowerCase()) || IANAZone.isValidZone(name);
+}
+
+/**
  * Build an allocation-free time reader for fixed options; throws RangeError for an unknown zone or a bad offset.
  */
 export function makeTimeReader(opts: TimeOptions = {}): TimeReader {

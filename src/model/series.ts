@@ -20,13 +20,25 @@ export const SERIES_FIELDS = [
 ] as const;
 export type SeriesField = (typeof SERIES_FIELDS)[number];
 
+/** Why a conflicting report was kept over another of the same time (see SeriesBuilder.build). */
+export type DuplicateReason = 'correction' | 'more values' | 'report type' | 'values tie-break';
+
+/** Two reports of one station and time: which was kept, which dropped (or merged into the kept one), and why. */
 export interface DuplicateNote {
   timeMs: number;
-  /** What happened: `correction-replaced`, `identical-dropped`, `conflict-kept-last`. */
-  action: string;
+  /**
+   * What happened: `correction-replaced` (a COR kept over the report it corrects), `identical-dropped` (the same
+   * values again), `conflict-resolved` (different values: the preferred report kept, its gaps filled from the other).
+   */
+  action: 'correction-replaced' | 'identical-dropped' | 'conflict-resolved';
   keptLine: number;
   droppedLine: number;
+  /** File of the kept report. */
   file: string;
+  /** File of the dropped report (the same file, or another file of the same station). */
+  droppedFile: string;
+  /** For `conflict-resolved`: the rule that chose the kept report. */
+  reason?: DuplicateReason;
 }
 
 /** One Float64Array per numeric variable (canonical units, NaN = missing). */

@@ -13,4 +13,6 @@ export interface StationMeta {
   coastal?: boolean;
   /** Direction the sea lies toward, degrees true (onshore wind blows from it), when known. */
   seaBearingDeg?: number;
+  /** IANA zone of the station's naive local times (stations file `tz`), for CSV files that give no zone. */
+  timeZone?: string;
 }

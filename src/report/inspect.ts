@@ -16,7 +16,14 @@ export interface InspectStation {
   last: string | null;
   reports: number;
   median_cadence_min: number | null;
+  /** Reports dropped or merged because another report of the station had the same time (all kinds below). */
   duplicates: number;
+  /** Of these: repeats with the same values (counted, not listed). */
+  identical_duplicates: number;
+  /** Of these: reports replaced by their correction (COR). */
+  corrections: number;
+  /** Of these: reports with different values at the same time, each with the rule that chose the kept one. */
+  conflicts: InspectConflict[];
   observer_remarks: number;
   /** Flag counts keyed `field:test`. */
   qc_flags: Record<string, number>;
@@ -24,8 +31,19 @@ export interface InspectStation {
   lat: number | null;
   lon: number | null;
   elevation_m: number | null;
-  /** Files the station's observations came from. */
+  /** Files the station's observations came from (including reports dropped as duplicates). */
   files: string[];
+}
+
+/** Two reports of one station and time with different values: which was kept and why (SeriesBuilder.build). */
+export interface InspectConflict {
+  time: string;
+  kept_file: string;
+  kept_line: number;
+  dropped_file: string;
+  dropped_line: number;
+  /** The rule that chose: `correction`, `more values`, `report type` or `values tie-break`. */
+  reason: string;
 }
 
 /** One input file as inspect shows it (also the JSON shape; one object per file). */
@@ -61,13 +79,19 @@ export function inspectStation(s: StationSeries, qc?: QcSummary): InspectStation
     reports: s.length,
     median_cadence_min: roundOrNull(medianCadenceMinutes(s.timeMs), 1),
     duplicates: s.duplicates.length,
+    identical_duplicates: s.duplicates.filter((d) => d.action === 'identical-dropped').length,
+    corrections: s.duplicates.filter((d) => d.action === 'correction-replaced').length,
+    conflicts: s.duplicates
+      .filter((d) => d.action === 'conflict-resolved')
+      .map((d) => ({ time: isoUtc(d.timeMs) ?? '', kept_file: d.file, kept_line: d.keptLine, dropped_file: d.droppedFile, dropped_line: d.droppedLine, reason: d.reason ?? '' })),
     observer_remarks: s.remarks.length,
     qc_flags: { ...(qc?.flagged ?? {}) },
     qc_total: qc?.total ?? 0,
     lat: roundOrNull(m?.latDeg ?? NaN, 4),
     lon: roundOrNull(m?.lonDeg ?? NaN, 4),
     elevation_m: roundOrNull(m?.elevationM ?? NaN, 1),
-    files: [...s.files],
+    // also the files whose reports were all dropped as duplicates of reports in other files
+    files: [...new Set([...s.files, ...s.duplicates.map((d) => d.droppedFile)])],
   };
 }
 
@@ -98,6 +122,12 @@ export function buildInspect(reports: readonly FileReport[], series: readonly St
 /** `file:line: reason: message` */
 export function issueLine(i: ParseIssue): string {
   return `${i.file}:${i.line}: ${i.reason}: ${i.message}`;
+}
+
+/** `time: kept file:line over file:line (reason)` */
+export function conflictLine(c: InspectConflict): string {
+  const dropped = c.dropped_file === c.kept_file ? `line ${c.dropped_line}` : `${c.dropped_file}:${c.dropped_line}`;
+  return `${c.time}: kept ${c.kept_file}:${c.kept_line} over ${dropped} (${c.reason})`;
 }
 
 function coordinates(d: InspectStation): string {
@@ -144,6 +174,11 @@ export function inspectToTable(files: readonly InspectFile[], maxIssues = 5): st
     row('where', coordinates(d));
     row('period', `${d.first ?? '-'} to ${d.last ?? '-'}`);
     row('reports', `${d.reports}, median cadence ${d.median_cadence_min ?? '-'} min, ${d.duplicates} duplicate time(s), ${d.observer_remarks} observer remark(s)`);
+    if (d.conflicts.length) {
+      row('conflicts', `${d.conflicts.length} time(s) with differing reports (kept by rule, the other's values fill its gaps):`);
+      for (const c of d.conflicts.slice(0, maxIssues)) more(conflictLine(c));
+      if (d.conflicts.length > maxIssues) more(`… ${d.conflicts.length - maxIssues} more (--format json lists all)`);
+    }
     row('qc flags', d.qc_total === 0 ? 'none' : counts(d.qc_flags));
     out.push('');
   }
@@ -154,7 +189,7 @@ export function inspectToTable(files: readonly InspectFile[], maxIssues = 5): st
 /**
  * The one-line summary of a load that `inspect` ends with and `detect`, `verify` and `report` print on standard
  * error: files, lines parsed, rejected (by reason), stations, then what was assumed rather than read (with the
- * number of files) and the duplicate times resolved.
+ * number of files) and the duplicate times resolved (how many had differing values).
  * @example summaryLine(files) // '2 file(s), 120 line(s) parsed, 1 rejected (bad-time 1), 2 station(s); assumed: units by convention (2 files); 3 duplicate time(s)'
  */
 export function summaryLine(files: readonly InspectFile[]): string {
@@ -162,14 +197,17 @@ export function summaryLine(files: readonly InspectFile[]): string {
   const rejected = files.reduce((a, f) => a + f.rejected, 0);
   const reasons: Record<string, number> = {};
   for (const f of files) for (const [k, n] of Object.entries(f.rejected_by_reason)) reasons[k] = (reasons[k] ?? 0) + n;
-  const stations = new Map<string, number>();
-  for (const f of files) for (const d of f.station_details) if (!stations.has(d.station)) stations.set(d.station, d.duplicates);
+  const stations = new Map<string, InspectStation>();
+  for (const f of files) for (const d of f.station_details) if (!stations.has(d.station)) stations.set(d.station, d);
   const assumed = new Map<string, number>();
   for (const f of files) for (const a of f.assumed ?? []) assumed.set(a, (assumed.get(a) ?? 0) + 1);
-  const dups = [...stations.values()].reduce((a, n) => a + n, 0);
+  const dups = [...stations.values()].reduce((a, d) => a + d.duplicates, 0);
+  const conflicts = [...stations.values()].reduce((a, d) => a + d.conflicts.length, 0);
   let line = `${files.length} file(s), ${parsed} line(s) parsed, ${rejected} rejected${rejected > 0 ? ` (${counts(reasons)})` : ''}, ${stations.size} station(s)`;
+  const zoneless = reasons['needs-zone'] ?? 0;
+  if (zoneless > 0) line += `; ${zoneless} line(s) have local times and no zone: give --tz ZONE or --utc-offset MINUTES`;
   if (assumed.size) line += `; assumed: ${[...assumed].map(([a, n]) => `${a} (${n} file${n === 1 ? '' : 's'})`).join(', ')}`;
-  if (dups > 0) line += `; ${dups} duplicate time(s)`;
+  if (dups > 0) line += `; ${dups} duplicate time(s)${conflicts > 0 ? ` (${conflicts} with differing values, resolved by rule: inspect lists them)` : ''}`;
   return line;
 }
 

@@ -10,9 +10,9 @@ export { allocSeries, QC, SERIES_FIELDS, type SeriesField, type StationSeries, t
 
 /**
  * Build a sorted columnar series from one station's observations.
- * Duplicate times: a correction (COR) replaces the report it corrects; an identical repeat is dropped;
- * differing repeats keep the later line (METAR over SPECI at the same minute keeps the routine report's
- * values merged with any missing value filled from the other). Every duplicate is noted.
+ * Duplicate times are resolved as SeriesBuilder.build states (a COR over the report it corrects; identical
+ * repeats dropped; of differing reports the preferred one by an order-independent rule, gaps filled from the
+ * others). Every duplicate is noted.
  */
 export function buildSeries(station: string, observations: readonly Observation[], meta?: StationMeta): StationSeries {
   const b = new SeriesBuilder(() => station);

@@ -2,11 +2,11 @@
  * Typed sink for observations: readers hand each Observation to `SeriesBuilder.add`, which copies its
  * fields into the station's record chunks (Float64Array, one row of STRIDE values per report; chunks grow
  * without copying) and keeps nothing else, so the object may be reused by the caller right after the call.
- * `build` transposes one station's rows into the columns of a StationSeries with exactly the rules of
- * `buildSeries` (stable time sort, duplicate resolution, notes). Station ids can be resolved (aliases) as
+ * `build` transposes one station's rows into the columns of a StationSeries (time sort, duplicate
+ * resolution by an order-independent rule, notes); `buildSeries` is the same on an array of observations. Station ids can be resolved (aliases) as
  * rows arrive, once per distinct id.
  */
-import { allocSeries, type DuplicateNote, type FieldColumns, type Observation, type ObserverRemark, type StationMeta, type StationSeries } from '../model/index.js';
+import { allocSeries, SERIES_FIELDS, type DuplicateNote, type DuplicateReason, type FieldColumns, type Observation, type ObserverRemark, type StationMeta, type StationSeries } from '../model/index.js';
 
 const INITIAL_CAPACITY = 32;
 const MAX_CHUNK_ROWS = 2048;
@@ -242,10 +242,12 @@ export class SeriesBuilder {
   }
 
   /**
-   * The series of one station: sorted by time (stable: input order among equal times), duplicates
-   * resolved as in `buildSeries`: a correction (COR) replaces the report it corrects; a report repeated
-   * after its correction is dropped (`corrected-kept`); an identical repeat is dropped; differing repeats
-   * keep the later line with its gaps filled from the earlier one, weather OR-ed and remarks joined.
+   * The series of one station, sorted by time, one row per time. Reports of the same time are resolved by
+   * `preferRow`, from the reports alone (never from their order in the input): a correction (COR) is kept over
+   * the report it corrects (`correction-replaced`); a repeat with the same values is dropped
+   * (`identical-dropped`, counted); of reports with differing values the preferred one is kept, its gaps filled
+   * from the others in order of preference, weather OR-ed and remarks joined (`conflict-resolved`, with the
+   * rule that chose it). Every duplicate is noted with the file and line of both reports.
    */
   build(station: string, meta?: StationMeta): StationSeries {
     const c = this.byStation.get(station);
@@ -270,18 +272,14 @@ function buildFromColumns(station: string, c: Columns, files: readonly string[],
     if (b === a) distinct = false;
   }
   if (sorted && distinct) return copyColumns(station, c, files, meta);
-  let order: Int32Array;
-  if (sorted) {
-    order = new Int32Array(n);
-    for (let i = 0; i < n; i++) order[i] = i;
-  } else {
-    order = stableOrder(T, n);
-  }
+  // by time, and among equal times by preference (preferRow): the first row of each time is the one kept
+  const order = new Int32Array(n);
+  for (let i = 0; i < n; i++) order[i] = i;
+  order.sort((i, j) => T[i]! - T[j]! || preferRow(c, i, j));
   // Output rows: one per distinct time.
   let m = n === 0 ? 0 : 1;
   for (let k = 1; k < n; k++) if (T[order[k]!] !== T[order[k - 1]!]) m++;
   const s = allocSeries(station, m, meta);
-  const corrected = new Uint8Array(m);
   const weather = new Int32Array(m);
   const fileIndex = new Int32Array(m);
   const rowRemarks: (ObserverRemark[] | undefined)[] = new Array(m);
@@ -300,41 +298,35 @@ function buildFromColumns(station: string, c: Columns, files: readonly string[],
   const hasRemarks = c.remarkRows.length > 0;
   const duplicates: DuplicateNote[] = [];
   let k = -1;
+  /** The kept row of the current time. */
+  let best = -1;
   for (let q = 0; q < n; q++) {
     const idx = order[q]!;
     const t = T[idx]!;
     if (k >= 0 && s.timeMs[k] === t) {
-      const oc = c.corrected[idx] === 1;
-      const pc = corrected[k] === 1;
-      const file = files[c.fileIndex[idx]!]!;
-      if (oc && !pc) {
-        duplicates.push({ timeMs: t, action: 'correction-replaced', keptLine: c.line[idx]!, droppedLine: s.line[k]!, file });
-        writeRow(s, k, c, idx);
-        corrected[k] = 1;
-        weather[k] = c.weather[idx]!;
-        fileIndex[k] = c.fileIndex[idx]!;
-        if (hasRemarks) rowRemarks[k] = remarkOf(idx);
-      } else if (pc && !oc) {
-        duplicates.push({ timeMs: t, action: 'corrected-kept', keptLine: s.line[k]!, droppedLine: c.line[idx]!, file });
-      } else if (sameRow(s, k, c, idx)) {
-        duplicates.push({ timeMs: t, action: 'identical-dropped', keptLine: s.line[k]!, droppedLine: c.line[idx]!, file });
+      const note = (action: DuplicateNote['action'], reason?: DuplicateReason): DuplicateNote => {
+        const d: DuplicateNote = { timeMs: t, action, keptLine: c.line[best]!, droppedLine: c.line[idx]!, file: files[c.fileIndex[best]!]!, droppedFile: files[c.fileIndex[idx]!]! };
+        if (reason !== undefined) d.reason = reason;
+        return d;
+      };
+      if (c.corrected[best] === 1 && c.corrected[idx] !== 1) {
+        duplicates.push(note('correction-replaced'));
+      } else if (sameValues(c, best, idx)) {
+        duplicates.push(note('identical-dropped'));
       } else {
-        duplicates.push({ timeMs: t, action: 'conflict-kept-last', keptLine: c.line[idx]!, droppedLine: s.line[k]!, file });
-        mergeRow(s, k, c, idx);
-        corrected[k] = c.corrected[idx]!;
+        duplicates.push(note('conflict-resolved', preferenceReason(c, best, idx)));
+        fillGaps(s, k, c, idx);
         weather[k] = c.weather[idx]! | weather[k]!;
-        fileIndex[k] = c.fileIndex[idx]!;
-        // merged remarks: the earlier row's, then this row's (always a list, as buildSeries does)
-        const prev = hasRemarks ? rowRemarks[k] : undefined;
+        // remarks of both (always a list), in order of preference
         const mine = hasRemarks ? remarkOf(idx) : undefined;
-        rowRemarks[k] = [...(prev ?? []), ...(mine ?? [])];
+        rowRemarks[k] = [...(rowRemarks[k] ?? []), ...(mine ?? [])];
       }
       continue;
     }
     k++;
+    best = idx;
     s.timeMs[k] = t;
     writeRow(s, k, c, idx);
-    corrected[k] = c.corrected[idx]!;
     weather[k] = c.weather[idx]!;
     fileIndex[k] = c.fileIndex[idx]!;
     if (hasRemarks) rowRemarks[k] = remarkOf(idx);
@@ -350,11 +342,56 @@ function buildFromColumns(station: string, c: Columns, files: readonly string[],
   return s;
 }
 
-/** Stable order of row indices by time (input order among equal times). */
-function stableOrder(T: Float64Array, n: number): Int32Array {
-  const order = new Int32Array(n);
-  for (let i = 0; i < n; i++) order[i] = i;
-  return order.sort((i, j) => T[i]! - T[j]! || i - j);
+/** Rank of a report type (0 CSV, 1 METAR, 2 SPECI) when reports of one minute conflict: the routine METAR first, then a SPECI, then a CSV row. */
+const TYPE_RANK = [2, 0, 1];
+
+/** Values present in row i: the numeric fields that are not NaN, plus one for a present-weather report. */
+function elementCount(c: Columns, i: number): number {
+  let k = c.weather[i] !== 0 ? 1 : 0;
+  for (const f of SERIES_FIELDS) if (c[f][i] === c[f][i]) k++;
+  return k;
+}
+
+/**
+ * Which of two rows of one time is kept, decided from the rows alone, never from their order in the input:
+ * negative when row i is preferred. In turn: a correction (COR) over a report that is not one (FMH-1 §12);
+ * more values present (`elementCount`); the routine METAR over a SPECI over a CSV row; then, at the first of
+ * SERIES_FIELDS where the two differ, a value over a missing one, else the smaller value; then fewer weather
+ * bits, then the smaller pressure-trend code (the last three an arbitrary but fixed tie-break: common practice,
+ * no source). Rows equal in all of these differ in nothing the series keeps but file and line: the earlier
+ * file of the load, then the earlier line, is named as kept.
+ */
+function preferRow(c: Columns, i: number, j: number): number {
+  return (
+    c.corrected[j]! - c.corrected[i]! ||
+    elementCount(c, j) - elementCount(c, i) ||
+    TYPE_RANK[c.reportType[i]!]! - TYPE_RANK[c.reportType[j]!]! ||
+    compareValues(c, i, j) ||
+    c.fileIndex[i]! - c.fileIndex[j]! ||
+    c.line[i]! - c.line[j]! ||
+    i - j
+  );
+}
+
+/** The values tie-break of preferRow: negative when row i is preferred. */
+function compareValues(c: Columns, i: number, j: number): number {
+  for (const f of SERIES_FIELDS) {
+    const x = c[f][i]!;
+    const y = c[f][j]!;
+    if (same(x, y)) continue;
+    if (x !== x) return 1;
+    if (y !== y) return -1;
+    return x < y ? -1 : 1;
+  }
+  return c.weather[i]! - c.weather[j]! || c.pressureTrend[i]! - c.pressureTrend[j]!;
+}
+
+/** Why preferRow keeps row a over row b: the first of its rules that tells them apart. */
+function preferenceReason(c: Columns, a: number, b: number): DuplicateReason {
+  if (c.corrected[a] !== c.corrected[b]) return 'correction';
+  if (elementCount(c, a) !== elementCount(c, b)) return 'more values';
+  if (c.reportType[a] !== c.reportType[b]) return 'report type';
+  return 'values tie-break';
 }
 
 /** Station-local file table in order of first appearance among the kept rows. */
@@ -425,46 +462,16 @@ function writeRow(s: StationSeries, k: number, c: Columns, idx: number): void {
   s.line[k] = c.line[idx]!;
 }
 
-/** Row idx over series row k: its values where present, the earlier ones in its gaps. */
-function mergeRow(s: StationSeries, k: number, c: Columns, idx: number): void {
-  let v: number;
-  v = c.temperatureC[idx]!;
-  if (v === v) s.temperatureC[k] = v;
-  v = c.dewpointC[idx]!;
-  if (v === v) s.dewpointC[k] = v;
-  v = c.windDirDeg[idx]!;
-  if (v === v) s.windDirDeg[k] = v;
-  v = c.windSpeedMs[idx]!;
-  if (v === v) s.windSpeedMs[k] = v;
-  v = c.gustMs[idx]!;
-  if (v === v) s.gustMs[k] = v;
-  v = c.stationPressureHpa[idx]!;
-  if (v === v) s.stationPressureHpa[k] = v;
-  v = c.seaLevelPressureHpa[idx]!;
-  if (v === v) s.seaLevelPressureHpa[k] = v;
-  v = c.altimeterHpa[idx]!;
-  if (v === v) s.altimeterHpa[k] = v;
-  v = c.precipMm[idx]!;
-  if (v === v) s.precipMm[k] = v;
-  v = c.peakWindMs[idx]!;
-  if (v === v) s.peakWindMs[k] = v;
-  s.pressureTrend[k] = c.pressureTrend[idx]!;
-  s.reportType[k] = c.reportType[idx]!;
-  s.line[k] = c.line[idx]!;
+/** Fill the gaps (NaN) of series row k from row idx of the columns. */
+function fillGaps(s: StationSeries, k: number, c: Columns, idx: number): void {
+  for (const f of SERIES_FIELDS) {
+    const col = s[f];
+    if (col[k] !== col[k]) col[k] = c[f][idx]!;
+  }
 }
 
-/** The ten series values of row idx equal those of series row k (NaN equals NaN). */
-function sameRow(s: StationSeries, k: number, c: Columns, idx: number): boolean {
-  return (
-    same(s.temperatureC[k]!, c.temperatureC[idx]!) &&
-    same(s.dewpointC[k]!, c.dewpointC[idx]!) &&
-    same(s.windDirDeg[k]!, c.windDirDeg[idx]!) &&
-    same(s.windSpeedMs[k]!, c.windSpeedMs[idx]!) &&
-    same(s.gustMs[k]!, c.gustMs[idx]!) &&
-    same(s.stationPressureHpa[k]!, c.stationPressureHpa[idx]!) &&
-    same(s.seaLevelPressureHpa[k]!, c.seaLevelPressureHpa[idx]!) &&
-    same(s.altimeterHpa[k]!, c.altimeterHpa[idx]!) &&
-    same(s.precipMm[k]!, c.precipMm[idx]!) &&
-    same(s.peakWindMs[k]!, c.peakWindMs[idx]!)
-  );
+/** The ten series values of rows i and j are equal (NaN equals NaN). */
+function sameValues(c: Columns, i: number, j: number): boolean {
+  for (const f of SERIES_FIELDS) if (!same(c[f][i]!, c[f][j]!)) return false;
+  return true;
 }

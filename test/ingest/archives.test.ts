@@ -6,8 +6,12 @@
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { readFileSync } from 'node:fs';
+import { mkdtempSync, readFileSync, rmSync, writeFileSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
 import { readCsvText } from '../../src/ingest/csv.js';
+import { ecccProvince, ecccWeatherFlags } from '../../src/ingest/eccc.js';
+import { WX } from '../../src/model/index.js';
 import { loadPaths } from '../../src/pipeline.js';
 import { REALSKILL_DIR, realskillTest } from '../helpers/realdata.js';
 
@@ -38,6 +42,76 @@ test('ECCC hourly CSV: bracketed units, tens of degrees, kPa, LST as standard ti
   // without a zone the LST rows are counted as needing one, never dropped
   const z = readCsvText(text, 'e.csv', {});
   assert.equal(z.report.rejectedByReason, { 'needs-zone': 2 });
+});
+
+const ecccRowAt = (id: string, dt: string, weather: string) =>
+  `"-63.51","44.88","INVENTED FIELD","${id}","${dt}","${dt.slice(0, 4)}","${dt.slice(5, 7)}","${dt.slice(8, 10)}","${dt.slice(11)}","12.0","","8.0","","77","","","","18","","20","","","","100.50","","","","","","${weather}"`;
+
+test('ECCC hourly CSV without --tz: LST offset from the Climate ID province where it keeps one standard time', () => {
+  // Climate ID 8202250 (invented station, prefix 82 = Nova Scotia, from memory of the ECCC station inventory);
+  // Nova Scotia keeps Atlantic Standard Time, UTC−4 (IANA tz database, America/Halifax); LST all year, so July too
+  const text = [ECCC_HEADER, ecccRowAt('8202250', '2023-07-01 00:00', 'Rain'), ecccRowAt('8202250', '2023-07-01 01:00', 'NA')].join('\n') + '\n';
+  const r = readCsvText(text, 'en_climate_hourly_NS_8202250_07-2023_P1H.csv', {});
+  assert.is(r.report.parsed, 2);
+  assert.is(iso(r.observations[0]!.timeMs), '2023-07-01T04:00:00.000Z');
+  assert.ok(r.report.assumed?.includes('standard time from the ECCC Climate ID province'));
+  assert.ok(r.report.notes.some((n) => n === 'Climate ID 8202250: Nova Scotia, LST read as UTC−4'), r.report.notes.join('\n'));
+  // an offset given wins over the province (UTC−5 given: 05:00 UTC)
+  assert.is(iso(readCsvText(text, 'e.csv', { offsetMinutes: -300 }).observations[0]!.timeMs), '2023-07-01T05:00:00.000Z');
+  // Ontario (prefix 6) keeps Eastern and Central standard time: its rows still need a zone, and the note says why
+  const on = readCsvText([ECCC_HEADER, ecccRowAt('6105978', '2023-07-01 00:00', '')].join('\n') + '\n', 'e.csv', {});
+  assert.equal(on.report.rejectedByReason, { 'needs-zone': 1 });
+  assert.ok(on.report.notes.some((n) => n.startsWith('Climate ID 6105978: Ontario keeps more than one standard time; its rows need --utc-offset')));
+});
+
+test('loadPaths: naive CSV times take the zone the stations file gives the station (tz), before the Climate ID rule', () => {
+  // invented files; zones and offsets from the IANA tz database (America/Toronto: EST UTC−5, EDT UTC−4)
+  const dir = mkdtempSync(join(tmpdir(), 'fropa-zone-'));
+  writeFileSync(join(dir, 'stations.csv'), 'id,lat,lon,tz\n6105978,45.38,-75.72,America/Toronto\nXGEN,45,-75,America/Toronto\n');
+  writeFileSync(join(dir, 'eccc.csv'), [ECCC_HEADER, ecccRow('2023-07-01 00:00', '20.5', '27', '36', '99.80')].join('\n') + '\n');
+  writeFileSync(join(dir, 'XGEN_2023.csv'), 'time,temp_c\n2023-07-01 00:00,20\n');
+  const r = loadPaths([dir]);
+  const t = (id: string) => iso(r.series.find((s) => s.station === id)!.timeMs[0]!);
+  assert.is(t('6105978'), '2023-07-01T05:00:00.000Z'); // LST: Eastern Standard Time all year, UTC−5
+  assert.is(t('XGEN'), '2023-07-01T04:00:00.000Z'); // a plain naive time: EDT in July, UTC−4
+  const eccc = r.reports.find((x) => x.file.endsWith('eccc.csv'))!;
+  assert.ok(eccc.notes.includes("station 6105978: naive times read in America/Toronto standard time (the stations file's tz)"), eccc.notes.join('\n'));
+  assert.ok(eccc.assumed?.includes('zone from the stations file'));
+  rmSync(dir, { recursive: true });
+});
+
+test('ECCC Weather words give the WX flags of the matching METAR groups (code table 4678); unknown words are counted', () => {
+  // words from memory of the ECCC historical climate data glossary ("Weather"); groups per WMO-No. 306 code table 4678
+  const cases: [string, number][] = [
+    ['Rain', WX.RAIN | WX.PRECIP],
+    ['Snow Showers', WX.SNOW | WX.SHOWER | WX.PRECIP],
+    ['Thunderstorms', WX.THUNDER],
+    ['Freezing Rain,Fog', WX.FREEZING | WX.RAIN | WX.PRECIP | WX.FOG],
+    ['Heavy Snow', WX.HEAVY | WX.SNOW | WX.PRECIP],
+    ['Moderate Rain,Drizzle', WX.RAIN | WX.DRIZZLE | WX.PRECIP],
+    ['Ice Pellets', WX.ICE_PELLETS | WX.PRECIP],
+    ['Mostly Cloudy', 0],
+    ['NA', 0],
+  ];
+  for (const [w, flags] of cases) assert.is(ecccWeatherFlags(w).flags, flags, w);
+  assert.equal(ecccWeatherFlags('Rain,Volcanic Glitter').unknown, ['Volcanic Glitter']);
+  const rows = [ECCC_HEADER, ecccRowAt('5023222', '2023-01-05 06:00', 'Snow,Blowing Snow'), ecccRowAt('5023222', '2023-01-05 07:00', 'Sparkles')];
+  const r = readCsvText(rows.join('\n') + '\n', 'e.csv', {});
+  assert.is(r.report.parsed, 2);
+  assert.is(r.observations[0]!.weather, WX.SNOW | WX.PRECIP);
+  assert.is(r.observations[1]!.weather, 0);
+  // Manitoba keeps Central Standard Time, UTC−6 (IANA tz database, America/Winnipeg)
+  assert.is(iso(r.observations[0]!.timeMs), '2023-01-05T12:00:00.000Z');
+  assert.ok(r.report.notes.some((n) => n.startsWith('unknown-words in weather: 1 value (first at line 3: "Sparkles")')), r.report.notes.join('\n'));
+});
+
+test('ecccProvince(id): the province a climate identifier names, its one standard offset or null', () => {
+  // prefixes from memory of the ECCC station inventory (module comment of src/ingest/eccc.ts)
+  assert.equal(ecccProvince('3031093'), { code: 'AB', name: 'Alberta', standardOffsetMinutes: -420 });
+  assert.equal(ecccProvince('8300300')?.code, 'PE');
+  assert.is(ecccProvince('1108447')?.standardOffsetMinutes, null); // British Columbia: Pacific and Mountain
+  assert.is(ecccProvince('9999999'), null);
+  assert.is(ecccProvince('ABC'), null);
 });
 
 // IEM ASOS download (mesonet.agron.iastate.edu/request/download.phtml, its option list, from memory): `valid` UTC

@@ -1,11 +1,11 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { readFileSync } from 'node:fs';
+import { createReadStream, readFileSync } from 'node:fs';
 import { Readable } from 'node:stream';
 import { assertClose } from '../helpers/assert.js';
 import { REALDATA_DIR, realdataTest } from '../helpers/realdata.js';
 import fc from 'fast-check';
-import { CsvCore, decimalValue, readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
+import { checkQuotes, CsvCore, decimalValue, QuoteScanner, readCsvStream, readCsvText, weatherFlagsFromCodes, type RawReportDecoded } from '../../src/ingest/csv.js';
 import { parseColumnOverride } from '../../src/ingest/columns.js';
 import { WX, type Observation } from '../../src/model/index.js';
 
@@ -315,6 +315,49 @@ test('readCsvText() over 1 MiB reads in blocks: row numbers and issues as a stre
   const noMessage = (x: typeof r.report) => ({ ...x, issues: x.issues.map((i) => ({ ...i, message: '' })) });
   assert.equal(noMessage(s.report), noMessage(r.report));
   assert.equal(got, r.observations);
+});
+
+// The stray-quote files of the bad-input corpus (test/fixtures/bad/cases.json; RFC 4180 §2 rules 5–7, the one-line
+// rule is this project's): through the stream path in pieces of 7 bytes to 4 KiB, the same report and rows as the text path.
+test('readCsvStream() rejects an unclosed quote on its line only (bad-quotes), exactly as readCsvText does', async () => {
+  for (const name of ['csv-unclosed-quote.csv', 'csv-two-stray-quotes.csv', 'csv-multiline-quoted-field.csv']) {
+    const path = 'test/fixtures/bad/' + name;
+    const ref = readCsvText(readFileSync(path, 'utf8'), path, {});
+    for (const highWaterMark of [7, 64, 4096]) {
+      const got: Observation[] = [];
+      const r = await readCsvStream(createReadStream(path, { highWaterMark }), path, {}, (o) => got.push(o));
+      assert.equal(r.report, ref.report, `${name} in pieces of ${highWaterMark}`);
+      assert.equal(got, ref.observations, `${name} in pieces of ${highWaterMark}`);
+    }
+  }
+  // cases.json: csv-unclosed-quote.csv loses only its line 11 (500 lines, 498 rows parsed)
+  const r = await readCsvStream(createReadStream('test/fixtures/bad/csv-unclosed-quote.csv', { highWaterMark: 512 }), 'u.csv', {}, () => {});
+  assert.equal([r.report.parsed, r.report.rejectedByReason, r.report.issues[0]!.line], [498, { 'bad-quotes': 1 }, 11]);
+});
+
+test('QuoteScanner: the pieces it gives back, joined, are what checkQuotes gives for the whole text (fast-check)', () => {
+  // invented rows with quoted cells, stray quotes, doubled quotes and quoted line breaks (RFC 4180 §2 rules 5–7)
+  const cell = fc.constantFrom('A', '1.5', '"q"', '"a,b"', '"x""y"', '"two\nlines"', '"', 'z"', '""', '');
+  const row = fc.array(cell, { minLength: 1, maxLength: 4 }).map((cs) => cs.join(','));
+  fc.assert(
+    fc.property(fc.array(row, { minLength: 1, maxLength: 160 }), fc.array(fc.integer({ min: 1, max: 300 }), { minLength: 1, maxLength: 20 }), (rows, cuts) => {
+      const text = 'station,valid,tmpc\n' + rows.join('\n') + '\n';
+      const whole = checkQuotes(text, ',');
+      const scanner = new QuoteScanner(',');
+      let out = '';
+      let at = 0;
+      for (let i = 0; at < text.length; i++) {
+        const next = Math.min(text.length, at + cuts[i % cuts.length]!);
+        out += scanner.push(text.slice(at, next));
+        at = next;
+      }
+      out += scanner.end();
+      assert.is(out, whole.text);
+      assert.equal([...scanner.bad], [...whole.bad]);
+      assert.is(scanner.continued, whole.continued);
+    }),
+    { numRuns: 300, seed: 20261204 },
+  );
 });
 
 // papaparse chunk-mode results (papaparse 5 source, Parser: errors carry `row`, the index in the block's rows;

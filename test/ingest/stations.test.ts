@@ -37,6 +37,13 @@ test('readStationsText() reads aliases, coastal flags, sea bearing and elevation
   assert.equal(report.rejectedByReason, { 'duplicate-station': 1, 'no-id': 1 });
 });
 
+test('readStationsText() reads a tz column (IANA zone names); a name that is not one is noted and ignored', () => {
+  // zone names from the IANA tz database (zone1970.tab); invented stations
+  const { stations, report } = readStationsText('id,lat,lon,tz\nXAAA,44.6,-63.5,America/Halifax\nXBBB,45.4,-75.7,Mars/Olympus\nXCCC,1,2,\n', 's.csv');
+  assert.equal(stations.map((s) => s.timeZone), ['America/Halifax', undefined, undefined]);
+  assert.ok(report.notes.includes('time zone "Mars/Olympus" at line 3 is not an IANA zone name (e.g. America/Toronto); ignored'));
+});
+
 test('resolveStation() maps a 3-letter id to the unique K or P ICAO id, and not when ambiguous', () => {
   const meta = (id: string, aliases: string[] = []) => ({ id, aliases, latDeg: 0, lonDeg: 0, elevationM: 0 });
   const idx = buildStationIndex([meta('KDEN'), meta('PANC'), meta('KHNL'), meta('PHNL'), meta('EGLL', ['LHR']), meta('KAAA', ['DUP']), meta('KBBB', ['DUP'])]);

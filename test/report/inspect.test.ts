@@ -53,4 +53,26 @@ test('inspectToTable: rejections with the first issues and a count of the rest; 
   assert.match(text, 'qc flags   none');
   assert.ok(text.trimEnd().endsWith('1 file(s), 3 line(s) parsed, 7 rejected (truncated 7), 2 station(s)'), text.trimEnd().split('\n').pop());
 });
+test('inspect lists each conflicting duplicate (both files and lines, which kept, why) and counts identical ones', () => {
+  // layout fixture: the notes SeriesBuilder.build writes (invented lines)
+  const r = newFileReport('obs.csv', 'csv');
+  r.lines = 6;
+  r.parsed = 5;
+  const s = series();
+  const t = Date.UTC(2026, 2, 4, 0, 20);
+  s.duplicates = [
+    { timeMs: t, action: 'conflict-resolved', reason: 'more values', keptLine: 4, droppedLine: 3, file: 'obs.csv', droppedFile: 'obs.csv' },
+    { timeMs: t, action: 'identical-dropped', keptLine: 4, droppedLine: 5, file: 'obs.csv', droppedFile: 'obs.csv' },
+    { timeMs: t, action: 'correction-replaced', keptLine: 6, droppedLine: 2, file: 'obs.csv', droppedFile: 'old.csv' },
+  ];
+  const files = buildInspect([r], [s], new Map());
+  const d = files[0]!.station_details[0]!;
+  assert.equal([d.duplicates, d.identical_duplicates, d.corrections], [3, 1, 1]);
+  assert.equal(d.conflicts, [{ time: '2026-03-04T00:20:00Z', kept_file: 'obs.csv', kept_line: 4, dropped_file: 'obs.csv', dropped_line: 3, reason: 'more values' }]);
+  const text = inspectToTable(files);
+  assert.match(text, 'conflicts  1 time(s) with differing reports');
+  assert.match(text, '2026-03-04T00:20:00Z: kept obs.csv:4 over line 3 (more values)');
+  assert.ok(text.trimEnd().endsWith('; 3 duplicate time(s) (1 with differing values, resolved by rule: inspect lists them)'), text.trimEnd().split('\n').pop());
+});
+
 test.run();

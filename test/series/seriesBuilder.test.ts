@@ -12,34 +12,70 @@ import { buildSeries } from '../../src/series/series.js';
 import { SeriesBuilder } from '../../src/series/seriesBuilder.js';
 
 const REPORT_TYPE: Record<string, number> = { CSV: 0, METAR: 1, SPECI: 2 };
+/** The routine report first, then a special, then a CSV row (the builder's stated rule). */
+const TYPE_ORDER: Record<string, number> = { METAR: 0, SPECI: 1, CSV: 2 };
 
-/** The object-based reference: stable sort by time, then resolve duplicates against the last kept report. */
+/**
+ * The object-based reference, written from the rule as SeriesBuilder.build states it: reports grouped by time;
+ * in each group the preferred report is kept (COR first, FMH-1 §12; then more values present; METAR, SPECI,
+ * CSV; then the values themselves; the rest common practice, no source); the others are corrections' originals,
+ * identical repeats, or conflicts whose values fill the kept report's gaps.
+ */
 function referenceSeries(station: string, obs: readonly Observation[]): StationSeries {
-  const order = obs.map((_, i) => i).sort((i, j) => obs[i]!.timeMs - obs[j]!.timeMs || i - j);
+  const fileOrder = new Map<string, number>();
+  for (const o of obs) if (!fileOrder.has(o.file)) fileOrder.set(o.file, fileOrder.size);
+  const present = (o: Observation) => SERIES_FIELDS.filter((f) => !Number.isNaN(o[f])).length + (o.weather !== 0 ? 1 : 0);
+  const values = (a: Observation, b: Observation): number => {
+    for (const f of SERIES_FIELDS) {
+      const x = a[f];
+      const y = b[f];
+      if (x === y || (Number.isNaN(x) && Number.isNaN(y))) continue;
+      if (Number.isNaN(x)) return 1;
+      if (Number.isNaN(y)) return -1;
+      return x < y ? -1 : 1;
+    }
+    return a.weather - b.weather || a.pressureTrend - b.pressureTrend;
+  };
+  const prefer = (i: number, j: number): number => {
+    const a = obs[i]!;
+    const b = obs[j]!;
+    return (
+      Number(b.corrected) - Number(a.corrected) ||
+      present(b) - present(a) ||
+      TYPE_ORDER[a.source]! - TYPE_ORDER[b.source]! ||
+      values(a, b) ||
+      fileOrder.get(a.file)! - fileOrder.get(b.file)! ||
+      a.line - b.line ||
+      i - j
+    );
+  };
+  const reason = (a: Observation, b: Observation): DuplicateNote['reason'] =>
+    a.corrected !== b.corrected ? 'correction' : present(a) !== present(b) ? 'more values' : a.source !== b.source ? 'report type' : 'values tie-break';
+  const order = obs.map((_, i) => i).sort((i, j) => obs[i]!.timeMs - obs[j]!.timeMs || prefer(i, j));
   const kept: Observation[] = [];
   const duplicates: DuplicateNote[] = [];
   const same = (a: Observation, b: Observation) => SERIES_FIELDS.every((f) => a[f] === b[f] || (Number.isNaN(a[f]) && Number.isNaN(b[f])));
+  let best: Observation | undefined;
   for (const idx of order) {
     const o = obs[idx]!;
     const prev = kept[kept.length - 1];
-    if (prev && prev.timeMs === o.timeMs) {
-      if (o.corrected && !prev.corrected) {
-        kept[kept.length - 1] = o;
-        duplicates.push({ timeMs: o.timeMs, action: 'correction-replaced', keptLine: o.line, droppedLine: prev.line, file: o.file });
-      } else if (prev.corrected && !o.corrected) {
-        duplicates.push({ timeMs: o.timeMs, action: 'corrected-kept', keptLine: prev.line, droppedLine: o.line, file: o.file });
-      } else if (same(prev, o)) {
-        duplicates.push({ timeMs: o.timeMs, action: 'identical-dropped', keptLine: prev.line, droppedLine: o.line, file: o.file });
+    if (prev && best && prev.timeMs === o.timeMs) {
+      const note = { timeMs: o.timeMs, keptLine: best.line, droppedLine: o.line, file: best.file, droppedFile: o.file };
+      if (best.corrected && !o.corrected) {
+        duplicates.push({ ...note, action: 'correction-replaced' });
+      } else if (same(best, o)) {
+        duplicates.push({ ...note, action: 'identical-dropped' });
       } else {
-        const merged: Observation = { ...o };
-        for (const f of SERIES_FIELDS) if (Number.isNaN(merged[f])) merged[f] = prev[f];
-        merged.weather |= prev.weather;
+        const merged: Observation = { ...prev };
+        for (const f of SERIES_FIELDS) if (Number.isNaN(merged[f])) merged[f] = o[f];
+        merged.weather |= o.weather;
         merged.remarks = [...(prev.remarks ?? []), ...(o.remarks ?? [])];
         kept[kept.length - 1] = merged;
-        duplicates.push({ timeMs: o.timeMs, action: 'conflict-kept-last', keptLine: o.line, droppedLine: prev.line, file: o.file });
+        duplicates.push({ ...note, action: 'conflict-resolved', reason: reason(best, o) });
       }
       continue;
     }
+    best = o;
     kept.push(o);
   }
   const s = allocSeries(station, kept.length);

@@ -1,0 +1,133 @@
+/**
+ * Conventions of the Environment and Climate Change Canada (ECCC) hourly CSV (climate.weather.gc.ca bulk
+ * download) that the CSV reader needs beyond its column names (columns.ts):
+ * - `Date/Time (LST)` is local standard time all year. The file gives no zone, but its `Climate ID` does
+ *   name the province: ECCC climate identifiers are seven characters whose first one or two give the
+ *   province or territory (from memory of the ECCC station inventory; not re-checked against a printed
+ *   source). A province gives the UTC offset only where all of it keeps one standard time; the others
+ *   (British Columbia, Saskatchewan's Lloydminster area, Ontario, Quebec, Newfoundland and Labrador, Yukon,
+ *   Nunavut) still need `--tz` or `--utc-offset`. Longitude is never used as a zone.
+ * - `Weather` holds words ("Rain", "Snow Showers", "Freezing Rain,Fog"), read here into the WX flags the
+ *   METAR decoder gives the matching WMO-No. 306 code table 4678 groups (words and their meaning from
+ *   memory of the ECCC historical climate data glossary, "Weather").
+ */
+import { WX } from '../model/index.js';
+import { weatherFlags } from './metar/weather.js';
+
+/** A province or territory as a climate identifier names it. */
+export interface EcccProvince {
+  /** Two-letter postal abbreviation. */
+  code: string;
+  name: string;
+  /** Its one standard time as minutes east of UTC, or null when it keeps more than one. */
+  standardOffsetMinutes: number | null;
+}
+
+/**
+ * Leading characters of a climate identifier → province (from memory, see the module comment). Standard
+ * offsets: Mountain −7 h, Central −6 h, Atlantic −4 h (IANA tz database: America/Edmonton, America/Winnipeg,
+ * America/Halifax, America/Moncton, America/Yellowknife).
+ */
+const PROVINCES: readonly [prefix: string, p: EcccProvince][] = [
+  ['1', { code: 'BC', name: 'British Columbia', standardOffsetMinutes: null }],
+  ['21', { code: 'YT', name: 'Yukon', standardOffsetMinutes: null }],
+  ['22', { code: 'NT', name: 'Northwest Territories', standardOffsetMinutes: -420 }],
+  ['23', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null }],
+  ['24', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null }],
+  ['25', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null }],
+  ['3', { code: 'AB', name: 'Alberta', standardOffsetMinutes: -420 }],
+  ['4', { code: 'SK', name: 'Saskatchewan', standardOffsetMinutes: null }],
+  ['5', { code: 'MB', name: 'Manitoba', standardOffsetMinutes: -360 }],
+  ['6', { code: 'ON', name: 'Ontario', standardOffsetMinutes: null }],
+  ['7', { code: 'QC', name: 'Quebec', standardOffsetMinutes: null }],
+  ['81', { code: 'NB', name: 'New Brunswick', standardOffsetMinutes: -240 }],
+  ['82', { code: 'NS', name: 'Nova Scotia', standardOffsetMinutes: -240 }],
+  ['83', { code: 'PE', name: 'Prince Edward Island', standardOffsetMinutes: -240 }],
+  ['84', { code: 'NL', name: 'Newfoundland and Labrador', standardOffsetMinutes: null }],
+];
+
+/**
+ * The province or territory an ECCC climate identifier names (seven characters, the first a digit), or null.
+ * @example ecccProvince('8202250') // { code: 'NS', name: 'Nova Scotia', standardOffsetMinutes: -240 }
+ */
+export function ecccProvince(climateId: string): EcccProvince | null {
+  const id = climateId.trim().toUpperCase();
+  if (!/^[0-9][0-9A-Z]{6}$/.test(id)) return null;
+  for (const [prefix, p] of PROVINCES) if (id.startsWith(prefix)) return p;
+  return null;
+}
+
+/** ECCC `Date/Time (LST)` headers and a `Climate ID` column: the hourly layout. */
+export function isEcccHeaders(headers: readonly string[]): boolean {
+  let climateId = false;
+  let lst = false;
+  for (const h of headers) {
+    const t = h.trim().toLowerCase();
+    if (t === 'climate id' || t === 'climate_id') climateId = true;
+    if (t === 'date/time (lst)') lst = true;
+  }
+  return climateId && lst;
+}
+
+/** ECCC weather words (lower case) → the FM 15 group they stand for (code table 4678). */
+const WORDS: Record<string, string> = {
+  rain: 'RA',
+  'rain showers': 'SHRA',
+  drizzle: 'DZ',
+  'freezing rain': 'FZRA',
+  'freezing drizzle': 'FZDZ',
+  snow: 'SN',
+  'snow showers': 'SHSN',
+  'snow grains': 'SG',
+  'snow pellets': 'GS',
+  'ice pellets': 'PL',
+  'ice pellet showers': 'SHPL',
+  'ice crystals': 'IC',
+  hail: 'GR',
+  thunderstorms: 'TS',
+  thunderstorm: 'TS',
+  fog: 'FG',
+  'freezing fog': 'FZFG',
+  'ice fog': 'FG',
+  haze: 'HZ',
+  smoke: 'FU',
+  dust: 'DU',
+  'blowing dust': 'BLDU',
+  'blowing snow': 'BLSN',
+  'drifting snow': 'DRSN',
+  'funnel cloud': 'FC',
+  tornado: '+FC',
+  waterspout: 'FC',
+  squalls: 'SQ',
+};
+
+/** Sky states and markers that carry no present weather. */
+const NO_WEATHER = new Set(['clear', 'mainly clear', 'mostly cloudy', 'cloudy', 'na', '']);
+
+/**
+ * WX flags of an ECCC `Weather` cell: comma-separated words, each optionally after `Light`, `Moderate` or
+ * `Heavy` (`Heavy` adds WX.HEAVY, as `+` does in a METAR group). Words it does not know are returned, to be
+ * counted by the caller.
+ * @example ecccWeatherFlags('Freezing Rain,Fog').flags // WX.FREEZING | WX.RAIN | WX.PRECIP | WX.FOG
+ */
+export function ecccWeatherFlags(text: string): { flags: number; unknown: string[] } {
+  let flags = 0;
+  const unknown: string[] = [];
+  for (const part of text.split(',')) {
+    let w = part.trim().toLowerCase().replace(/\s+/g, ' ');
+    if (NO_WEATHER.has(w)) continue;
+    let heavy = false;
+    const m = /^(light|moderate|heavy) (.*)$/.exec(w);
+    if (m) {
+      heavy = m[1] === 'heavy';
+      w = m[2]!;
+    }
+    const code = WORDS[w];
+    if (code === undefined) {
+      unknown.push(part.trim());
+      continue;
+    }
+    flags |= weatherFlags(code, 0, code.length) | (heavy ? WX.HEAVY : 0);
+  }
+  return { flags, unknown };
+}
