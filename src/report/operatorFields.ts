@@ -7,6 +7,7 @@
 import { WX, type OperatorFields, type PassageEvent, type PrecipType, type PressureSource, type RunwayComponents, type StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { choosePressure } from '../detect/grid.js';
+import { lowerBound } from '../detect/features.js';
 import { median } from '../signal/median.js';
 import { stationPressureFromAltimeterHpa } from '../physics/pressure.js';
 import { detectStation } from '../detect/detect.js';
@@ -81,25 +82,13 @@ function stationColumns(s: StationSeries): StationColumns {
 
 /**
  * Indices [a, b) holding every time in [fromMs, toMs] of a sorted series (the whole series when it is not
- * sorted or a bound is not finite); callers still test each time against their window's own ends.
+ * sorted or a bound is not finite); callers still test each time against their window's own ends, so a
+ * wider range only costs time (the upper end is the first time at or past toMs + 1 ms, past every time ≤ toMs).
  */
 function indexRange(c: StationColumns, fromMs: number, toMs: number): [number, number] {
-  const t = c.s.timeMs, n = c.s.length;
-  if (!c.sorted || !Number.isFinite(fromMs) || !Number.isFinite(toMs)) return [0, n];
-  let lo = 0, hi = n;
-  while (lo < hi) {
-    const m = (lo + hi) >> 1;
-    if (t[m]! < fromMs) lo = m + 1;
-    else hi = m;
-  }
-  const a = lo;
-  hi = n;
-  while (lo < hi) {
-    const m = (lo + hi) >> 1;
-    if (t[m]! <= toMs) lo = m + 1;
-    else hi = m;
-  }
-  return [a, lo];
+  if (!c.sorted || !Number.isFinite(fromMs) || !Number.isFinite(toMs)) return [0, c.s.length];
+  const t = c.s.length === c.s.timeMs.length ? c.s.timeMs : c.s.timeMs.subarray(0, c.s.length);
+  return [lowerBound(t, fromMs), lowerBound(t, toMs + 1)];
 }
 
 /**
