@@ -69,27 +69,6 @@ export function fitPlane(pts: readonly { x: number; y: number; t: number }[], w?
   return { t0: p.mean - p.dfdx * p.meanX - p.dfdy * p.meanY, sx: p.dfdx, sy: p.dfdy };
 }
 
-/**
- * {@link fitPlane} of exactly three points, without allocating: the same sums in the same order as
- * `leastSquaresPlane` with unit weights (so the same plane to the last bit), for the tracker's inner loop.
- */
-function fitPlane3(a: Point, b: Point, c: Point): Plane | null {
-  const mx = (a.x + b.x + c.x) / 3, my = (a.y + b.y + c.y) / 3, mf = (a.t + b.t + c.t) / 3;
-  let sxx = 0, sxy = 0, syy = 0, sxf = 0, syf = 0;
-  for (const p of [a, b, c]) {
-    const dx = p.x - mx, dy = p.y - my, df = p.t - mf;
-    sxx += dx * dx;
-    sxy += dx * dy;
-    syy += dy * dy;
-    sxf += dx * df;
-    syf += dy * df;
-  }
-  const det = sxx * syy - sxy * sxy;
-  if (!(Math.abs(det) > PLANE_DEGENERATE_RATIO * (sxx + syy) * (sxx + syy))) return null;
-  const dfdx = (sxf * syy - syf * sxy) / det, dfdy = (syf * sxx - sxf * sxy) / det;
-  return { t0: mf - dfdx * mx - dfdy * my, sx: dfdx, sy: dfdy };
-}
-
 /** Speed (km/h) and direction of motion (degrees true) from a slowness vector in h/km. */
 export function motionFromSlowness(sx: number, sy: number): { speedKmh: number; directionDeg: number } {
   const m = Math.hypot(sx, sy);
@@ -214,7 +193,7 @@ export function trackFronts(events: readonly PassageEvent[], stations: readonly 
       if (pts.length < minStations) continue;
       const ref = pts[0]!.e.timeMs;
       for (const p of pts) p.t = (p.e.timeMs - ref) / MS_PER_HOUR;
-      const search = new TrackSearch(pts, net.length, nb, tolH, minSpeed, maxSpeed, minStations);
+      const search = new TrackSearch(pts, net.length, proj.xKm, proj.yKm, nb, tolH, minSpeed, maxSpeed, minStations);
       for (const found of search.run()) {
         const memberPts = found.members.map((k) => pts[k]!);
         const fit = robustFit(memberPts, Math.max(tolH / 3, 0.25));
@@ -257,129 +236,246 @@ function better(countA: number, rssA: number, seedA: number, countB: number, rss
   return countA !== countB ? countA > countB : rssA !== rssB ? rssA < rssB : seedA < seedB;
 }
 
-/** The greedy consensus search of {@link trackFronts} over one kind in one network. */
+/**
+ * The greedy consensus search of {@link trackFronts} over one kind in one network, on columnar arrays:
+ * passage times, stations and coordinates in typed arrays, each station's passages as one slice of a
+ * flat index (compressed rows), its neighbours likewise, and no allocation in the proposal loop.
+ */
 class TrackSearch {
   private readonly used: Uint8Array;
-  /** Per station: indices into pts, in time order. */
-  private readonly atStation: number[][];
+  /** Passage k: hours since the reference time, station, position (km). */
+  private readonly pt: Float64Array;
+  private readonly ps: Int32Array;
+  /** Station positions, km. */
+  private readonly stX: Float64Array;
+  private readonly stY: Float64Array;
+  /** Passages of station s, in time order: indices atK[atStart[s] … atStart[s + 1]) into pts, their times atT. */
+  private readonly atStart: Int32Array;
+  private readonly atK: Int32Array;
+  private readonly atT: Float64Array;
+  /** Neighbours of station s: nbList[nbStart[s] … nbStart[s + 1]); nbLimitH: the largest time a front slower than minSpeed takes to reach each. */
+  private readonly nbStart: Int32Array;
+  private readonly nbList: Int32Array;
+  private readonly nbLimitH: Float64Array;
+  /** Candidate passages of the proposal being built (reused). */
+  private cands: Int32Array;
+  /** Result of {@link nearest}: the passage and its residual (h). */
+  private nearK = -1;
+  private nearR = Infinity;
+  /** Result of {@link score} and {@link bestScore}: count and squared residuals; the best plane. */
+  private scoreRss = 0;
+  private bestCount = 0;
+  private bestRss = 0;
+  private bestT0 = 0;
+  private bestSx = 0;
+  private bestSy = 0;
   constructor(
     private readonly pts: readonly Point[],
     stations: number,
+    xKm: ArrayLike<number>,
+    yKm: ArrayLike<number>,
     private readonly nb: readonly (readonly number[])[],
     private readonly tolH: number,
     private readonly minSpeed: number,
     private readonly maxSpeed: number,
     private readonly minStations: number,
   ) {
-    this.used = new Uint8Array(pts.length);
-    this.atStation = Array.from({ length: stations }, () => []);
-    pts.forEach((p, k) => this.atStation[p.station]!.push(k));
+    const n = pts.length;
+    this.used = new Uint8Array(n);
+    this.pt = new Float64Array(n);
+    this.ps = new Int32Array(n);
+    this.stX = Float64Array.from({ length: stations }, (_, s) => xKm[s]!);
+    this.stY = Float64Array.from({ length: stations }, (_, s) => yKm[s]!);
+    this.atStart = new Int32Array(stations + 1);
+    for (let k = 0; k < n; k++) {
+      this.pt[k] = pts[k]!.t;
+      this.ps[k] = pts[k]!.station;
+      this.atStart[pts[k]!.station + 1]!++;
+    }
+    for (let s = 0; s < stations; s++) this.atStart[s + 1]! += this.atStart[s]!;
+    this.atK = new Int32Array(n);
+    this.atT = new Float64Array(n);
+    const fill = this.atStart.slice(0, stations);
+    for (let k = 0; k < n; k++) {
+      const q = fill[this.ps[k]!]!++;
+      this.atK[q] = k;
+      this.atT[q] = this.pt[k]!;
+    }
+    this.nbStart = new Int32Array(stations + 1);
+    for (let s = 0; s < stations; s++) this.nbStart[s + 1] = this.nbStart[s]! + nb[s]!.length;
+    this.nbList = new Int32Array(this.nbStart[stations]!);
+    this.nbLimitH = new Float64Array(this.nbStart[stations]!);
+    let cap = 0;
+    for (let s = 0; s < stations; s++) {
+      let here = 0;
+      nb[s]!.forEach((j, q) => {
+        this.nbList[this.nbStart[s]! + q] = j;
+        this.nbLimitH[this.nbStart[s]! + q] = Math.hypot(this.stX[j]! - this.stX[s]!, this.stY[j]! - this.stY[s]!) / minSpeed + 1e-9;
+        here += this.atStart[j + 1]! - this.atStart[j]!;
+      });
+      cap = Math.max(cap, here);
+    }
+    this.cands = new Int32Array(cap);
   }
 
   /** Every front, best first. */
   *run(): Generator<Proposal> {
     const heap = new SeedHeap();
-    for (let a = 0; a < this.pts.length; a++) {
-      const best = this.bestOf(a);
-      if (best) heap.push(a, best.members.length, best.rss);
-    }
+    // A score depends only on which passages are used, so a score computed since the last front was taken is current.
+    let epoch = 0;
+    for (let a = 0; a < this.pts.length; a++) if (this.bestScore(a)) heap.push(a, this.bestCount, this.bestRss, epoch);
     for (;;) {
       const top = heap.pop();
       if (!top) return;
       if (this.used[top.seed]) continue;
-      const best = this.bestOf(top.seed);
-      if (!best) continue;
-      if (best.members.length !== top.count || best.rss !== top.rss) {
-        heap.push(top.seed, best.members.length, best.rss);
-        continue;
-      }
-      const members = this.grow(best);
+      if (top.epoch !== epoch) {
+        if (!this.bestScore(top.seed)) continue;
+        if (this.bestCount !== top.count || this.bestRss !== top.rss) {
+          heap.push(top.seed, this.bestCount, this.bestRss, epoch);
+          continue;
+        }
+      } else this.bestScore(top.seed);
+      const plane: Plane = { t0: this.bestT0, sx: this.bestSx, sy: this.bestSy };
+      const best = this.consensus(this.ps[top.seed]!, plane);
+      const members = this.grow({ ...best, plane });
       for (const k of members) this.used[k] = 1;
-      yield { ...best, members };
+      epoch++;
+      yield { members, plane, rss: best.rss };
     }
   }
 
-  /** The unused passage at a station nearest the plane within the tolerance (the earlier on ties), or -1. */
-  private nearest(station: number, plane: Plane): { k: number; r: number } {
-    const list = this.atStation[station]!;
-    const p0 = this.pts[list[0] ?? 0];
-    if (!p0) return { k: -1, r: Infinity };
-    const tau = plane.t0 + plane.sx * p0.x + plane.sy * p0.y;
-    let lo = 0, hi = list.length;
-    while (lo < hi) {
-      const m = (lo + hi) >> 1;
-      if (this.pts[list[m]!]!.t < tau - this.tolH) lo = m + 1;
-      else hi = m;
-    }
+  /** The unused passage at a station nearest the plane within the tolerance (the earlier on ties): sets nearK (or -1) and nearR, returns nearK. */
+  private nearest(station: number, t0: number, sx: number, sy: number): number {
+    const start = this.atStart[station]!, end = this.atStart[station + 1]!;
     let k = -1, r = Infinity;
-    for (let q = lo; q < list.length; q++) {
-      const idx = list[q]!;
-      const p = this.pts[idx]!;
-      if (p.t > tau + this.tolH) break;
-      if (this.used[idx]) continue;
-      const d = Math.abs(p.t - tau);
-      if (d <= this.tolH && d < r) {
-        k = idx;
-        r = d;
+    if (start < end) {
+      const tau = t0 + sx * this.stX[station]! + sy * this.stY[station]!;
+      const low = tau - this.tolH, high = tau + this.tolH;
+      const atT = this.atT;
+      let lo = start, hi = end;
+      while (lo < hi) {
+        const m = (lo + hi) >> 1;
+        if (atT[m]! < low) lo = m + 1;
+        else hi = m;
+      }
+      for (let q = lo; q < end; q++) {
+        const t = atT[q]!;
+        if (t > high) break;
+        const idx = this.atK[q]!;
+        if (this.used[idx]) continue;
+        const d = Math.abs(t - tau);
+        if (d <= this.tolH && d < r) {
+          k = idx;
+          r = d;
+        }
       }
     }
-    return { k, r };
+    this.nearK = k;
+    this.nearR = r;
+    return k;
   }
 
   /** Consensus of a plane over a station and its neighbours: members (ascending) and their squared residuals. */
   private consensus(station: number, plane: Plane): { members: number[]; rss: number } {
     const members: number[] = [];
     let rss = 0;
-    const nb = this.nb[station]!;
-    for (let q = -1; q < nb.length; q++) {
-      const { k, r } = this.nearest(q < 0 ? station : nb[q]!, plane);
-      if (k < 0) continue;
-      members.push(k);
-      rss += r * r;
+    const s0 = this.nbStart[station]!, s1 = this.nbStart[station + 1]!;
+    for (let q = s0 - 1; q < s1; q++) {
+      if (this.nearest(q < s0 ? station : this.nbList[q]!, plane.t0, plane.sx, plane.sy) < 0) continue;
+      members.push(this.nearK);
+      rss += this.nearR * this.nearR;
     }
     return { members: members.sort((u, v) => u - v), rss };
   }
 
-  /** Best proposal seeded at passage a (a and two later passages at its neighbours), or null. */
-  private bestOf(a: number): Proposal | null {
-    const pa = this.pts[a]!;
-    if (this.used[a]) return null;
+  /**
+   * The count of {@link consensus} (its rss in scoreRss), or -1 as soon as it can no longer beat `need` stations
+   * (more stations, or as many with a smaller rss than `needRss`): the rss only grows as stations are added, so
+   * a proposal cut short could not have won.
+   */
+  private score(station: number, t0: number, sx: number, sy: number, need: number, needRss: number): number {
+    let count = 0, rss = 0;
+    const s0 = this.nbStart[station]!, s1 = this.nbStart[station + 1]!;
+    for (let q = s0 - 1; q < s1; q++) {
+      if (this.nearest(q < s0 ? station : this.nbList[q]!, t0, sx, sy) >= 0) {
+        count++;
+        rss += this.nearR * this.nearR;
+      }
+      const most = count + (s1 - 1 - q);
+      if (most < need || (most === need && !(rss < needRss))) return -1;
+    }
+    this.scoreRss = rss;
+    return count;
+  }
+
+  /**
+   * Best proposal seeded at passage a (a and two later passages at its neighbours): false when there is none,
+   * else true with its count, rss and plane in bestCount, bestRss, bestT0, bestSx, bestSy.
+   */
+  private bestScore(a: number): boolean {
+    if (this.used[a]) return false;
+    const pt = this.pt, ps = this.ps, pts = this.pts;
+    const sa = ps[a]!, ta = pt[a]!;
     // Later passages at neighbouring stations that a front slower than minSpeed could not join are skipped:
     // on a plane with |s| ≤ 1/minSpeed, |t_b − t_a| ≤ distance / minSpeed.
-    const cands: number[] = [];
-    for (const s of this.nb[pa.station]!) {
-      const list = this.atStation[s]!;
-      let lo = 0, hi = list.length;
+    const cands = this.cands;
+    let nc = 0;
+    for (let q = this.nbStart[sa]!; q < this.nbStart[sa + 1]!; q++) {
+      const s = this.nbList[q]!, limit = this.nbLimitH[q]!;
+      const end = this.atStart[s + 1]!;
+      let lo = this.atStart[s]!, hi = end;
       while (lo < hi) {
         const m = (lo + hi) >> 1;
-        if (list[m]! <= a) lo = m + 1;
+        if (this.atK[m]! <= a) lo = m + 1;
         else hi = m;
       }
-      for (let q = lo; q < list.length; q++) {
-        const k = list[q]!;
+      for (let r = lo; r < end; r++) {
+        const k = this.atK[r]!;
         if (this.used[k]) continue;
-        const p = this.pts[k]!;
-        if (p.t - pa.t > Math.hypot(p.x - pa.x, p.y - pa.y) / this.minSpeed + 1e-9) break;
-        cands.push(k);
+        if (this.atT[r]! - ta > limit) break;
+        cands[nc++] = k;
       }
     }
-    cands.sort((u, v) => u - v);
-    let best: Proposal | null = null;
-    for (let i = 0; i < cands.length; i++) {
-      const pb = this.pts[cands[i]!]!;
-      for (let j = i + 1; j < cands.length; j++) {
-        const pc = this.pts[cands[j]!]!;
-        if (pc.station === pb.station) continue;
-        const plane = fitPlane3(pa, pb, pc);
-        if (!plane) continue;
-        const { speedKmh } = motionFromSlowness(plane.sx, plane.sy);
+    cands.subarray(0, nc).sort();
+    // No proposal yet: one needs minStations stations; then it must beat the best so far.
+    let need = this.minStations, needRss = Infinity, found = false;
+    const pa = pts[a]!;
+    for (let i = 0; i < nc; i++) {
+      const b = cands[i]!, pb = pts[b]!;
+      for (let j = i + 1; j < nc; j++) {
+        const c = cands[j]!;
+        if (ps[c] === ps[b]) continue;
+        const pc = pts[c]!;
+        // {@link fitPlane} of the three points without allocating: the same sums in the same order as
+        // `leastSquaresPlane` with unit weights, so the same plane to the last bit.
+        const mx = (pa.x + pb.x + pc.x) / 3, my = (pa.y + pb.y + pc.y) / 3, mf = (ta + pt[b]! + pt[c]!) / 3;
+        const ax = pa.x - mx, ay = pa.y - my, af = ta - mf;
+        const bx = pb.x - mx, by = pb.y - my, bf = pt[b]! - mf;
+        const cx = pc.x - mx, cy = pc.y - my, cf = pt[c]! - mf;
+        const sxx = ax * ax + bx * bx + cx * cx, sxy = ax * ay + bx * by + cx * cy, syy = ay * ay + by * by + cy * cy;
+        const sxf = ax * af + bx * bf + cx * cf, syf = ay * af + by * bf + cy * cf;
+        const det = sxx * syy - sxy * sxy;
+        if (!(Math.abs(det) > PLANE_DEGENERATE_RATIO * (sxx + syy) * (sxx + syy))) continue;
+        const sx = (sxf * syy - syf * sxy) / det, sy = (syf * sxx - sxf * sxy) / det;
+        const m = Math.hypot(sx, sy);
+        const speedKmh = m > 0 ? 1 / m : Infinity;
         if (!(speedKmh >= this.minSpeed && speedKmh <= this.maxSpeed)) continue;
-        const c = this.consensus(pa.station, plane);
-        if (c.members.length < this.minStations) continue;
-        if (!best || c.members.length > best.members.length || (c.members.length === best.members.length && c.rss < best.rss)) best = { members: c.members, plane, rss: c.rss };
+        const t0 = mf - sx * mx - sy * my;
+        const count = this.score(sa, t0, sx, sy, need, needRss);
+        if (count < 0) continue;
+        if (count > need || (count === need && this.scoreRss < needRss)) {
+          need = count;
+          needRss = this.scoreRss;
+          this.bestT0 = t0;
+          this.bestSx = sx;
+          this.bestSy = sy;
+          found = true;
+        }
       }
     }
-    return best;
+    this.bestCount = need;
+    this.bestRss = needRss;
+    return found;
   }
 
   /**
@@ -389,7 +485,7 @@ class TrackSearch {
    * three; a station tried under an older plane is tried again under the new one.
    */
   private grow(p: Proposal): number[] {
-    const n = this.atStation.length;
+    const n = this.stX.length;
     const tried = new Int32Array(n).fill(-1);
     const member = new Uint8Array(n);
     const members = [...p.members];
@@ -397,16 +493,17 @@ class TrackSearch {
     let version = 0;
     let refitAt = Math.ceil(members.length * 1.5);
     const queue: number[] = [];
-    for (const k of members) member[this.pts[k]!.station] = 1;
-    const seed = this.pts[p.members[0]!]!.station;
+    for (const k of members) member[this.ps[k]!] = 1;
+    const seed = this.ps[p.members[0]!]!;
     for (const s of this.nb[seed]!) tried[s] = 0;
-    for (const k of members) queue.push(this.pts[k]!.station);
+    for (const k of members) queue.push(this.ps[k]!);
     for (let head = 0; head < queue.length; head++) {
       const s = queue[head]!;
-      for (const j of this.nb[s]!) {
+      for (let q = this.nbStart[s]!; q < this.nbStart[s + 1]!; q++) {
+        const j = this.nbList[q]!;
         if (member[j] || tried[j] === version) continue;
         tried[j] = version;
-        const { k } = this.nearest(j, plane);
+        const k = this.nearest(j, plane.t0, plane.sx, plane.sy);
         if (k < 0) continue;
         members.push(k);
         member[j] = 1;
@@ -417,7 +514,7 @@ class TrackSearch {
             plane = next;
             version++;
             // Stations of the queue so far are visited again under the new plane.
-            for (const k2 of members) queue.push(this.pts[k2]!.station);
+            for (const k2 of members) queue.push(this.ps[k2]!);
           }
           refitAt = Math.ceil(members.length * 1.5);
         }
@@ -427,15 +524,20 @@ class TrackSearch {
   }
 }
 
-/** Binary max-heap of seed passages keyed by their best proposal's score (see {@link better}). */
+/**
+ * Binary max-heap of seed passages keyed by their best proposal's score (see {@link better}); each entry
+ * also carries the epoch its score was computed in. A seed is in the heap at most once, so the order is total.
+ */
 class SeedHeap {
   private seeds: number[] = [];
   private counts: number[] = [];
   private rsss: number[] = [];
-  push(seed: number, count: number, rss: number): void {
+  private epochs: number[] = [];
+  push(seed: number, count: number, rss: number, epoch: number): void {
     this.seeds.push(seed);
     this.counts.push(count);
     this.rsss.push(rss);
+    this.epochs.push(epoch);
     let i = this.seeds.length - 1;
     while (i > 0) {
       const parent = (i - 1) >> 1;
@@ -444,14 +546,15 @@ class SeedHeap {
       i = parent;
     }
   }
-  pop(): { seed: number; count: number; rss: number } | null {
+  pop(): { seed: number; count: number; rss: number; epoch: number } | null {
     if (this.seeds.length === 0) return null;
-    const top = { seed: this.seeds[0]!, count: this.counts[0]!, rss: this.rsss[0]! };
+    const top = { seed: this.seeds[0]!, count: this.counts[0]!, rss: this.rsss[0]!, epoch: this.epochs[0]! };
     const last = this.seeds.length - 1;
     this.swap(0, last);
     this.seeds.pop();
     this.counts.pop();
     this.rsss.pop();
+    this.epochs.pop();
     let i = 0;
     for (;;) {
       const l = 2 * i + 1, r = l + 1;
@@ -468,9 +571,15 @@ class SeedHeap {
     return better(this.counts[i]!, this.rsss[i]!, this.seeds[i]!, this.counts[j]!, this.rsss[j]!, this.seeds[j]!);
   }
   private swap(i: number, j: number): void {
-    [this.seeds[i], this.seeds[j]] = [this.seeds[j]!, this.seeds[i]!];
-    [this.counts[i], this.counts[j]] = [this.counts[j]!, this.counts[i]!];
-    [this.rsss[i], this.rsss[j]] = [this.rsss[j]!, this.rsss[i]!];
+    const s = this.seeds[i]!, c = this.counts[i]!, r = this.rsss[i]!, e = this.epochs[i]!;
+    this.seeds[i] = this.seeds[j]!;
+    this.counts[i] = this.counts[j]!;
+    this.rsss[i] = this.rsss[j]!;
+    this.epochs[i] = this.epochs[j]!;
+    this.seeds[j] = s;
+    this.counts[j] = c;
+    this.rsss[j] = r;
+    this.epochs[j] = e;
   }
 }
 

@@ -1,6 +1,6 @@
 /**
  * A pool of worker threads (`node:worker_threads`) that runs single-station detection in parallel.
- * Stations are independent until tracking, so each series goes to the next free worker; the results are
+ * Stations are independent until tracking, so each series goes to the next free worker, longest first; the results are
  * put back in the order of the input, so the output is the same for every number of workers and every
  * completion order. A station whose detection throws, or whose worker dies, is reported with its reason
  * and skipped; the others go on.
@@ -56,6 +56,9 @@ export async function detectInPool(
   const out: (StationOutcome | undefined)[] = new Array(series.length);
   const n = Math.max(1, Math.min(Math.floor(jobs), series.length));
   if (series.length === 0) return [];
+  // Longest series first (ties in input order), so that no long station is left to run alone at the end
+  // (longest-processing-time-first scheduling, Graham 1969); the outcomes go back in input order.
+  const order = Array.from(series, (_, i) => i).sort((a, b) => series[b]!.length - series[a]!.length || a - b);
   let next = 0;
   let done = 0;
   await new Promise<void>((resolve) => {
@@ -76,7 +79,7 @@ export async function detectInPool(
           void w.terminate();
           return;
         }
-        current = next++;
+        current = order[next++]!;
         w.postMessage({ index: current, series: series[current]!, opts } satisfies PoolTask);
       };
       w.on('message', (r: PoolReply) => {

@@ -7,6 +7,7 @@
 import { WX, type OperatorFields, type PassageEvent, type PrecipType, type PressureSource, type RunwayComponents, type StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { choosePressure } from '../detect/grid.js';
+import { lowerBound } from '../detect/features.js';
 import { median } from '../signal/median.js';
 import { stationPressureFromAltimeterHpa } from '../physics/pressure.js';
 import { detectStation } from '../detect/detect.js';
@@ -37,18 +38,57 @@ export function windOnRunway(windFromDeg: number, speedMs: number, headingDeg: n
   return { crosswindMs: clean(cross), tailwindMs: clean(-head) };
 }
 
-/** Median of the clean values with time in [fromMs, toMs) (NaN ignored; NaN when none). */
-function medianIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number): number {
+/** Median of the clean values at indices [a, b) with time in [fromMs, toMs) (NaN ignored; NaN when none). */
+function medianIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number, a: number, b: number): number {
   const xs: number[] = [];
-  for (let i = 0; i < t.length; i++) if (t[i]! >= fromMs && t[i]! < toMs && !Number.isNaN(v[i]!)) xs.push(v[i]!);
+  for (let i = a; i < b; i++) if (t[i]! >= fromMs && t[i]! < toMs && !Number.isNaN(v[i]!)) xs.push(v[i]!);
   return median(xs);
 }
 
-/** Minimum of the clean values with time in (fromMs, toMs] (NaN when none). */
-function minIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number): number {
+/** Minimum of the clean values at indices [a, b) with time in (fromMs, toMs] (NaN when none). */
+function minIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number, a: number, b: number): number {
   let m = NaN;
-  for (let i = 0; i < t.length; i++) if (t[i]! > fromMs && t[i]! <= toMs && !(v[i]! >= m)) m = Number.isNaN(v[i]!) ? m : v[i]!;
+  for (let i = a; i < b; i++) if (t[i]! > fromMs && t[i]! <= toMs && !(v[i]! >= m)) m = Number.isNaN(v[i]!) ? m : v[i]!;
   return m;
+}
+
+/** What the operator fields read of one station, prepared once for all its events: the clean columns and the pressure used. */
+interface StationColumns {
+  s: StationSeries;
+  T: Float64Array;
+  Td: Float64Array;
+  V: Float64Array;
+  P: Float64Array;
+  pressureSource: PressureSource;
+  /** Times in non-decreasing order (as series are built), so a time window is one index range found by binary search. */
+  sorted: boolean;
+}
+
+function stationColumns(s: StationSeries): StationColumns {
+  const t = s.timeMs;
+  let sorted = true;
+  for (let i = 1; i < s.length && sorted; i++) if (!(t[i]! >= t[i - 1]!)) sorted = false;
+  if (s.length > 0 && Number.isNaN(t[0]!)) sorted = false;
+  return {
+    s,
+    T: cleanColumn(s, 'temperatureC'),
+    Td: cleanColumn(s, 'dewpointC'),
+    V: cleanColumn(s, 'windSpeedMs'),
+    P: cleanColumn(s, 'precipMm'),
+    pressureSource: pressureSource(s),
+    sorted,
+  };
+}
+
+/**
+ * Indices [a, b) holding every time in [fromMs, toMs] of a sorted series (the whole series when it is not
+ * sorted or a bound is not finite); callers still test each time against their window's own ends, so a
+ * wider range only costs time (the upper end is the first time at or past toMs + 1 ms, past every time ≤ toMs).
+ */
+function indexRange(c: StationColumns, fromMs: number, toMs: number): [number, number] {
+  if (!c.sorted || !Number.isFinite(fromMs) || !Number.isFinite(toMs)) return [0, c.s.length];
+  const t = c.s.length === c.s.timeMs.length ? c.s.timeMs : c.s.timeMs.subarray(0, c.s.length);
+  return [lowerBound(t, fromMs), lowerBound(t, toMs + 1)];
 }
 
 /**
@@ -100,35 +140,42 @@ export function precipTypesOf(flags: number): PrecipType[] {
  * hour before. Runway components use the wind before/after of the event and the speeds here and in the event.
  */
 export function operatorFields(s: StationSeries, e: PassageEvent, runways: readonly RunwayHeading[] = []): OperatorFields {
+  return fieldsAt(stationColumns(s), e, runways);
+}
+
+/** {@link operatorFields} on a station's prepared columns. */
+function fieldsAt(c: StationColumns, e: PassageEvent, runways: readonly RunwayHeading[]): OperatorFields {
+  const s = c.s;
   const t = s.timeMs;
-  const T = cleanColumn(s, 'temperatureC');
-  const Td = cleanColumn(s, 'dewpointC');
-  const V = cleanColumn(s, 'windSpeedMs');
-  const P = cleanColumn(s, 'precipMm');
+  const { T, Td, V, P } = c;
   const t0 = e.timeMs;
   let freezeTimeMs = NaN;
   let before = false;
   let near = 0;
-  for (let i = 0; i < s.length; i++) {
+  const [a, b] = indexRange(c, t0 - 6 * HOUR_MS, t0 + 12 * HOUR_MS);
+  for (let i = a; i < b; i++) {
     const ti = t[i]!;
     if (Number.isNaN(freezeTimeMs) && ti > t0 && ti <= t0 + 12 * HOUR_MS && T[i]! <= 0) freezeTimeMs = ti;
     if (ti >= t0 - 6 * HOUR_MS && ti < t0 && (s.weather[i]! & WX.PRECIP || P[i]! > 0)) before = true;
     if (ti >= t0 - HOUR_MS && ti <= t0 + HOUR_MS) near |= s.weather[i]!;
   }
-  const windSpeedBeforeMs = medianIn(t, V, t0 - HOUR_MS, t0);
+  const [ba, bb] = indexRange(c, t0 - HOUR_MS, t0);
+  const [aa, ab] = indexRange(c, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1);
+  const [ma, mb] = indexRange(c, t0, t0 + 12 * HOUR_MS);
+  const windSpeedBeforeMs = medianIn(t, V, t0 - HOUR_MS, t0, ba, bb);
   const out: OperatorFields = {
-    tempBeforeC: medianIn(t, T, t0 - HOUR_MS, t0),
-    tempAfterC: medianIn(t, T, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1),
-    dewpointBeforeC: medianIn(t, Td, t0 - HOUR_MS, t0),
-    dewpointAfterC: medianIn(t, Td, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1),
-    tempMin6hC: minIn(t, T, t0, t0 + 6 * HOUR_MS),
-    tempMin12hC: minIn(t, T, t0, t0 + 12 * HOUR_MS),
+    tempBeforeC: medianIn(t, T, t0 - HOUR_MS, t0, ba, bb),
+    tempAfterC: medianIn(t, T, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1, aa, ab),
+    dewpointBeforeC: medianIn(t, Td, t0 - HOUR_MS, t0, ba, bb),
+    dewpointAfterC: medianIn(t, Td, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1, aa, ab),
+    tempMin6hC: minIn(t, T, t0, t0 + 6 * HOUR_MS, ma, mb),
+    tempMin12hC: minIn(t, T, t0, t0 + 12 * HOUR_MS, ma, mb),
     freezeTimeMs,
     precipBefore6h: before,
     precipTypes: precipTypesOf(near),
     precipHeavy: (near & WX.HEAVY) !== 0 && (near & WX.PRECIP) !== 0,
     windSpeedBeforeMs,
-    pressureSource: pressureSource(s),
+    pressureSource: c.pressureSource,
   };
   if (runways.length) {
     out.runways = runways.map((r): RunwayComponents => {
@@ -164,9 +211,14 @@ export function parseRunways(spec: string): RunwayHeading[] {
 /** Events with their operator fields (new objects; the inputs are not changed). Events of a station without a series are returned as they are. */
 export function withOperatorFields(events: readonly PassageEvent[], series: readonly StationSeries[], runways: readonly RunwayHeading[] = []): PassageEvent[] {
   const by = new Map(series.map((s) => [s.station, s]));
+  // Each station's clean columns and pressure source are prepared once, for all its events.
+  const prepared = new Map<string, StationColumns>();
   return events.map((e) => {
     const s = by.get(e.station);
-    return s ? { ...e, operator: operatorFields(s, e, runways) } : e;
+    if (!s) return e;
+    let c = prepared.get(e.station);
+    if (!c) prepared.set(e.station, (c = stationColumns(s)));
+    return { ...e, operator: fieldsAt(c, e, runways) };
   });
 }
 

@@ -6,7 +6,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { loadPaths } from '../../src/pipeline.js';
-import { operatorFields, parseRunways, precipTypesOf, pressureSource, windOnRunway } from '../../src/report/operatorFields.js';
+import { operatorFields, parseRunways, precipTypesOf, pressureSource, windOnRunway, withOperatorFields } from '../../src/report/operatorFields.js';
 import { eventToRecord, eventsToCsv, EVENT_COLUMNS, recordColumns } from '../../src/report/format.js';
 import { allocSeries, WX } from '../../src/model/index.js';
 import { KNOT_MS } from '../../src/physics/constants.js';
@@ -104,6 +104,29 @@ test('constructed series: no freeze when it stays above 0 °C; levels NaN withou
   assert.ok(Number.isNaN(f.freezeTimeMs));
   assert.ok(Number.isNaN(f.dewpointBeforeC));
   assert.is(f.pressureSource, 'none');
+});
+
+test('constructed series: window ends as documented (before = [t0 − 1 h, t0), after = [t0 + 1 h, t0 + 3 h], minima and freeze in (t0, t0 + 12 h]), with many reports around', () => {
+  // The windows are the ones in the doc comment of operatorFields (common practice, no source); the reports
+  // stand exactly on every window end, so a time window found by search must keep each end open or closed.
+  const H = 3600000;
+  const t0 = Date.UTC(2026, 0, 1, 12);
+  const hours = [-6.5, -6, -1.001, -1, -0.5, 0, 0.999, 1, 2, 3, 3.001, 6, 6.001, 12, 12.001];
+  const s = allocSeries('XTST', hours.length);
+  hours.forEach((h, i) => (s.timeMs[i] = t0 + h * H));
+  // Temperatures that tell the reports apart: the report at t0 + 12.001 h is the coldest and outside every window.
+  s.temperatureC.set([20, 19, 18, 10, 12, 30, 15, 9, 7, 5, 4, 3, 2, 1, -20]);
+  const f = operatorFields(s, sampleEvent({ station: 'XTST', timeMs: t0 }));
+  assert.is(f.tempBeforeC, 11, 'median of the reports at −1 h and −0.5 h (the one at t0 is not before)');
+  assert.is(f.tempAfterC, 7, 'median of +1, +2 and +3 h (+0.999 h and +3.001 h are outside)');
+  assert.is(f.tempMin6hC, 3, 'minimum over (t0, t0 + 6 h]: the report at +6 h counts, +6.001 h does not');
+  assert.is(f.tempMin12hC, 1, 'minimum over (t0, t0 + 12 h]: the report at +12.001 h does not count');
+  assert.ok(Number.isNaN(f.freezeTimeMs), 'the only freezing report is after t0 + 12 h');
+  // Several events of one station (its columns prepared once) give each event's own fields.
+  const events = [sampleEvent({ station: 'XTST', timeMs: t0 }), sampleEvent({ station: 'XTST', timeMs: t0 + 2 * H })];
+  const both = withOperatorFields(events, [s]);
+  assert.equal(both.map((e) => e.operator), events.map((e) => operatorFields(s, e)));
+  assert.is(both[1]!.operator!.tempBeforeC, 9, 'second event (t0 + 2 h): the one report in [t0 + 1 h, t0 + 2 h), 9 °C');
 });
 
 test('writers: new columns appended after the contract columns; --wind-unit and runway columns only in CSV; JSON keeps m/s', () => {
