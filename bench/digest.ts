@@ -18,8 +18,10 @@ const shared = process.env.FROPA_SHARED ? resolve(process.env.FROPA_SHARED) : jo
 const args = process.argv.slice(2);
 const outAt = args.indexOf('--out');
 const skipCli = args.includes('--skip-cli');
-const inputs = [join(shared, 'realdata'), join(shared, 'realskill'), join(root, 'stations-demo')].filter((p) => existsSync(p));
-const forecasts = join(root, 'stations-demo', 'forecasts', 'forecast_passages.csv');
+// run from the checkout (paths in outputs are as given: the demo relative, the shared folders as found)
+process.chdir(root);
+const inputs = [join(shared, 'realdata'), join(shared, 'realskill'), 'stations-demo'].filter((p) => existsSync(p));
+const forecasts = join('stations-demo', 'forecasts', 'forecast_passages.csv');
 
 const sha = (x: string | Uint8Array) => createHash('sha256').update(x).digest('hex').slice(0, 16);
 

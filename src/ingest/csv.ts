@@ -53,7 +53,8 @@ import { looksLikeStationsFile } from './stations.js';
 import { weatherFlags } from './metar/weather.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
 import { MAGNUS_AERK1996 } from '../physics/vapor.js';
-import { normalizeLineEnds, prepareText } from './text.js';
+import { lineEndsToLf, normalizeLineEnds, prepareText } from './text.js';
+import type { TextBlock } from './lines.js';
 import { DEFAULT_TIME_WINDOW, outOfWindowMessage, type TimeWindow } from './plausible.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
@@ -350,6 +351,15 @@ export class CsvCore {
   useTextChecks(q: QuoteCheck | null, hasNul: boolean): void {
     if (q) this.quoteBad = q.bad.size ? q.bad : null;
     this.checkNul = hasNul;
+  }
+
+  /**
+   * A piece of a longer text ended with its line end, which the parsers read as one more (empty) row before
+   * the end: take it back, since that line is the first of the next piece.
+   */
+  takeBackEmptyTail(): void {
+    this.line--;
+    this.nextLine--;
   }
 
   private handle(fields: string[], err: { code?: string; message?: string } | undefined): boolean {
@@ -1051,6 +1061,23 @@ export interface QuoteCheck {
   bad: Map<number, { reason: string; message: string }>;
   /** Physical lines that continue a multi-line record (counted, not rows of their own). */
   continued: number;
+  /** Where the records looked at end (`text.length` unless `more` was set): the rest waits for more text. */
+  end: number;
+  /** Fields of the header record (-1 while none was seen), to pass on to the check of the text that follows. */
+  headerFields: number;
+}
+
+/** Where a text checked by `checkQuotes` stands in its input. */
+export interface QuoteCheckAt {
+  /** Physical line (1-based) of the text's first line (default 1). */
+  firstLine?: number;
+  /** Fields of the input's header record, found in an earlier piece (default: the first non-blank record here). */
+  headerFields?: number;
+  /**
+   * More text follows: records are looked at only while at least MAX_RECORD_LINES + 2 line ends follow their
+   * start (all a record's decision can depend on); `end` says where the rest begins.
+   */
+  more?: boolean;
 }
 
 /**
@@ -1061,17 +1088,24 @@ export interface QuoteCheck {
  * header's number of fields, and no line wholly inside the quoted field holds a whole row's delimiters; otherwise its first line is an unclosed quote (rejected, `bad-quotes`) and
  * reading starts again on the next line, so one stray quote never swallows the rows after it.
  */
-export function checkQuotes(text: string, delimiter: string): QuoteCheck {
+export function checkQuotes(text: string, delimiter: string, at: QuoteCheckAt = {}): QuoteCheck {
   const bad = new Map<number, { reason: string; message: string }>();
   let continued = 0;
   const n = text.length;
   const d = delimiter;
   const dl = d.length;
-  let headerFields = -1;
+  let headerFields = at.headerFields ?? -1;
   let pos = 0;
-  let line = 1;
+  let line = at.firstLine ?? 1;
   const blanks: [number, number][] = [];
+  // with more text to come: the last record start looked at has MAX_RECORD_LINES + 2 line ends after it
+  let lastStart = n;
+  if (at.more) {
+    lastStart = n;
+    for (let i = 0; i < MAX_RECORD_LINES + 2 && lastStart >= 0; i++) lastStart = lastStart > 0 ? text.lastIndexOf('\n', lastStart - 1) : -1;
+  }
   while (pos < n) {
+    if (at.more && pos > lastStart) break;
     // one record from pos, starting on physical line `line`
     const recStart = pos;
     const recLine = line;
@@ -1162,18 +1196,19 @@ export function checkQuotes(text: string, delimiter: string): QuoteCheck {
     pos = end + 1;
     line = recLine + lines;
   }
-  let out = text;
+  const end = Math.min(pos, n);
+  let out = end === n ? text : text.slice(0, end);
   if (blanks.length) {
     const parts: string[] = [];
-    let at = 0;
+    let from = 0;
     for (const [a, b] of blanks) {
-      parts.push(text.slice(at, a));
-      at = b;
+      parts.push(text.slice(from, a));
+      from = b;
     }
-    parts.push(text.slice(at));
+    parts.push(text.slice(from, end));
     out = parts.join('');
   }
-  return { text: out, bad, continued };
+  return { text: out, bad, continued, end, headerFields };
 }
 
 /** papaparse options in chunk mode (`chunk` is not in the synchronous `ParseConfig` type). */
@@ -1302,7 +1337,8 @@ export function readCsvText(
       config.delimiter = g.delimiter;
       config.newline = g.newline;
       // No quote character anywhere: CSV is a plain split on line ending and delimiter (papaparse's fast mode).
-      if (opts.parser !== 'papaparse' && lineModeFits(g) && body.indexOf('"') < 0) core.scanBytes(Buffer.from(body, 'utf8'), 0, g.newline!, g.delimiter);
+      // Not after the quote check blanked lines, nor with NUL bytes: papaparse's row handler rejects those lines.
+      if (opts.parser !== 'papaparse' && lineModeFits(g) && !hasQuote && body.indexOf('\u0000') < 0) core.scanBytes(Buffer.from(body, 'utf8'), 0, g.newline!, g.delimiter);
       else parseInBlocks(body, config, core);
     }
   }
@@ -1322,11 +1358,13 @@ export function readCsvBytes(
 ): CsvResult & { observations: Observation[] } {
   // not UTF-8 → Windows-1252; BOM dropped; lone CRs and mixed line ends made LF (text.ts)
   const prep = prepareText(bytes);
-  const u = prep.bytes;
-  const withNotes = <T extends { report: FileReport }>(r: T): T => {
-    if (prep.notes.length) r.report.notes.unshift(...prep.notes);
-    return r;
-  };
+  const r = readPreparedCsv(prep.bytes, file, opts, onObservation);
+  if (prep.notes.length) r.report.notes.unshift(...prep.notes);
+  return r;
+}
+
+/** readCsvBytes on bytes already prepared (UTF-8, no BOM, one kind of line end), without the text notes. */
+function readPreparedCsv(u: Buffer, file: string, opts: CsvOptions, onObservation?: (o: Observation) => void): CsvResult & { observations: Observation[] } {
   const bom = 0;
   // the text path's checks: NUL in the first 8192 characters; a text that is not blank (first printable byte is ASCII)
   let first = bom;
@@ -1339,10 +1377,132 @@ export function readCsvBytes(
       const observations: Observation[] = [];
       const core = new CsvCore(file, opts, onObservation ?? ((o) => observations.push(o)));
       core.scanBytes(u, bom, g.newline!, g.delimiter);
-      return withNotes({ ...core.finish(), observations });
+      return { ...core.finish(), observations };
     }
   }
-  return withNotes(readCsvText(u.toString('utf8'), file, opts, onObservation));
+  return readCsvText(u.toString('utf8'), file, opts, onObservation);
+}
+
+/** Bytes a CsvReader holds before it reads as a stream (below this a file is read whole, as readCsvBytes reads it). */
+export const CSV_WHOLE_BYTES = 4 << 20;
+
+/**
+ * The CSV reader over blocks of whole lines (a LineSplitter's output, in order), with the rules of readCsvText.
+ * An input up to `wholeBytes` (default CSV_WHOLE_BYTES) is read whole, exactly as readCsvBytes reads it. A
+ * longer one is read piece by piece: delimiter and line ending are papaparse's guess on the first `wholeBytes`;
+ * each piece's quotes are checked (`checkQuotes`, with what the piece before found) up to the last record whose
+ * decision fits in it, the rest waits for the next block; pieces without quotes or NUL are scanned in place,
+ * the others parsed by papaparse. Memory holds one block and the lines carried over.
+ */
+export class CsvReader {
+  private readonly core: CsvCore;
+  private readonly observations: Observation[] = [];
+  private readonly opts: CsvOptions;
+  private readonly onObservation: ((o: Observation) => void) | undefined;
+  private readonly file: string;
+  private readonly wholeBytes: number;
+  private held: Buffer[] | null = [];
+  private heldBytes = 0;
+  private heldFirstLine = 1;
+  private delimiter = ',';
+  private lineMode = false;
+  private carry = '';
+  private carryLine = 1;
+  private headerFields = -1;
+  private wholeResult: (CsvResult & { observations: Observation[] }) | null = null;
+
+  constructor(file: string, opts: CsvOptions = {}, onObservation?: (o: Observation) => void, wholeBytes = CSV_WHOLE_BYTES) {
+    this.file = file;
+    this.opts = opts;
+    this.onObservation = onObservation;
+    this.wholeBytes = wholeBytes;
+    this.core = new CsvCore(file, opts, onObservation ?? ((o) => this.observations.push(o)));
+  }
+
+  /** Read one block. */
+  block(b: TextBlock): void {
+    if (this.held !== null) {
+      if (this.heldBytes === 0) this.heldFirstLine = b.firstLine;
+      this.held.push(b.bytes);
+      this.heldBytes += b.bytes.length;
+      if (this.heldBytes <= this.wholeBytes && !b.last) return;
+      if (b.last) return;
+      // long input: read as a stream from here
+      const head = this.held;
+      this.held = null;
+      const text = lfText(Buffer.concat(head));
+      const g = guessFormat(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text, this.opts);
+      this.delimiter = g.delimiter;
+      this.lineMode = this.opts.parser !== 'papaparse' && lineModeFits(g);
+      this.piece(text, this.heldFirstLine, false);
+      return;
+    }
+    if (this.core.stopped) return;
+    const u = b.bytes.indexOf(13) >= 0 ? lineEndsToLf(b.bytes) : b.bytes;
+    if (this.carry === '' && this.lineMode && u.indexOf(34) < 0 && !b.hasNul) {
+      // no quote: a plain split on line end and delimiter, read in place
+      this.core.useTextChecks(null, false);
+      this.core.scanBytes(u, 0, '\n', this.delimiter);
+      if (!b.last) this.core.takeBackEmptyTail();
+      return;
+    }
+    const line = this.carry === '' ? b.firstLine : this.carryLine;
+    this.piece(this.carry + u.toString('utf8'), line, b.last);
+  }
+
+  /** Check the quotes of a piece of text (physical line `firstLine` on) and parse what they settle; carry the rest. */
+  private piece(text: string, firstLine: number, last: boolean): void {
+    const core = this.core;
+    let body = text;
+    let end = text.length;
+    const quoted = text.indexOf('"') >= 0;
+    if (quoted) {
+      const q = checkQuotes(text, this.delimiter, { firstLine, headerFields: this.headerFields, more: !last });
+      this.headerFields = q.headerFields;
+      core.useTextChecks(q, text.indexOf('\u0000') >= 0);
+      body = q.text;
+      end = q.end;
+    } else core.useTextChecks(null, text.indexOf('\u0000') >= 0);
+    if (end < text.length) {
+      this.carry = text.slice(end);
+      let lines = 0;
+      for (let k = text.indexOf('\n'); k >= 0 && k < end; k = text.indexOf('\n', k + 1)) lines++;
+      this.carryLine = firstLine + lines;
+    } else this.carry = '';
+    if (body === '') return;
+    // (lines blanked by the quote check are rejected by the row handler papaparse feeds, not by the scan)
+    if (this.lineMode && !quoted && body.indexOf('\u0000') < 0) core.scanBytes(Buffer.from(body, 'utf8'), 0, '\n', this.delimiter);
+    else {
+      const config = papaConfig(this.opts, core);
+      config.delimiter = this.delimiter;
+      config.newline = '\n';
+      if (body.length <= TEXT_BLOCK) Papa.parse<string[]>(body, config as Papa.ParseConfig<string[]>);
+      else parseInBlocks(body, config, core);
+    }
+    // the piece ends with its line end unless it is the input's last: that empty tail is the next piece's first line
+    if (!last || end < text.length) core.takeBackEmptyTail();
+  }
+
+  /** The observations (when collected) and the file's result; `textNotes` (encoding, line ends) go first. */
+  finish(textNotes: readonly string[] = []): CsvResult & { observations: Observation[] } {
+    let r: CsvResult & { observations: Observation[] };
+    if (this.held !== null) {
+      // read whole: the bytes prepareText would give (one kind of line end throughout)
+      let u: Buffer = Buffer.concat(this.held);
+      if (textNotes.some((n) => n.startsWith('line ends'))) u = lineEndsToLf(u);
+      r = readPreparedCsv(u, this.file, this.opts, this.onObservation);
+    } else {
+      if (this.carry !== '' && !this.core.stopped) this.piece(this.carry, this.carryLine, true);
+      r = { ...this.core.finish(), observations: this.observations };
+    }
+    if (textNotes.length) r.report.notes.unshift(...textNotes);
+    return r;
+  }
+}
+
+/** A block's text with LF line ends. */
+function lfText(u: Buffer): string {
+  return (u.indexOf(13) >= 0 ? lineEndsToLf(u) : u).toString('utf8');
 }
 
 /**

@@ -13,7 +13,7 @@
  *   is rewritten with LF ends; so every physical line keeps its number (`firstLine` of each block).
  *   The note of rewritten or mixed line ends counts every kind over the whole input, as `prepareText` does.
  */
-import { isValidUtf8, lineEndsNote } from './text.js';
+import { countLineEnds, isValidUtf8, lineEndsNote, lineEndsToLf } from './text.js';
 
 /** A run of whole lines: UTF-8, no BOM, LF (or, unless `lf`, CRLF) line ends; the last may lack its end. */
 export interface TextBlock {
@@ -130,33 +130,14 @@ export class LineSplitter {
       this.switchedAt = this.line;
     }
     if (this.encoding === 'windows-1252') u = Buffer.from(cp1252.decode(u), 'utf8');
-    // line ends: counted with native searches (every block, for the physical line numbers)
-    let lfAll = 0;
-    for (let i = u.indexOf(10); i >= 0; i = u.indexOf(10, i + 1)) lfAll++;
-    let crlf = 0;
-    let cr = 0;
-    if (u.indexOf(13) >= 0) {
-      for (let i = u.indexOf(13); i >= 0; i = u.indexOf(13, i + 1)) {
-        if (u[i + 1] === 10) crlf++;
-        else cr++;
-      }
-    }
-    this.lfCount += lfAll - crlf;
-    this.crlfCount += crlf;
-    this.crCount += cr;
-    if (cr > 0 || (crlf > 0 && (this.lf || lfAll > crlf))) {
-      // lone CRs (or a mix, or LF asked for): every CRLF and lone CR becomes LF
-      const out = Buffer.allocUnsafe(u.length);
-      let k = 0;
-      for (let i = 0; i < u.length; i++) {
-        const c = u[i]!;
-        if (c === 13) {
-          out[k++] = 10;
-          if (u[i + 1] === 10) i++;
-        } else out[k++] = c;
-      }
-      u = out.subarray(0, k);
-    }
+    // line ends: counted in every block (the physical line numbers)
+    const c = countLineEnds(u);
+    this.lfCount += c.lf - c.crlf;
+    this.crlfCount += c.crlf;
+    this.crCount += c.cr;
+    if (c.cr > 0 || (c.crlf > 0 && (this.lf || c.lf > c.crlf))) u = lineEndsToLf(u);
+    const lfAll = c.lf;
+    const cr = c.cr;
     const firstLine = this.line;
     this.line += lfAll + cr;
     return { bytes: u, firstLine, hasNul: u.indexOf(0) >= 0, last };
