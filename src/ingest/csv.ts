@@ -362,6 +362,11 @@ export class CsvCore {
     this.nextLine--;
   }
 
+  /** The next row starts on physical line `line` (a piece of a longer text was parsed up to that line). */
+  continueAt(line: number): void {
+    this.nextLine = line;
+  }
+
   private handle(fields: string[], err: { code?: string; message?: string } | undefined): boolean {
     this.line++;
     const line = this.nextLine;
@@ -1463,12 +1468,11 @@ export class CsvReader {
       body = q.text;
       end = q.end;
     } else core.useTextChecks(null, text.indexOf('\u0000') >= 0);
-    if (end < text.length) {
-      this.carry = text.slice(end);
-      let lines = 0;
-      for (let k = text.indexOf('\n'); k >= 0 && k < end; k = text.indexOf('\n', k + 1)) lines++;
-      this.carryLine = firstLine + lines;
-    } else this.carry = '';
+    // physical line where the rest (or the next block) begins
+    let lines = 0;
+    if (!last || end < text.length) for (let k = text.indexOf('\n'); k >= 0 && k < end; k = text.indexOf('\n', k + 1)) lines++;
+    this.carry = end < text.length ? text.slice(end) : '';
+    this.carryLine = firstLine + lines;
     if (body === '') return;
     // (lines blanked by the quote check are rejected by the row handler papaparse feeds, not by the scan)
     if (this.lineMode && !quoted && body.indexOf('\u0000') < 0) core.scanBytes(Buffer.from(body, 'utf8'), 0, '\n', this.delimiter);
@@ -1479,8 +1483,8 @@ export class CsvReader {
       if (body.length <= TEXT_BLOCK) Papa.parse<string[]>(body, config as Papa.ParseConfig<string[]>);
       else parseInBlocks(body, config, core);
     }
-    // the piece ends with its line end unless it is the input's last: that empty tail is the next piece's first line
-    if (!last || end < text.length) core.takeBackEmptyTail();
+    // the piece ends with its line end unless it is the input's last: the line after it is the next piece's first
+    if (!last || end < text.length) core.continueAt(this.carryLine);
   }
 
   /** The observations (when collected) and the file's result; `textNotes` (encoding, line ends) go first. */
