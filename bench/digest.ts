@@ -64,7 +64,9 @@ if (!skipCli) {
       for (const [cmd, argv] of runs) {
         const r = spawnSync(process.execPath, ['--import', 'tsx', join(root, 'cli', 'main.ts'), ...argv], { cwd: root, encoding: 'buffer', maxBuffer: 1 << 30 });
         const extra = cmd === 'report' && existsSync(page) ? ` page ${sha(readFileSync(page))}` : '';
-        lines.push(`${name} ${cmd} exit ${r.status} stdout ${sha(r.stdout)} stderr ${sha(r.stderr)}${extra}`);
+        // the temporary folder's name changes from run to run
+        const clean = (b: Buffer) => sha(b.toString('utf8').split(tmp).join('<tmp>'));
+        lines.push(`${name} ${cmd} exit ${r.status} stdout ${clean(r.stdout)} stderr ${clean(r.stderr)}${extra}`);
         console.log(lines[lines.length - 1]);
         rmSync(page, { force: true });
       }
