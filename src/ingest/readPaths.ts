@@ -353,8 +353,9 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
     const sample = bytes.toString('utf8', 0, Math.min(bytes.length, 32_768)).slice(0, 8192);
     const format = sniffFormat(basename(name).replace(/\.gz$/i, ''), sample, binary);
     const streamed = stream !== undefined && (format === 'metar' || format === 'csv');
-    if (stream !== undefined && !streamed && !('fd' in stream)) {
-      // stations and ISD files are read whole
+    // stations and ISD files are read whole; binary, empty and unknown files need no more than their head
+    const whole = stream !== undefined && (format === 'stations' || format === 'isd');
+    if (whole && stream && !('fd' in stream)) {
       try {
         raw = readFileSync(c.path);
       } catch (e) {
@@ -365,7 +366,7 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
         note(`${c.path}: ${why}`);
         continue;
       }
-    } else if (stream !== undefined && !streamed && 'fd' in stream) raw = Buffer.concat([raw, readRest(stream.fd)]);
+    } else if (whole && stream && 'fd' in stream) raw = Buffer.concat([raw, readRest(stream.fd)]);
     if (format === 'stations') {
       if (opts.stationsFile) {
         note(`${name}: stations file ignored (--stations given)`);
