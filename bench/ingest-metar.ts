@@ -4,8 +4,9 @@
  *   (a) read the whole file as a string + String.split('\n') (the strictest floor: no per-line work at all);
  *   (a2) streaming line splitting with node:readline over a file stream (how Node code usually splits a
  *       file into lines), lines/s;
- *   (b) read the bytes + readMetarBytes into a SeriesBuilder + one typed series per station (what
- *       loadPaths does, without QC), reports/s; (b1) the same to an Observation array; (b0) the decoder alone;
+ *   (b) the file streamed in chunks (scanPaths + readDataFiles) into a SeriesBuilder + one typed series per
+ *       station (what loadPaths does, without QC), reports/s; (b1) read the bytes + readMetarBytes to an
+ *       Observation array; (b0) the decoder alone;
  *   (c) metar-taf-parser's parseMetar on a 50,000-line subset, reports/s.
  * Prints the figures and the ratios ours/split against both splitting references (target ≥ 0.3) and
  * ours/metar-taf-parser.
@@ -18,6 +19,8 @@ import { join } from 'node:path';
 import { pathToFileURL } from 'node:url';
 import { parseMetar } from 'metar-taf-parser';
 import { readMetarBytes, readMetarText } from '../src/ingest/metar.js';
+import { readDataFiles, scanPaths } from '../src/ingest/readPaths.js';
+import type { FileReport } from '../src/model/index.js';
 import { decodeBytesInto } from '../src/ingest/metar/byteMetar.js';
 import { archiveStampInto } from '../src/ingest/metar/calendar.js';
 import { decodeInto, newMetarReport, type DecodeRef } from '../src/ingest/metar/decodeMetar.js';
@@ -215,16 +218,17 @@ export async function benchMetar(nLines = 1_000_000): Promise<MetarBenchFigures>
       stream = Math.min(stream, s);
       streamCpu = Math.min(streamCpu, (u.user + u.system) / 1e6);
     }
-    // (b) read + readMetarBytes into a SeriesBuilder (no Observation per report) + one series per station; best of 3
+    // (b) the file streamed through the METAR reader (scanPaths + readDataFiles, as loadPaths) into a SeriesBuilder
+    // (no Observation per report) + one series per station; best of 3
     let ours = Infinity;
     let oursCpu = Infinity;
-    let res!: { report: ReturnType<typeof readMetarBytes>['report'] };
+    let res!: { report: FileReport };
     let nStations = 0;
     for (let k = 0; k < 3; k++) {
       const [, s, c] = time(() => {
         const b = new SeriesBuilder();
-        const r = readMetarBytes(readFileSync(file), file, { onObservation: (o) => b.add(o) });
-        res = { report: r.report };
+        const r = readDataFiles(scanPaths([file]).dataFiles, {}, (o) => b.add(o));
+        res = { report: r.reports[0]! };
         nStations = 0;
         for (const id of b.stations()) {
           b.build(id);

@@ -12,6 +12,8 @@ export interface CliIo {
   stderr(text: string): void;
   /** All of standard input as text (called only when a path is `-`). */
   readStdin(): Promise<string>;
+  /** Standard input as a descriptor, read as a stream when a path is `-` (instead of readStdin). */
+  stdinFd?: number;
   /** Where a progress bar may be drawn: standard error when it is a terminal and not under CI; absent otherwise (silent). */
   progress?: NodeJS.WriteStream;
 }
@@ -128,7 +130,11 @@ export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<Lo
   }
   if (args.missing.length) opts.missing = [...(opts.missing ?? []), ...args.missing];
   if (args.stations !== undefined) opts.stationsFile = args.stations;
-  if (args.paths.includes('-')) opts.stdinText = await io.readStdin();
+  if (args.paths.includes('-')) {
+    // read as a stream when the descriptor is there (the CLI's own standard input), else whole
+    if (io.stdinFd !== undefined) opts.stdinFd = io.stdinFd;
+    else opts.stdinText = await io.readStdin();
+  }
   if (!args.quiet) opts.onNote = (m) => io.stderr(`fropa: note: ${m}\n`);
   return opts;
 }

@@ -239,6 +239,7 @@ export function processIo(): CliIo {
     stderr: (t) => void process.stderr.write(t),
     // Progress only on a terminal, never under CI (NO_COLOR is respected: the bar has no colours at all).
     ...(process.stderr.isTTY && !process.env.CI ? { progress: process.stderr } : {}),
+    stdinFd: 0,
     readStdin: async () => {
       const chunks: Buffer[] = [];
       for await (const c of process.stdin) chunks.push(c as Buffer);

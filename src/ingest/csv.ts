@@ -56,7 +56,8 @@ import { weatherFlags } from './metar/weather.js';
 import { ecccProvince, ecccWeatherFlags, isEcccHeaders } from './eccc.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
 import { MAGNUS_AERK1996 } from '../physics/vapor.js';
-import { normalizeLineEnds, prepareText } from './text.js';
+import { lineEndsToLf, normalizeLineEnds, prepareText } from './text.js';
+import type { TextBlock } from './lines.js';
 import { DEFAULT_TIME_WINDOW, outOfWindowMessage, type TimeWindow } from './plausible.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
@@ -370,6 +371,20 @@ export class CsvCore {
   /** Take the lines a QuoteScanner rejects as it goes (a stream: its map fills before papaparse sees the lines). */
   useQuoteScanner(scanner: QuoteScanner): void {
     this.quoteBad = scanner.bad;
+  }
+
+  /**
+   * A piece of a longer text ended with its line end, which the parsers read as one more (empty) row before
+   * the end: take it back, since that line is the first of the next piece.
+   */
+  takeBackEmptyTail(): void {
+    this.line--;
+    this.nextLine--;
+  }
+
+  /** The next row starts on physical line `line` (a piece of a longer text was parsed up to that line). */
+  continueAt(line: number): void {
+    this.nextLine = line;
   }
 
   private handle(fields: string[], err: { code?: string; message?: string } | undefined): boolean {
@@ -1131,6 +1146,23 @@ export interface QuoteCheck {
   bad: Map<number, { reason: string; message: string }>;
   /** Physical lines that continue a multi-line record (counted, not rows of their own). */
   continued: number;
+  /** Where the records looked at end (`text.length` unless `more` was set): the rest waits for more text. */
+  end: number;
+  /** Fields of the header record (-1 while none was seen), to pass on to the check of the text that follows. */
+  headerFields: number;
+}
+
+/** Where a text checked by `checkQuotes` stands in its input. */
+export interface QuoteCheckAt {
+  /** Physical line (1-based) of the text's first line (default 1). */
+  firstLine?: number;
+  /** Fields of the input's header record, found in an earlier piece (default: the first non-blank record here). */
+  headerFields?: number;
+  /**
+   * More text follows: records are looked at only while at least MAX_RECORD_LINES + 2 line ends follow their
+   * start (all a record's decision can depend on); `end` says where the rest begins.
+   */
+  more?: boolean;
 }
 
 /**
@@ -1141,16 +1173,134 @@ export interface QuoteCheck {
  * header's number of fields, and no line wholly inside the quoted field holds a whole row's delimiters; otherwise its first line is an unclosed quote (rejected, `bad-quotes`) and
  * reading starts again on the next line, so one stray quote never swallows the rows after it.
  */
-export function checkQuotes(text: string, delimiter: string): QuoteCheck {
-  const scanner = new QuoteScanner(delimiter);
-  return { text: scanner.end(text), bad: scanner.bad, continued: scanner.continued };
+export function checkQuotes(text: string, delimiter: string, at: QuoteCheckAt = {}): QuoteCheck {
+  const bad = new Map<number, { reason: string; message: string }>();
+  let continued = 0;
+  const n = text.length;
+  const d = delimiter;
+  const dl = d.length;
+  let headerFields = at.headerFields ?? -1;
+  let pos = 0;
+  let line = at.firstLine ?? 1;
+  const blanks: [number, number][] = [];
+  // with more text to come: the last record start looked at has MAX_RECORD_LINES + 2 line ends after it
+  let lastStart = n;
+  if (at.more) {
+    lastStart = n;
+    for (let i = 0; i < MAX_RECORD_LINES + 2 && lastStart >= 0; i++) lastStart = lastStart > 0 ? text.lastIndexOf('\n', lastStart - 1) : -1;
+  }
+  while (pos < n) {
+    if (at.more && pos > lastStart) break;
+    // one record from pos, starting on physical line `line`
+    const recStart = pos;
+    const recLine = line;
+    let fields = 1;
+    let p = pos;
+    let lines = 1;
+    let ok = true;
+    let end = -1; // index of the record's line end (or n)
+    let openedAt = -1;
+    let invalid = false;
+    while (p <= n) {
+      // at a field start
+      if (p < n && text.charCodeAt(p) === 34) {
+        openedAt = p;
+        let q = p + 1;
+        let closed = false;
+        for (;;) {
+          const k = text.indexOf('"', q);
+          // line ends crossed before the next quote
+          const stop = k < 0 ? n : k;
+          for (let j = text.indexOf('\n', q); j >= 0 && j < stop; j = text.indexOf('\n', j + 1)) lines++;
+          if (k < 0 || lines > MAX_RECORD_LINES) break;
+          if (text.charCodeAt(k + 1) === 34) {
+            q = k + 2;
+            continue;
+          }
+          let r = k + 1;
+          while (r < n && (text.charCodeAt(r) === 32 || text.charCodeAt(r) === 9)) r++;
+          if (r >= n || text.startsWith(d, r) || text.charCodeAt(r) === 10 || (text.charCodeAt(r) === 13 && text.charCodeAt(r + 1) === 10)) {
+            p = r;
+            closed = true;
+            break;
+          }
+          invalid = true; // a lone quote inside a quoted field (papaparse: InvalidQuotes)
+          q = k + 1;
+        }
+        if (!closed) {
+          ok = false;
+          break;
+        }
+      }
+      // unquoted rest of the field: to the delimiter or the line end
+      const nl = text.indexOf('\n', p);
+      const lineEnd = nl < 0 ? n : nl;
+      const dd = dl ? text.indexOf(d, p) : -1;
+      if (dd >= 0 && dd < lineEnd) {
+        fields++;
+        p = dd + dl;
+        continue;
+      }
+      end = lineEnd;
+      break;
+    }
+    if (ok && lines > 1) {
+      if (invalid || lines > MAX_RECORD_LINES || (headerFields >= 0 && fields !== headerFields)) ok = false;
+      else if (headerFields > 1 && dl > 0) {
+        // a line wholly inside the quoted field that holds a whole row's delimiters is a row swallowed by a stray quote
+        let a = text.indexOf('\n', recStart) + 1;
+        for (let b = text.indexOf('\n', a); ok && b >= 0 && b < end; a = b + 1, b = text.indexOf('\n', a)) {
+          let k = 0;
+          for (let j = text.indexOf(d, a); j >= 0 && j < b; j = text.indexOf(d, j + dl)) k++;
+          if (k >= headerFields - 1) ok = false;
+        }
+      }
+    }
+    if (!ok) {
+      // reject the first line only; read on from the next
+      const nl = text.indexOf('\n', recStart);
+      const lineEnd = nl < 0 ? n : nl;
+      const col = openedAt >= 0 && openedAt < lineEnd ? openedAt - recStart + 1 : 1;
+      bad.set(recLine, {
+        reason: 'bad-quotes',
+        message: `unclosed quote (") at character ${col} runs past the end of its line; line skipped, the rest of the file is read (close or remove the quote)`,
+      });
+      blanks.push([recStart, lineEnd > recStart && text.charCodeAt(lineEnd - 1) === 13 ? lineEnd - 1 : lineEnd]);
+      pos = lineEnd + 1;
+      line = recLine + 1;
+      continue;
+    }
+    const blank = end === recStart || text.slice(recStart, end).trim() === '';
+    if (!blank && fields === 1 && lines === 1 && openedAt >= 0 && text.slice(recStart, end).replace(/"/g, '').trim() === '') {
+      // `""` alone: one empty cell, which would pass for a blank line
+      bad.set(recLine, { reason: 'empty-row', message: 'the line holds only an empty quoted cell; nothing to read' });
+      blanks.push([recStart, end > recStart && text.charCodeAt(end - 1) === 13 ? end - 1 : end]);
+    }
+    if (headerFields < 0 && !blank) headerFields = fields;
+    if (lines > 1) continued += lines - 1;
+    pos = end + 1;
+    line = recLine + lines;
+  }
+  const end = Math.min(pos, n);
+  let out = end === n ? text : text.slice(0, end);
+  if (blanks.length) {
+    const parts: string[] = [];
+    let from = 0;
+    for (const [a, b] of blanks) {
+      parts.push(text.slice(from, a));
+      from = b;
+    }
+    parts.push(text.slice(from, end));
+    out = parts.join('');
+  }
+  return { text: out, bad, continued, end, headerFields };
 }
 
 /**
- * checkQuotes on a text that arrives in pieces (a stream): `push` takes the next piece and gives back the text
- * whose records are decided (unclosed quotes blanked, line ends kept), holding back the last
- * MAX_RECORD_LINES + 2 lines, which the next piece may still change; `end` gives the rest. The pieces given
- * back, joined, are what checkQuotes gives for the whole text, and `bad` fills as they are given.
+ * checkQuotes on a text that arrives in pieces (a Node stream, readCsvStream): `push` takes the next piece and
+ * gives back the text whose records are decided (unclosed quotes blanked, line ends kept), holding back what
+ * the next piece may still change (checkQuotes with `more`); `end` gives the rest. The pieces given back,
+ * joined, are what checkQuotes gives for the whole text, and `bad` fills as they are given.
  */
 export class QuoteScanner {
   /** Physical line (1-based) → reason and message, as QuoteCheck.bad; filled as records are decided. */
@@ -1169,136 +1319,22 @@ export class QuoteScanner {
 
   /** The next piece of the text; returns the decided text before it (possibly empty). */
   push(piece: string): string {
-    const text = this.held + piece;
-    // records may start only where MAX_RECORD_LINES + 2 line ends still follow (a record decides within them)
-    let limit = text.length;
-    for (let k = 0; k < MAX_RECORD_LINES + 2 && limit > 0; k++) limit = text.lastIndexOf('\n', limit - 1);
-    if (limit <= 0) {
-      this.held = text;
-      return '';
-    }
-    return this.scan(text, limit);
+    return this.scan(this.held + piece, true);
   }
 
   /** The last piece (may be empty): returns the rest of the decided text. */
   end(piece = ''): string {
-    const text = this.held + piece;
-    this.held = '';
-    return this.scan(text, text.length);
+    return this.scan(this.held + piece, false);
   }
 
-  /** Decide the records of `text` that start before `limit`; hold back the rest; return the decided text. */
-  private scan(text: string, limit: number): string {
-    const bad = this.bad;
-    const n = text.length;
-    const d = this.d;
-    const dl = d.length;
-    let pos = 0;
-    let line = this.line;
-    const blanks: [number, number][] = [];
-    while (pos < n && pos < limit) {
-      // one record from pos, starting on physical line `line`
-      const recStart = pos;
-      const recLine = line;
-      let fields = 1;
-      let p = pos;
-      let lines = 1;
-      let ok = true;
-      let end = -1; // index of the record's line end (or n)
-      let openedAt = -1;
-      let invalid = false;
-      while (p <= n) {
-        // at a field start
-        if (p < n && text.charCodeAt(p) === 34) {
-          openedAt = p;
-          let q = p + 1;
-          let closed = false;
-          for (;;) {
-            const k = text.indexOf('"', q);
-            // line ends crossed before the next quote
-            const stop = k < 0 ? n : k;
-            for (let j = text.indexOf('\n', q); j >= 0 && j < stop; j = text.indexOf('\n', j + 1)) lines++;
-            if (k < 0 || lines > MAX_RECORD_LINES) break;
-            if (text.charCodeAt(k + 1) === 34) {
-              q = k + 2;
-              continue;
-            }
-            let r = k + 1;
-            while (r < n && (text.charCodeAt(r) === 32 || text.charCodeAt(r) === 9)) r++;
-            if (r >= n || text.startsWith(d, r) || text.charCodeAt(r) === 10 || (text.charCodeAt(r) === 13 && text.charCodeAt(r + 1) === 10)) {
-              p = r;
-              closed = true;
-              break;
-            }
-            invalid = true; // a lone quote inside a quoted field (papaparse: InvalidQuotes)
-            q = k + 1;
-          }
-          if (!closed) {
-            ok = false;
-            break;
-          }
-        }
-        // unquoted rest of the field: to the delimiter or the line end
-        const nl = text.indexOf('\n', p);
-        const lineEnd = nl < 0 ? n : nl;
-        const dd = dl ? text.indexOf(d, p) : -1;
-        if (dd >= 0 && dd < lineEnd) {
-          fields++;
-          p = dd + dl;
-          continue;
-        }
-        end = lineEnd;
-        break;
-      }
-      if (ok && lines > 1) {
-        if (invalid || lines > MAX_RECORD_LINES || (this.headerFields >= 0 && fields !== this.headerFields)) ok = false;
-        else if (this.headerFields > 1 && dl > 0) {
-          // a line wholly inside the quoted field that holds a whole row's delimiters is a row swallowed by a stray quote
-          let a = text.indexOf('\n', recStart) + 1;
-          for (let b = text.indexOf('\n', a); ok && b >= 0 && b < end; a = b + 1, b = text.indexOf('\n', a)) {
-            let k = 0;
-            for (let j = text.indexOf(d, a); j >= 0 && j < b; j = text.indexOf(d, j + dl)) k++;
-            if (k >= this.headerFields - 1) ok = false;
-          }
-        }
-      }
-      if (!ok) {
-        // reject the first line only; read on from the next
-        const nl = text.indexOf('\n', recStart);
-        const lineEnd = nl < 0 ? n : nl;
-        const col = openedAt >= 0 && openedAt < lineEnd ? openedAt - recStart + 1 : 1;
-        bad.set(recLine, {
-          reason: 'bad-quotes',
-          message: `unclosed quote (") at character ${col} runs past the end of its line; line skipped, the rest of the file is read (close or remove the quote)`,
-        });
-        blanks.push([recStart, lineEnd > recStart && text.charCodeAt(lineEnd - 1) === 13 ? lineEnd - 1 : lineEnd]);
-        pos = lineEnd + 1;
-        line = recLine + 1;
-        continue;
-      }
-      const blank = end === recStart || text.slice(recStart, end).trim() === '';
-      if (!blank && fields === 1 && lines === 1 && openedAt >= 0 && text.slice(recStart, end).replace(/"/g, '').trim() === '') {
-        // `""` alone: one empty cell, which would pass for a blank line
-        bad.set(recLine, { reason: 'empty-row', message: 'the line holds only an empty quoted cell; nothing to read' });
-        blanks.push([recStart, end > recStart && text.charCodeAt(end - 1) === 13 ? end - 1 : end]);
-      }
-      if (this.headerFields < 0 && !blank) this.headerFields = fields;
-      if (lines > 1) this.continued += lines - 1;
-      pos = end + 1;
-      line = recLine + lines;
-    }
-    this.line = line;
-    const done = Math.min(pos, n);
-    this.held = done < n ? text.slice(done) : '';
-    if (blanks.length === 0) return done === n ? text : text.slice(0, done);
-    const parts: string[] = [];
-    let at = 0;
-    for (const [a, b] of blanks) {
-      parts.push(text.slice(at, a));
-      at = b;
-    }
-    parts.push(text.slice(at, done));
-    return parts.join('');
+  private scan(text: string, more: boolean): string {
+    const q = checkQuotes(text, this.d, { firstLine: this.line, headerFields: this.headerFields, more });
+    for (const [line, v] of q.bad) this.bad.set(line, v);
+    this.continued += q.continued;
+    this.headerFields = q.headerFields;
+    for (let k = text.indexOf('\n'); k >= 0 && k < q.end; k = text.indexOf('\n', k + 1)) this.line++;
+    this.held = q.end < text.length ? text.slice(q.end) : '';
+    return q.text;
   }
 }
 
@@ -1428,7 +1464,8 @@ export function readCsvText(
       config.delimiter = g.delimiter;
       config.newline = g.newline;
       // No quote character anywhere: CSV is a plain split on line ending and delimiter (papaparse's fast mode).
-      if (opts.parser !== 'papaparse' && lineModeFits(g) && body.indexOf('"') < 0) core.scanBytes(Buffer.from(body, 'utf8'), 0, g.newline!, g.delimiter);
+      // Not after the quote check blanked lines, nor with NUL bytes: papaparse's row handler rejects those lines.
+      if (opts.parser !== 'papaparse' && lineModeFits(g) && !hasQuote && body.indexOf('\u0000') < 0) core.scanBytes(Buffer.from(body, 'utf8'), 0, g.newline!, g.delimiter);
       else parseInBlocks(body, config, core);
     }
   }
@@ -1448,11 +1485,13 @@ export function readCsvBytes(
 ): CsvResult & { observations: Observation[] } {
   // not UTF-8 → Windows-1252; BOM dropped; lone CRs and mixed line ends made LF (text.ts)
   const prep = prepareText(bytes);
-  const u = prep.bytes;
-  const withNotes = <T extends { report: FileReport }>(r: T): T => {
-    if (prep.notes.length) r.report.notes.unshift(...prep.notes);
-    return r;
-  };
+  const r = readPreparedCsv(prep.bytes, file, opts, onObservation);
+  if (prep.notes.length) r.report.notes.unshift(...prep.notes);
+  return r;
+}
+
+/** readCsvBytes on bytes already prepared (UTF-8, no BOM, one kind of line end), without the text notes. */
+function readPreparedCsv(u: Buffer, file: string, opts: CsvOptions, onObservation?: (o: Observation) => void): CsvResult & { observations: Observation[] } {
   const bom = 0;
   // the text path's checks: NUL in the first 8192 characters; a text that is not blank (first printable byte is ASCII)
   let first = bom;
@@ -1465,10 +1504,131 @@ export function readCsvBytes(
       const observations: Observation[] = [];
       const core = new CsvCore(file, opts, onObservation ?? ((o) => observations.push(o)));
       core.scanBytes(u, bom, g.newline!, g.delimiter);
-      return withNotes({ ...core.finish(), observations });
+      return { ...core.finish(), observations };
     }
   }
-  return withNotes(readCsvText(u.toString('utf8'), file, opts, onObservation));
+  return readCsvText(u.toString('utf8'), file, opts, onObservation);
+}
+
+/** Bytes a CsvReader holds before it reads as a stream (below this a file is read whole, as readCsvBytes reads it). */
+export const CSV_WHOLE_BYTES = 4 << 20;
+
+/**
+ * The CSV reader over blocks of whole lines (a LineSplitter's output, in order), with the rules of readCsvText.
+ * An input up to `wholeBytes` (default CSV_WHOLE_BYTES) is read whole, exactly as readCsvBytes reads it. A
+ * longer one is read piece by piece: delimiter and line ending are papaparse's guess on the first `wholeBytes`;
+ * each piece's quotes are checked (`checkQuotes`, with what the piece before found) up to the last record whose
+ * decision fits in it, the rest waits for the next block; pieces without quotes or NUL are scanned in place,
+ * the others parsed by papaparse. Memory holds one block and the lines carried over.
+ */
+export class CsvReader {
+  private readonly core: CsvCore;
+  private readonly observations: Observation[] = [];
+  private readonly opts: CsvOptions;
+  private readonly onObservation: ((o: Observation) => void) | undefined;
+  private readonly file: string;
+  private readonly wholeBytes: number;
+  private held: Buffer[] | null = [];
+  private heldBytes = 0;
+  private heldFirstLine = 1;
+  private delimiter = ',';
+  private lineMode = false;
+  private carry = '';
+  private carryLine = 1;
+  private headerFields = -1;
+  private wholeResult: (CsvResult & { observations: Observation[] }) | null = null;
+
+  constructor(file: string, opts: CsvOptions = {}, onObservation?: (o: Observation) => void, wholeBytes = CSV_WHOLE_BYTES) {
+    this.file = file;
+    this.opts = opts;
+    this.onObservation = onObservation;
+    this.wholeBytes = wholeBytes;
+    this.core = new CsvCore(file, opts, onObservation ?? ((o) => this.observations.push(o)));
+  }
+
+  /** Read one block. */
+  block(b: TextBlock): void {
+    if (this.held !== null) {
+      if (this.heldBytes === 0) this.heldFirstLine = b.firstLine;
+      this.held.push(b.bytes);
+      this.heldBytes += b.bytes.length;
+      if (this.heldBytes <= this.wholeBytes && !b.last) return;
+      if (b.last) return;
+      // long input: read as a stream from here
+      const head = this.held;
+      this.held = null;
+      const text = lfText(Buffer.concat(head));
+      const g = guessFormat(text.charCodeAt(0) === 0xfeff ? text.slice(1) : text, this.opts);
+      this.delimiter = g.delimiter;
+      this.lineMode = this.opts.parser !== 'papaparse' && lineModeFits(g);
+      this.piece(text, this.heldFirstLine, false);
+      return;
+    }
+    if (this.core.stopped) return;
+    const u = b.bytes.indexOf(13) >= 0 ? lineEndsToLf(b.bytes) : b.bytes;
+    if (this.carry === '' && this.lineMode && u.indexOf(34) < 0 && !b.hasNul) {
+      // no quote: a plain split on line end and delimiter, read in place
+      this.core.useTextChecks(null, false);
+      this.core.scanBytes(u, 0, '\n', this.delimiter);
+      if (!b.last) this.core.takeBackEmptyTail();
+      return;
+    }
+    const line = this.carry === '' ? b.firstLine : this.carryLine;
+    this.piece(this.carry + u.toString('utf8'), line, b.last);
+  }
+
+  /** Check the quotes of a piece of text (physical line `firstLine` on) and parse what they settle; carry the rest. */
+  private piece(text: string, firstLine: number, last: boolean): void {
+    const core = this.core;
+    let body = text;
+    let end = text.length;
+    const quoted = text.indexOf('"') >= 0;
+    if (quoted) {
+      const q = checkQuotes(text, this.delimiter, { firstLine, headerFields: this.headerFields, more: !last });
+      this.headerFields = q.headerFields;
+      core.useTextChecks(q, text.indexOf('\u0000') >= 0);
+      body = q.text;
+      end = q.end;
+    } else core.useTextChecks(null, text.indexOf('\u0000') >= 0);
+    // physical line where the rest (or the next block) begins
+    let lines = 0;
+    if (!last || end < text.length) for (let k = text.indexOf('\n'); k >= 0 && k < end; k = text.indexOf('\n', k + 1)) lines++;
+    this.carry = end < text.length ? text.slice(end) : '';
+    this.carryLine = firstLine + lines;
+    if (body === '') return;
+    // (lines blanked by the quote check are rejected by the row handler papaparse feeds, not by the scan)
+    if (this.lineMode && !quoted && body.indexOf('\u0000') < 0) core.scanBytes(Buffer.from(body, 'utf8'), 0, '\n', this.delimiter);
+    else {
+      const config = papaConfig(this.opts, core);
+      config.delimiter = this.delimiter;
+      config.newline = '\n';
+      if (body.length <= TEXT_BLOCK) Papa.parse<string[]>(body, config as Papa.ParseConfig<string[]>);
+      else parseInBlocks(body, config, core);
+    }
+    // the piece ends with its line end unless it is the input's last: the line after it is the next piece's first
+    if (!last || end < text.length) core.continueAt(this.carryLine);
+  }
+
+  /** The observations (when collected) and the file's result; `textNotes` (encoding, line ends) go first. */
+  finish(textNotes: readonly string[] = []): CsvResult & { observations: Observation[] } {
+    let r: CsvResult & { observations: Observation[] };
+    if (this.held !== null) {
+      // read whole: the bytes prepareText would give (one kind of line end throughout)
+      let u: Buffer = Buffer.concat(this.held);
+      if (textNotes.some((n) => n.startsWith('line ends'))) u = lineEndsToLf(u);
+      r = readPreparedCsv(u, this.file, this.opts, this.onObservation);
+    } else {
+      if (this.carry !== '' && !this.core.stopped) this.piece(this.carry, this.carryLine, true);
+      r = { ...this.core.finish(), observations: this.observations };
+    }
+    if (textNotes.length) r.report.notes.unshift(...textNotes);
+    return r;
+  }
+}
+
+/** A block's text with LF line ends. */
+function lfText(u: Buffer): string {
+  return (u.indexOf(13) >= 0 ? lineEndsToLf(u) : u).toString('utf8');
 }
 
 /**

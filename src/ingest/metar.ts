@@ -9,7 +9,7 @@ import { decodeInto, type DecodeRef } from './metar/decodeMetar.js';
 import { newMetarReport, type MetarReport } from './metar/metarReport.js';
 import { decodeBytesInto } from './metar/byteMetar.js';
 import { MS_PER_DAY } from '../physics/constants.js';
-import { prepareText } from './text.js';
+import { encodingOf, LineSplitter, splitWhole, type TextBlock } from './lines.js';
 import { DEFAULT_TIME_WINDOW, outOfWindowMessage, type TimeWindow } from './plausible.js';
 
 export { decodeMetar, decodeMetarAt, isParseIssue, newMetarReport } from './metar/decodeMetar.js';
@@ -107,22 +107,45 @@ export function readMetarBytes(
   file: string,
   opts: MetarReadOptions = {},
 ): { observations: Observation[]; report: FileReport; reports?: never } {
-  const observations: Observation[] = [];
-  const sink = opts.onObservation;
-  let report: FileReport;
-  // not UTF-8 → Windows-1252; BOM dropped; lone CRs and mixed line ends made LF (text.ts)
-  const prep = prepareText(bytes);
-  bytes = prep.bytes;
-  if (sink) {
-    const o = emptyObservation('', NaN, file, 0);
-    o.remarks = undefined;
-    report = scanMetar(bytes, file, opts.month, opts.timeWindow ?? DEFAULT_TIME_WINDOW, (r, line) => {
-      fillObservation(r, line, o);
-      sink(o);
-    });
-  } else report = scanMetar(bytes, file, opts.month, opts.timeWindow ?? DEFAULT_TIME_WINDOW, (r, line) => observations.push(metarToObservation(r, file, line)));
-  if (prep.notes.length) report.notes.unshift(...prep.notes);
-  return { observations, report };
+  // not UTF-8 → Windows-1252 (decided on the whole buffer, as prepareText); BOM dropped; line ends (lines.ts)
+  const splitter = new LineSplitter({ encoding: encodingOf(bytes) });
+  const reader = new MetarReader(file, opts);
+  for (const b of splitWhole(bytes, splitter)) reader.block(b);
+  return reader.finish(splitter.notes());
+}
+
+/**
+ * The METAR reader over blocks of whole lines (a LineSplitter's output, in order): the rules of readMetarText.
+ * Without `opts.onObservation` the observations are collected.
+ */
+export class MetarReader {
+  private readonly observations: Observation[] = [];
+  private readonly scan: MetarScan;
+
+  constructor(file: string, opts: MetarReadOptions = {}) {
+    const sink = opts.onObservation;
+    const window = opts.timeWindow ?? DEFAULT_TIME_WINDOW;
+    if (sink) {
+      const o = emptyObservation('', NaN, file, 0);
+      o.remarks = undefined;
+      this.scan = new MetarScan(file, opts.month, window, (r, line) => {
+        fillObservation(r, line, o);
+        sink(o);
+      });
+    } else this.scan = new MetarScan(file, opts.month, window, (r, line) => this.observations.push(metarToObservation(r, file, line)));
+  }
+
+  /** Read the lines of one block. */
+  block(b: TextBlock): void {
+    this.scan.block(b.bytes, b.firstLine);
+  }
+
+  /** The observations (when collected) and the file's report; `textNotes` (encoding, line ends) go first. */
+  finish(textNotes: readonly string[] = []): { observations: Observation[]; report: FileReport; reports?: never } {
+    const report = this.scan.finish();
+    if (textNotes.length) report.notes.unshift(...textNotes);
+    return { observations: this.observations, report };
+  }
 }
 
 /** Options of readMetarText. */
@@ -160,169 +183,183 @@ function fillObservation(r: MetarReport, line: number, o: Observation): void {
   o.line = line;
 }
 
-/** The line loop of readMetarBytes: calls `emit` with each usable report (r is reused). */
-function scanMetar(
-  u: Uint8Array,
-  file: string,
-  month: string | undefined,
-  window: Readonly<TimeWindow>,
-  emit: (r: MetarReport, line: number) => void,
-): FileReport {
-  const report = newFileReport(file, 'metar');
-  let unknownGroups = 0;
+/** The line loop of the METAR reader, block by block: calls `emit` with each usable report (r is reused). */
+class MetarScan {
+  private readonly report: FileReport;
+  private unknownGroups = 0;
   // Year/month sources other than archive stamps.
-  let fixed: MonthRef | null = null;
-  let running: MonthRef | null = null;
-  let sourceNote = '';
-  if (month !== undefined) {
-    const m = parseMonthOption(month);
-    if (!m) throw new RangeError(`month must be YYYY-MM, got "${month}"`);
-    fixed = { year: m.year, month: m.month };
-    sourceNote = `year and month ${month} taken from the month option`;
-  } else {
-    const d = yearMonthFromFileName(file);
-    if (d) {
-      const ym = `${d.year}-${String(d.month).padStart(2, '0')}`;
-      if (d.day !== undefined) {
-        running = { year: d.year, month: d.month, refDay: d.day, refMode: 'nearest' };
-        sourceNote = `year and month taken from the file name (${ym}-${String(d.day).padStart(2, '0')}, read as the first day covered; month ends roll over)`;
-      } else {
-        fixed = { year: d.year, month: d.month };
-        sourceNote = `year and month ${ym} taken from the file name`;
-      }
-    }
-  }
-  const r = newMetarReport();
-  const ref: DecodeRef = { year: 0, month: 0, file, line: 0, refDay: undefined, refMode: undefined, column0: 0 };
-  const st: ArchiveStamp = { year: 0, month: 0, day: 0, next: 0 };
-  const civil: [number, number, number] = [0, 0, 0];
-  const buf = Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength);
-  let lastDay = NaN;
-  let stamped = 0;
-  let noYearMonth = 0;
-  let lineNo = 0;
-  let p = 0;
-  const len = u.length;
-  while (p <= len) {
-    let e = buf.indexOf(10, p);
-    if (e < 0) e = len;
-    lineNo++;
-    let a = p;
-    let b = e;
-    p = e + 1;
-    while (a < b && u[a]! <= 32) a++;
-    while (b > a && u[b - 1]! <= 32) b--;
-    if (a === b) {
-      if (e === len) break;
-      continue;
-    }
-    report.lines++;
-    if (u[a] === 35 /* # */) {
-      addIssue(report, { file, line: lineNo, reason: 'comment', message: 'comment line (#) skipped' });
-      continue;
-    }
-    ref.line = lineNo;
-    ref.column0 = 0;
-    const stamped1 = u[a]! <= 57 && archiveStampInto(u, a, b, st);
-    let start = a;
-    if (stamped1 && st.day > daysInMonth(st.year, st.month)) {
-      addIssue(report, {
-        file,
-        line: lineNo,
-        reason: 'bad-stamp',
-        message: `archive stamp day ${st.day} does not exist in ${st.year}-${String(st.month).padStart(2, '0')}; fix the stamp`,
-        column: 1,
-      });
-      continue;
-    }
-    if (stamped1) {
-      ref.year = st.year;
-      ref.month = st.month;
-      ref.refDay = st.day;
-      ref.refMode = 'archive';
-      ref.column0 = st.next - a;
-      start = st.next;
-      stamped++;
-    } else if (running) {
-      ref.year = running.year;
-      ref.month = running.month;
-      ref.refDay = running.refDay;
-      ref.refMode = 'nearest';
-    } else if (fixed) {
-      ref.year = fixed.year;
-      ref.month = fixed.month;
-      ref.refDay = undefined;
-      ref.refMode = undefined;
+  private fixed: MonthRef | null = null;
+  private running: MonthRef | null = null;
+  private sourceNote = '';
+  private readonly r = newMetarReport();
+  private readonly ref: DecodeRef;
+  private readonly st: ArchiveStamp = { year: 0, month: 0, day: 0, next: 0 };
+  private readonly civil: [number, number, number] = [0, 0, 0];
+  private lastDay = NaN;
+  private stamped = 0;
+  private noYearMonth = 0;
+
+  constructor(
+    private readonly file: string,
+    month: string | undefined,
+    private readonly window: Readonly<TimeWindow>,
+    private readonly emit: (r: MetarReport, line: number) => void,
+  ) {
+    this.report = newFileReport(file, 'metar');
+    if (month !== undefined) {
+      const m = parseMonthOption(month);
+      if (!m) throw new RangeError(`month must be YYYY-MM, got "${month}"`);
+      this.fixed = { year: m.year, month: m.month };
+      this.sourceNote = `year and month ${month} taken from the month option`;
     } else {
-      noYearMonth++;
-      addIssue(report, {
-        file,
-        line: lineNo,
-        reason: 'no-year-month',
-        message: 'no year and month for this report: pass --month YYYY-MM or use a dated file name (e.g. KORD_2024-02-27_metar.txt)',
-      });
-      continue;
-    }
-    // Common lines take the single-pass byte decoder; it gives up on anything unusual, and the line is
-    // then decoded as text by the general decoder (same results either way).
-    let is: ParseIssue | null = null;
-    if (!decodeBytesInto(r, u, start, b, ref)) {
-      // the byte decoder gives up on control bytes: a damaged line is rejected here, the rest read
-      let ctl = -1;
-      for (let i = a; i < b; i++) {
-        const c = u[i]!;
-        if ((c < 32 && c !== 9 && c !== 11 && c !== 12) || c === 127) {
-          ctl = i;
-          break;
+      const d = yearMonthFromFileName(file);
+      if (d) {
+        const ym = `${d.year}-${String(d.month).padStart(2, '0')}`;
+        if (d.day !== undefined) {
+          this.running = { year: d.year, month: d.month, refDay: d.day, refMode: 'nearest' };
+          this.sourceNote = `year and month taken from the file name (${ym}-${String(d.day).padStart(2, '0')}, read as the first day covered; month ends roll over)`;
+        } else {
+          this.fixed = { year: d.year, month: d.month };
+          this.sourceNote = `year and month ${ym} taken from the file name`;
         }
       }
-      if (ctl >= 0) {
+    }
+    this.ref = { year: 0, month: 0, file, line: 0, refDay: undefined, refMode: undefined, column0: 0 };
+  }
+
+  /** Read the lines of `u` (whole lines, LF or CRLF ends), the first being physical line `firstLine`. */
+  block(u: Uint8Array, firstLine: number): void {
+    const { file, report, r, ref, st, civil, window, emit, fixed, running } = this;
+    const buf = Buffer.isBuffer(u) ? u : Buffer.from(u.buffer, u.byteOffset, u.byteLength);
+    let lineNo = firstLine - 1;
+    let p = 0;
+    const len = u.length;
+    while (p <= len) {
+      let e = buf.indexOf(10, p);
+      if (e < 0) e = len;
+      lineNo++;
+      let a = p;
+      let b = e;
+      p = e + 1;
+      while (a < b && u[a]! <= 32) a++;
+      while (b > a && u[b - 1]! <= 32) b--;
+      if (a === b) {
+        if (e === len) break;
+        continue;
+      }
+      report.lines++;
+      if (u[a] === 35 /* # */) {
+        addIssue(report, { file, line: lineNo, reason: 'comment', message: 'comment line (#) skipped' });
+        continue;
+      }
+      ref.line = lineNo;
+      ref.column0 = 0;
+      const stamped1 = u[a]! <= 57 && archiveStampInto(u, a, b, st);
+      let start = a;
+      if (stamped1 && st.day > daysInMonth(st.year, st.month)) {
         addIssue(report, {
           file,
           line: lineNo,
-          reason: 'control-bytes',
-          message: `the line holds a ${u[ctl] === 0 ? 'NUL' : 'control'} byte at character ${ctl - a + 1} (damaged); line skipped, the rest of the file is read`,
+          reason: 'bad-stamp',
+          message: `archive stamp day ${st.day} does not exist in ${st.year}-${String(st.month).padStart(2, '0')}; fix the stamp`,
+          column: 1,
         });
         continue;
       }
-      const line = buf.toString('utf8', a, b);
-      const s0 = start - a; // the stamp and the blanks before it are ASCII: byte and character offsets agree
-      is = decodeInto(r, line, s0, line.length, ref, true);
-    }
-    if (is) {
-      addIssue(report, is);
-      continue;
-    }
-    if (!(r.timeMs >= window.fromMs && r.timeMs < window.toMs)) {
-      addIssue(report, { file, line: lineNo, reason: 'time-out-of-range', message: outOfWindowMessage(r.timeMs, window) });
-      continue;
-    }
-    unknownGroups += r.unknownGroups.length;
-    if (r.nil) {
-      addIssue(report, { file, line: lineNo, reason: 'nil-report', message: `NIL report for ${r.station}: no observation to use` });
-      continue;
-    }
-    if (running && !stamped1) {
-      const dayNo = Math.floor(r.timeMs / MS_PER_DAY);
-      if (dayNo !== lastDay) {
-        lastDay = dayNo;
-        civilFromDays(dayNo, civil);
-        running.year = civil[0];
-        running.month = civil[1];
-        running.refDay = civil[2];
+      if (stamped1) {
+        ref.year = st.year;
+        ref.month = st.month;
+        ref.refDay = st.day;
+        ref.refMode = 'archive';
+        ref.column0 = st.next - a;
+        start = st.next;
+        this.stamped++;
+      } else if (running) {
+        ref.year = running.year;
+        ref.month = running.month;
+        ref.refDay = running.refDay;
+        ref.refMode = 'nearest';
+      } else if (fixed) {
+        ref.year = fixed.year;
+        ref.month = fixed.month;
+        ref.refDay = undefined;
+        ref.refMode = undefined;
+      } else {
+        this.noYearMonth++;
+        addIssue(report, {
+          file,
+          line: lineNo,
+          reason: 'no-year-month',
+          message: 'no year and month for this report: pass --month YYYY-MM or use a dated file name (e.g. KORD_2024-02-27_metar.txt)',
+        });
+        continue;
       }
+      // Common lines take the single-pass byte decoder; it gives up on anything unusual, and the line is
+      // then decoded as text by the general decoder (same results either way).
+      let is: ParseIssue | null = null;
+      if (!decodeBytesInto(r, u, start, b, ref)) {
+        // the byte decoder gives up on control bytes: a damaged line is rejected here, the rest read
+        let ctl = -1;
+        for (let i = a; i < b; i++) {
+          const c = u[i]!;
+          if ((c < 32 && c !== 9 && c !== 11 && c !== 12) || c === 127) {
+            ctl = i;
+            break;
+          }
+        }
+        if (ctl >= 0) {
+          addIssue(report, {
+            file,
+            line: lineNo,
+            reason: 'control-bytes',
+            message: `the line holds a ${u[ctl] === 0 ? 'NUL' : 'control'} byte at character ${ctl - a + 1} (damaged); line skipped, the rest of the file is read`,
+          });
+          continue;
+        }
+        const line = buf.toString('utf8', a, b);
+        const s0 = start - a; // the stamp and the blanks before it are ASCII: byte and character offsets agree
+        is = decodeInto(r, line, s0, line.length, ref, true);
+      }
+      if (is) {
+        addIssue(report, is);
+        continue;
+      }
+      if (!(r.timeMs >= window.fromMs && r.timeMs < window.toMs)) {
+        addIssue(report, { file, line: lineNo, reason: 'time-out-of-range', message: outOfWindowMessage(r.timeMs, window) });
+        continue;
+      }
+      this.unknownGroups += r.unknownGroups.length;
+      if (r.nil) {
+        addIssue(report, { file, line: lineNo, reason: 'nil-report', message: `NIL report for ${r.station}: no observation to use` });
+        continue;
+      }
+      if (running && !stamped1) {
+        const dayNo = Math.floor(r.timeMs / MS_PER_DAY);
+        if (dayNo !== this.lastDay) {
+          this.lastDay = dayNo;
+          civilFromDays(dayNo, civil);
+          running.year = civil[0];
+          running.month = civil[1];
+          running.refDay = civil[2];
+        }
+      }
+      emit(r, lineNo);
+      report.parsed++;
+      if (e === len) break;
     }
-    emit(r, lineNo);
-    report.parsed++;
-    if (e === len) break;
   }
-  report.unknownGroups = unknownGroups;
-  if (stamped > 0) report.notes.push(`year and month taken from archive timestamps on ${stamped} line(s)`);
-  if (sourceNote && stamped < report.parsed + report.rejected) report.notes.push(sourceNote);
-  if (noYearMonth > 0)
-    report.notes.push(
-      `${noYearMonth} report line(s) refused: no year/month source. Pass --month YYYY-MM or name the file with its date (YYYY-MM-DD, YYYYMMDD, YYYY-MM)`,
-    );
-  if (unknownGroups > 0) report.notes.push(`${unknownGroups} unrecognised group(s) kept as unknown`);
-  return report;
+
+  /** The file's report, with the notes on year/month sources and unknown groups. */
+  finish(): FileReport {
+    const { report, stamped, sourceNote, noYearMonth, unknownGroups } = this;
+    report.unknownGroups = unknownGroups;
+    if (stamped > 0) report.notes.push(`year and month taken from archive timestamps on ${stamped} line(s)`);
+    if (sourceNote && stamped < report.parsed + report.rejected) report.notes.push(sourceNote);
+    if (noYearMonth > 0)
+      report.notes.push(
+        `${noYearMonth} report line(s) refused: no year/month source. Pass --month YYYY-MM or name the file with its date (YYYY-MM-DD, YYYYMMDD, YYYY-MM)`,
+      );
+    if (unknownGroups > 0) report.notes.push(`${unknownGroups} unrecognised group(s) kept as unknown`);
+    return report;
+  }
 }

@@ -4,16 +4,17 @@
  * station pressure and QC happen downstream (src/pipeline.ts).
  * Every file is accounted for in a FileReport; files that are not observations are skipped with a note.
  */
-import { lstatSync, readdirSync, readFileSync, realpathSync, statSync, type Stats } from 'node:fs';
+import { closeSync, lstatSync, openSync, readdirSync, readFileSync, readSync, realpathSync, statSync, type Stats } from 'node:fs';
 import { basename, extname, join } from 'node:path';
 import { newFileReport, UsageError, type FileReport, type Observation, type StationMeta } from '../model/index.js';
-import { decodeMetarAt, isParseIssue, looksLikeMetar, metarToObservation, readMetarBytes } from './metar.js';
-import { readCsvBytes, type CsvOptions, type RawReportDecoded } from './csv.js';
+import { decodeMetarAt, isParseIssue, looksLikeMetar, MetarReader, metarToObservation } from './metar.js';
+import { CsvReader, type CsvOptions, type RawReportDecoded } from './csv.js';
 import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, stationFromFileName, type FileNameStation, type StationIndex } from './stations.js';
 import type { ColumnOverride } from './columns.js';
 import { compressionOf, expandBytes } from './decompress.js';
 import { isIsdHeaders, readIsdText } from './isd.js';
 import { looksBinary, prepareText } from './text.js';
+import { encodingOf, LineSplitter, splitWhole, type TextBlock } from './lines.js';
 import type { TimeWindow } from './plausible.js';
 
 export interface ReadOptions {
@@ -25,8 +26,10 @@ export interface ReadOptions {
   offsetMinutes?: number;
   overrides?: ColumnOverride[];
   missing?: string[];
-  /** Text read from standard input when a path is `-`. */
+  /** Text read from standard input when a path is `-` (wins over `stdinFd`). */
   stdinText?: string;
+  /** File descriptor read as a stream when a path is `-` (the CLI gives 0, standard input). */
+  stdinFd?: number;
   /** Accepted observation times (default DEFAULT_TIME_WINDOW of plausible.ts). */
   timeWindow?: TimeWindow;
   /** One-line notes for the user (stderr in the CLI). */
@@ -43,10 +46,13 @@ export interface ScannedPaths {
   dataFiles: DataFile[];
 }
 
-/** One data file, read into memory, with its sniffed format. */
+/** One data file with its sniffed format: held in memory (`bytes`), or read as a stream when its turn comes (`stream`). */
 export interface DataFile {
   path: string;
+  /** The file's bytes (prepared text) when held in memory; empty when `stream` is set. */
   bytes: Buffer;
+  /** Read in chunks from here: a file path, or an open descriptor (standard input) with the chunk already read from it. */
+  stream?: { file: string } | { fd: number; head: Buffer; ended: boolean };
   format: SniffedFormat;
   fromDir: boolean;
   /** The station id the file name gives (for files without a station column), with its rule. */
@@ -151,12 +157,88 @@ function errCode(e: unknown): string {
   return x.code ?? x.message ?? String(e);
 }
 
+/** Bytes read at a time from a streamed file (and the head read to sniff its format). */
+export const CHUNK_BYTES = 1 << 20;
+
+/** Read into `buf` until it is full or the input ends (a pipe hands over less at a time); the bytes read. */
+function readFull(fd: number, buf: Buffer): number {
+  let n = 0;
+  while (n < buf.length) {
+    let k: number;
+    try {
+      k = readSync(fd, buf, n, buf.length - n, null);
+    } catch (e) {
+      // a non-blocking descriptor with nothing yet: wait a little and read again
+      if (errCode(e) === 'EAGAIN') {
+        Atomics.wait(new Int32Array(new SharedArrayBuffer(4)), 0, 0, 5);
+        continue;
+      }
+      throw e;
+    }
+    if (k === 0) break;
+    n += k;
+  }
+  return n;
+}
+
+/** The first CHUNK_BYTES of a file (all of it when shorter). */
+function readHead(path: string): Buffer {
+  const fd = openSync(path, 'r');
+  try {
+    const buf = Buffer.allocUnsafe(CHUNK_BYTES);
+    return buf.subarray(0, readFull(fd, buf));
+  } finally {
+    closeSync(fd);
+  }
+}
+
+/** The rest of a descriptor, to its end. */
+function readRest(fd: number): Buffer {
+  const parts: Buffer[] = [];
+  for (;;) {
+    const buf = Buffer.allocUnsafe(CHUNK_BYTES);
+    const n = readFull(fd, buf);
+    if (n > 0) parts.push(buf.subarray(0, n));
+    if (n < CHUNK_BYTES) return Buffer.concat(parts);
+  }
+}
+
+/**
+ * Hand a streamed file's chunks, in order, to `onChunk` (memory holds one chunk); `first` says whether the
+ * chunk is the whole input (it ended within the first chunk).
+ */
+function streamChunks(src: NonNullable<DataFile['stream']>, onChunk: (chunk: Buffer, whole: boolean) => void): void {
+  if ('fd' in src) {
+    onChunk(src.head, src.ended);
+    if (src.ended) return;
+    for (;;) {
+      const buf = Buffer.allocUnsafe(CHUNK_BYTES);
+      const n = readFull(src.fd, buf);
+      if (n > 0) onChunk(buf.subarray(0, n), false);
+      if (n < CHUNK_BYTES) return;
+    }
+  }
+  const fd = openSync(src.file, 'r');
+  try {
+    let firstChunk = true;
+    for (;;) {
+      const buf = Buffer.allocUnsafe(CHUNK_BYTES);
+      const n = readFull(fd, buf);
+      if (n > 0 || firstChunk) onChunk(buf.subarray(0, n), firstChunk && n < CHUNK_BYTES);
+      firstChunk = false;
+      if (n < CHUNK_BYTES) return;
+    }
+  } finally {
+    closeSync(fd);
+  }
+}
+
 /** Why a file could not be read, in words, from its error. */
 function readFailure(e: unknown): string {
   const code = errCode(e);
   if (code === 'EACCES' || code === 'EPERM') return 'cannot read the file: permission denied';
   if (code === 'ERR_FS_FILE_TOO_LARGE' || code === 'ERR_STRING_TOO_LONG' || code === 'ERR_BUFFER_TOO_LARGE')
-    return 'cannot read the file: larger than one in-memory read allows (2 GiB); split it (e.g. by month) until streamed reading lands';
+    return 'cannot read the file: a compressed file is expanded in memory, and this one is larger than one in-memory read allows (2 GiB); decompress it first (plain files are streamed)';
   if (code === 'EISDIR') return 'cannot read the file: it is a folder';
   return `cannot read the file (${code})`;
 }
@@ -219,14 +301,61 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
   for (const c of files) {
     let raw: Buffer;
     const name = c.path === '-' ? '(stdin)' : c.path;
+    // plain text is streamed when its turn comes (only its head is read here); compressed files are held whole
+    let stream: DataFile['stream'];
     if (c.path === '-') {
-      raw = Buffer.from(opts.stdinText ?? '', 'utf8');
+      if (opts.stdinText === undefined && opts.stdinFd !== undefined) {
+        const head = Buffer.allocUnsafe(CHUNK_BYTES);
+        const n = readFull(opts.stdinFd, head);
+        raw = head.subarray(0, n);
+        // compressed input is expanded whole (bounded, decompress.ts)
+        if (compressionOf(raw) !== null) raw = n < CHUNK_BYTES ? raw : Buffer.concat([raw, readRest(opts.stdinFd)]);
+        else stream = { fd: opts.stdinFd, head: raw, ended: n < CHUNK_BYTES };
+      } else raw = Buffer.from(opts.stdinText ?? '', 'utf8');
     } else {
       if (c.fromDir && NOT_OBSERVATIONS.has(extname(c.path).toLowerCase())) {
         note(`${c.path}: skipped (not an observation file)`);
         reports.push({ ...newFileReport(c.path, 'skipped'), notes: ['not an observation file'] });
         continue;
       }
+      try {
+        raw = readHead(c.path);
+        if (compressionOf(raw) !== null) raw = readFileSync(c.path);
+        else stream = { file: c.path };
+      } catch (e) {
+        const why = readFailure(e);
+        const r = newFileReport(c.path, 'unreadable');
+        r.notes.push(why);
+        reports.push(r);
+        note(`${c.path}: ${why}`);
+        continue;
+      }
+    }
+    if (stream === undefined) {
+      // gzip is expanded (bounded); other compressed files are refused with a message (decompress.ts)
+      const expanded = expandBytes(raw);
+      if ('reason' in expanded) {
+        const r = newFileReport(name, 'skipped');
+        r.rejectedByReason[expanded.reason] = 1;
+        r.rejected = 1;
+        r.issues.push({ file: name, line: 1, reason: expanded.reason, message: expanded.message });
+        reports.push(r);
+        note(`${name}: ${expanded.message}`);
+        continue;
+      }
+      if (expanded.kind === 'gzip') raw = expanded.bytes;
+    }
+    // binary only when most of the head is not text (text.ts); else decoded, BOM dropped, line ends made one kind
+    const binary = looksBinary(raw);
+    const wholeHere = stream === undefined || ('fd' in stream ? stream.ended : raw.length < CHUNK_BYTES);
+    const bytes = binary ? raw.subarray(0, 8192) : Buffer.concat(splitWhole(raw, new LineSplitter(wholeHere ? { encoding: encodingOf(raw) } : {})).map((b) => b.bytes));
+    // the first 8192 characters (at most 4 bytes each)
+    const sample = bytes.toString('utf8', 0, Math.min(bytes.length, 32_768)).slice(0, 8192);
+    const format = sniffFormat(basename(name).replace(/\.gz$/i, ''), sample, binary);
+    const streamed = stream !== undefined && (format === 'metar' || format === 'csv');
+    // stations and ISD files are read whole; binary, empty and unknown files need no more than their head
+    const whole = stream !== undefined && (format === 'stations' || format === 'isd');
+    if (whole && stream && !('fd' in stream)) {
       try {
         raw = readFileSync(c.path);
       } catch (e) {
@@ -237,42 +366,60 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
         note(`${c.path}: ${why}`);
         continue;
       }
-    }
-    // gzip is expanded (bounded); other compressed files are refused with a message (decompress.ts)
-    const expanded = expandBytes(raw);
-    if ('reason' in expanded) {
-      const r = newFileReport(name, 'skipped');
-      r.rejectedByReason[expanded.reason] = 1;
-      r.rejected = 1;
-      r.issues.push({ file: name, line: 1, reason: expanded.reason, message: expanded.message });
-      reports.push(r);
-      note(`${name}: ${expanded.message}`);
-      continue;
-    }
-    if (expanded.kind === 'gzip') raw = expanded.bytes;
-    // binary only when most of the head is not text (text.ts); else decoded, BOM dropped, line ends made one kind
-    const binary = looksBinary(raw);
-    const prep = binary ? null : prepareText(raw);
-    const bytes = prep ? prep.bytes : raw.subarray(0, 8192);
-    // the first 8192 characters (at most 4 bytes each)
-    const sample = bytes.toString('utf8', 0, Math.min(bytes.length, 32_768)).slice(0, 8192);
-    const format = sniffFormat(basename(name).replace(/\.gz$/i, ''), sample, binary);
+    } else if (whole && stream && 'fd' in stream) raw = Buffer.concat([raw, readRest(stream.fd)]);
     if (format === 'stations') {
       if (opts.stationsFile) {
         note(`${name}: stations file ignored (--stations given)`);
         reports.push({ ...newFileReport(name, 'stations'), notes: ['ignored: --stations given'] });
         continue;
       }
-      const r = readStationsText(bytes.toString('utf8'), name);
+      const prep = prepareText(raw);
+      const r = readStationsText(prep.bytes.toString('utf8'), name);
       stations.push(...r.stations);
       reports.push(r.report);
       continue;
     }
-    dataFiles.push({ path: name, bytes, format, fromDir: c.fromDir, textNotes: prep?.notes ?? [], hasNul: prep?.hasNul ?? false });
+    if (streamed) dataFiles.push({ path: name, bytes: Buffer.alloc(0), stream, format, fromDir: c.fromDir });
+    else if (binary) dataFiles.push({ path: name, bytes: raw.subarray(0, 8192), format, fromDir: c.fromDir, textNotes: [], hasNul: false });
+    else {
+      const prep = prepareText(raw);
+      dataFiles.push({ path: name, bytes: prep.bytes, format, fromDir: c.fromDir, textNotes: prep.notes, hasNul: prep.hasNul });
+    }
   }
   const index = buildStationIndex(stations);
   for (const f of dataFiles) if (f.path !== '(stdin)') f.nameStation = stationFromFileName(index, f.path);
   return { stations, reports, dataFiles };
+}
+
+/**
+ * A data file's text as blocks of whole lines (lines.ts), from its stream or the bytes held; the notes on its text
+ * (encoding, line ends) and, when reading stopped on an error, why (the lines before it are kept).
+ */
+function readBlocks(f: DataFile, onBlock: (b: TextBlock) => void, note: (m: string) => void): { text: string[]; failure?: string } {
+  if (!f.stream) {
+    // held in memory: already prepared (prepareText); one block
+    onBlock({ bytes: f.bytes, firstLine: 1, hasNul: f.hasNul ?? f.bytes.indexOf(0) >= 0, last: true });
+    return { text: f.textNotes ?? [] };
+  }
+  let splitter: LineSplitter | null = null;
+  try {
+    streamChunks(f.stream, (chunk, whole) => {
+      splitter ??= new LineSplitter(whole ? { encoding: encodingOf(chunk) } : {});
+      const b = splitter.push(chunk);
+      if (b) onBlock(b);
+    });
+  } catch (e) {
+    const why = `reading stopped: ${readFailure(e)}; the lines before are read`;
+    note(`${f.path}: ${why}`);
+    const s: LineSplitter = splitter ?? new LineSplitter();
+    const b = s.end();
+    if (b) onBlock(b);
+    return { text: s.notes(), failure: why };
+  }
+  const s: LineSplitter = splitter ?? new LineSplitter();
+  const b = s.end();
+  if (b) onBlock(b);
+  return { text: s.notes() };
 }
 
 /**
@@ -305,9 +452,11 @@ export function readDataFiles(
   const csvSinkOpts: CsvOptions = { ...csvOpts, reuseObservation: true };
   for (const f of dataFiles) {
     if (f.format === 'metar') {
-      const r = readMetarBytes(f.bytes, f.path, { month: opts.month, onObservation, ...(opts.timeWindow ? { timeWindow: opts.timeWindow } : {}) });
+      const reader = new MetarReader(f.path, { month: opts.month, onObservation, ...(opts.timeWindow ? { timeWindow: opts.timeWindow } : {}) });
+      const notes = readBlocks(f, (b) => reader.block(b), note);
+      const r = reader.finish(notes.text);
+      if (notes.failure) r.report.notes.push(notes.failure);
       r.report.stationIdRule ??= 'the station indicator of each METAR report';
-      if (f.textNotes?.length) r.report.notes.unshift(...f.textNotes);
       reports.push(r.report);
       if (r.report.parsed === 0 && r.report.rejectedByReason['no-year-month']) {
         note(`${f.path}: no year and month for the reports; pass --month YYYY-MM or use a dated file name`);
@@ -318,8 +467,10 @@ export function readDataFiles(
       reports.push(r.report);
     } else if (f.format === 'csv') {
       const nameStation = f.nameStation;
-      const r = readCsvBytes(f.bytes, f.path, nameStation ? { ...csvSinkOpts, stationFromFileName: () => nameStation } : csvSinkOpts, onObservation);
-      if (f.textNotes?.length) r.report.notes.unshift(...f.textNotes);
+      const reader = new CsvReader(f.path, nameStation ? { ...csvSinkOpts, stationFromFileName: () => nameStation } : csvSinkOpts, onObservation);
+      const notes = readBlocks(f, (b) => reader.block(b), note);
+      const r = reader.finish(notes.text);
+      if (notes.failure) r.report.notes.push(notes.failure);
       // A CSV without a single observation inside a directory is most likely something else (a forecast list).
       if (r.report.parsed === 0 && f.fromDir) {
         note(`${f.path}: skipped (no observation columns recognised)`);

@@ -122,31 +122,44 @@ export function prepareText(input: Uint8Array): PreparedText {
   }
   const lineEnds = { lf: 0, crlf: 0, cr: 0, rewritten: false };
   if (u.indexOf(13) >= 0) {
-    // counted with native searches, one call per line end
-    let lfAll = 0;
-    for (let i = u.indexOf(10); i >= 0; i = u.indexOf(10, i + 1)) lfAll++;
-    for (let i = u.indexOf(13); i >= 0; i = u.indexOf(13, i + 1)) {
-      if (u[i + 1] === 10) lineEnds.crlf++;
-      else lineEnds.cr++;
-    }
-    lineEnds.lf = lfAll - lineEnds.crlf;
+    const c = countLineEnds(u);
+    lineEnds.lf = c.lf - c.crlf;
+    lineEnds.crlf = c.crlf;
+    lineEnds.cr = c.cr;
   }
   if (lineEnds.cr > 0 || (lineEnds.crlf > 0 && lineEnds.lf > 0)) {
-    // lone CRs or a mix: every CRLF and lone CR becomes LF
-    const out = Buffer.allocUnsafe(u.length);
-    let k = 0;
-    for (let i = 0; i < u.length; i++) {
-      const c = u[i]!;
-      if (c === 13) {
-        out[k++] = 10;
-        if (u[i + 1] === 10) i++;
-      } else out[k++] = c;
-    }
-    u = out.subarray(0, k);
+    u = lineEndsToLf(u);
     lineEnds.rewritten = true;
     notes.push(lineEndsNote(lineEnds.lf, lineEnds.crlf, lineEnds.cr));
   }
   return { bytes: u, encoding, bom, lineEnds, hasNul: u.indexOf(0) >= 0, notes };
+}
+
+/** Line ends in `u`, counted with native searches: every LF (CRLF included), CRLF pairs, lone CRs. */
+export function countLineEnds(u: Buffer): { lf: number; crlf: number; cr: number } {
+  let lf = 0;
+  for (let i = u.indexOf(10); i >= 0; i = u.indexOf(10, i + 1)) lf++;
+  let crlf = 0;
+  let cr = 0;
+  for (let i = u.indexOf(13); i >= 0; i = u.indexOf(13, i + 1)) {
+    if (u[i + 1] === 10) crlf++;
+    else cr++;
+  }
+  return { lf, crlf, cr };
+}
+
+/** `u` with every CRLF and lone CR as LF (a copy). */
+export function lineEndsToLf(u: Buffer): Buffer {
+  const out = Buffer.allocUnsafe(u.length);
+  let k = 0;
+  for (let i = 0; i < u.length; i++) {
+    const c = u[i]!;
+    if (c === 13) {
+      out[k++] = 10;
+      if (u[i + 1] === 10) i++;
+    } else out[k++] = c;
+  }
+  return out.subarray(0, k);
 }
 
 /** The report note for rewritten line ends. */
