@@ -170,7 +170,7 @@ function networkStation(s: StationSeries, outcome: StationOutcome): ShardStation
 function networkStage(series: readonly StationSeries[], outcomes: readonly StationOutcome[], opts: AnalyseOptions, plan: { network: boolean; minConfidence: number }): Analysis {
   const events: PassageEvent[] = [];
   outcomes.forEach((o) => {
-    if (!('error' in o)) events.push(...o.events);
+    if (!('error' in o)) for (const e of o.events) events.push(e);
   });
   return finishAnalysis(series.map((s, i) => networkStation(s, outcomes[i]!)), events, opts, plan);
 }

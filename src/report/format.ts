@@ -274,13 +274,17 @@ const PRESSURE_LABEL: Record<OperatorFields['pressureSource'], string> = {
 
 /** Pad cells to aligned columns; numeric columns right-aligned. */
 export function alignColumns(header: readonly string[], rows: readonly string[][], rightAligned: readonly boolean[]): string[] {
-  const width = header.map((h, i) => Math.max(h.length, ...rows.map((r) => r[i]!.length)));
+  // (loops, not Math.max(...cells) or [...rows]: a spread of 100,000+ values overflows the call stack)
+  const width = header.map((h) => h.length);
+  for (const r of rows) for (let i = 0; i < width.length; i++) if (r[i]!.length > width[i]!) width[i] = r[i]!.length;
   const fmt = (cells: readonly string[]) =>
     cells
       .map((c, i) => (rightAligned[i] ? c.padStart(width[i]!) : c.padEnd(width[i]!)))
       .join('  ')
       .trimEnd();
-  return [fmt(header), fmt(width.map((w) => '-'.repeat(w))), ...rows.map(fmt)];
+  const out = [fmt(header), fmt(width.map((w) => '-'.repeat(w)))];
+  for (const r of rows) out.push(fmt(r));
+  return out;
 }
 
 function num(x: number, digits: number, signed = false): string {
@@ -400,8 +404,11 @@ export function eventsToTable(events: readonly PassageEvent[], opts: TableOption
     }
   }
   const out: string[] = [];
-  if (rows.length) out.push(...alignColumns(header, rows, right), '');
-  else out.push('no passages found', '');
+  // (loops, not push(...lines): a spread of 100,000+ lines overflows the call stack)
+  if (rows.length) {
+    for (const l of alignColumns(header, rows, right)) out.push(l);
+    out.push('');
+  } else out.push('no passages found', '');
   if (rows.length) {
     out.push(
       'T, Td: median of the hour before → 1–3 h after; Tmin 12h and freeze (first report ≤ 0 °C): in the 12 h after;',
@@ -409,8 +416,12 @@ export function eventsToTable(events: readonly PassageEvent[], opts: TableOption
       '',
     );
   }
-  if (runwayLines.length) out.push(`Runway wind components (${unitName}; cross + from the right; tail − is a headwind), before → after the shift:`, ...runwayLines, '');
-  out.push(...summaryLines(events, opts.stations ?? []));
+  if (runwayLines.length) {
+    out.push(`Runway wind components (${unitName}; cross + from the right; tail − is a headwind), before → after the shift:`);
+    for (const l of runwayLines) out.push(l);
+    out.push('');
+  }
+  for (const l of summaryLines(events, opts.stations ?? [])) out.push(l);
   out.push(CAUTION);
   return out.join('\n') + '\n';
 }

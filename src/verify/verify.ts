@@ -318,7 +318,7 @@ export function verifyForecasts(forecasts: readonly ForecastPassage[], events: r
       list.push({ ...base, outcome: 'miss', kind: e.kind, forecast: null, event: e, leadHours: lead(e.timeMs), leadBin: leadBin(e.timeMs, is.issuedMs), errorMin: NaN });
     }
     perIssue.set(is, list);
-    outcomes.push(...list);
+    for (const x of list) outcomes.push(x);
   }
 
   // Headline: per source and station, the latest issue at or before the passage (or forecast) time.

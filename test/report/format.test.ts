@@ -188,6 +188,14 @@ test('eventsToTable([]) says no passages and still ends with the caution', () =>
   assert.is(lines[lines.length - 1], CAUTION);
 });
 
+test('eventsToTable with 200,000 passages: one line each, no call-stack overflow (a 1 GB archive gives that many)', () => {
+  const base = sampleEvent();
+  const many = Array.from({ length: 200_000 }, (_, i) => ({ ...base, timeMs: base.timeMs + i * 60_000 }));
+  const lines = eventsToTable(many).split('\n');
+  assert.ok(lines.length > 200_000);
+  assert.is(lines[lines.length - 2], CAUTION);
+});
+
 test('summaryLines counts by kind, most frequent first', () => {
   const ev = [sampleEvent(), sampleEvent({ kind: 'dryline' }), sampleEvent({ kind: 'dryline' })];
   assert.equal(summaryLines(ev), ['KXYZ  3 passages: 2 dryline, 1 cold-front', '3 passages at 1 of 1 station']);
