@@ -118,6 +118,9 @@ export interface CsvResult {
   units: Partial<Record<NumericField, UnitChoice>>;
 }
 
+/** Sky covers that are no ceiling (FMH-1 §12.6.9: only BKN, OVC and VV make one). */
+const NO_CEILING_COVERS = new Set(['CLR', 'SKC', 'NCD', 'NSC', 'FEW', 'SCT']);
+
 const MISSING = new Set(['', 'm', 'mm', 'na', 'n/a', 'nan', 'null', 'none', '-', '--', 'missing', '#n/a']);
 
 /**
@@ -283,6 +286,8 @@ export class CsvCore {
   private timeColumns: TimeColumns | null = null;
   private stationCol = NO_COL;
   private wxCol = NO_COL;
+  /** Sky cover and sky level (ft) columns, pairwise (IEM `skyc1..4`, `skyl1..4`); empty when none. */
+  private skyCols: { cover: number; level: number }[] = [];
   private rawCol = NO_COL;
   private offsetCol = NO_COL;
   private typeCol = NO_COL;
@@ -581,6 +586,11 @@ export class CsvCore {
     this.timeCol = mapping.time.index;
     this.stationCol = mapping.station?.index ?? NO_COL;
     this.wxCol = mapping.weatherCodes?.index ?? NO_COL;
+    for (const [c, l] of [['skyCover1', 'skyLevel1'], ['skyCover2', 'skyLevel2'], ['skyCover3', 'skyLevel3'], ['skyCover4', 'skyLevel4']] as const) {
+      const cover = mapping[c];
+      const level = mapping[l];
+      if (cover && level) this.skyCols.push({ cover: cover.index, level: level.index });
+    }
     this.rawCol = hasRaw ? mapping.rawReport!.index : NO_COL;
     this.offsetCol = mapping.utcOffset?.index ?? NO_COL;
     this.typeCol = mapping.reportType?.index ?? NO_COL;
@@ -984,6 +994,8 @@ export class CsvCore {
       o.weather = 0;
       o.peakWindMs = NaN;
       o.pressureTrend = 0;
+      o.visibilityM = NaN;
+      o.ceilingFt = NaN;
       o.latDeg = this.val(cols.lat, line);
       o.lonDeg = this.val(cols.lon, line);
       o.elevationM = this.val(cols.elevation, line);
@@ -1008,6 +1020,8 @@ export class CsvCore {
         weather: 0,
         peakWindMs: NaN,
         pressureTrend: 0,
+        visibilityM: NaN,
+        ceilingFt: NaN,
         latDeg: this.val(cols.lat, line),
         lonDeg: this.val(cols.lon, line),
         elevationM: this.val(cols.elevation, line),
@@ -1041,6 +1055,9 @@ export class CsvCore {
         }
       }
     }
+    // read after the other fields, so that the notes of their values keep their order
+    if (cols.visibility !== undefined) o.visibilityM = this.val(cols.visibility, line);
+    if (this.skyCols.length !== 0) o.ceilingFt = this.ceilingOf(line);
     if (this.rawCol !== NO_COL) {
       this.mergeRaw(o, this.cell(this.rawCol), line);
       station = o.station;
@@ -1057,6 +1074,33 @@ export class CsvCore {
     else this.lastStationTime = timeMs;
     this.report.parsed++;
     this.emit(o);
+  }
+
+  /**
+   * Ceiling of the current row from its sky columns, ft: the lowest layer whose cover is BKN, OVC or VV (FMH-1
+   * §12.6.9); +Infinity when the covers name only layers without a ceiling (CLR SKC NCD NSC FEW SCT); NaN when no
+   * cover is given. A level that is not a number is counted (`bad-value`), its layer skipped.
+   */
+  private ceilingOf(line: number): number {
+    let ceiling = NaN;
+    for (const k of this.skyCols) {
+      const cover = this.cell(k.cover).trim().toUpperCase();
+      if (cover !== 'BKN' && cover !== 'OVC' && cover !== 'VV') {
+        if (NO_CEILING_COVERS.has(cover) && ceiling !== ceiling) ceiling = Infinity;
+        continue;
+      }
+      const raw = this.cell(k.level).trim();
+      const lower = raw.toLowerCase();
+      if (raw === '' || MISSING.has(lower) || this.userMissingText.has(lower)) continue;
+      const h = plainNumber(raw);
+      if (h === -9999 || h === -999 || this.userMissingNum.includes(h)) continue;
+      if (!(h >= 0)) {
+        this.count('bad-value', 'ceiling', line, raw);
+        continue;
+      }
+      if (!(ceiling <= h)) ceiling = h;
+    }
+    return ceiling;
   }
 
   private mergeRaw(o: Observation, cell: string, line: number): void {
@@ -1076,7 +1120,7 @@ export class CsvCore {
       this.count('raw-report-undecoded', 'rawReport', line, text);
       return;
     }
-    const fill = (k: keyof Observation & ('temperatureC' | 'dewpointC' | 'windDirDeg' | 'windSpeedMs' | 'gustMs' | 'stationPressureHpa' | 'seaLevelPressureHpa' | 'altimeterHpa' | 'precipMm' | 'peakWindMs')) => {
+    const fill = (k: keyof Observation & ('temperatureC' | 'dewpointC' | 'windDirDeg' | 'windSpeedMs' | 'gustMs' | 'stationPressureHpa' | 'seaLevelPressureHpa' | 'altimeterHpa' | 'precipMm' | 'peakWindMs' | 'visibilityM' | 'ceilingFt')) => {
       const v = d![k];
       if (typeof v === 'number' && v === v && o[k] !== o[k]) o[k] = v;
     };
@@ -1094,6 +1138,8 @@ export class CsvCore {
     fill('altimeterHpa');
     fill('precipMm');
     fill('peakWindMs');
+    fill('visibilityM');
+    fill('ceilingFt');
     if (d.weather) o.weather |= d.weather;
     if (o.pressureTrend === 0 && d.pressureTrend) o.pressureTrend = d.pressureTrend;
     if (d.corrected) o.corrected = true;

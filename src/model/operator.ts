@@ -48,6 +48,15 @@ export interface OperatorFields {
   precipHeavy: boolean;
   /** Median wind speed over the hour before the passage, m/s. */
   windSpeedBeforeMs: number;
+  /** Prevailing visibility over the hour before the passage and 1–3 h after, m (lower median of the reports). */
+  visibilityBeforeM: number;
+  visibilityAfterM: number;
+  /**
+   * Ceiling over the hour before and 1–3 h after, ft (lower median of the reports; the FMH-1 ceiling: lowest BKN, OVC or
+   * VV layer). +Infinity: no ceiling (most reports had none); NaN: no sky reported.
+   */
+  ceilingBeforeFt: number;
+  ceilingAfterFt: number;
   /** Which pressure the event's pressure fields (pressure minimum, 3 h rise) were measured on. */
   pressureSource: PressureSource;
   /** Components per runway direction (only with runways asked for). */

@@ -44,6 +44,19 @@ function medianIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number
   return median(xs);
 }
 
+/**
+ * Lower median of the clean values with time in [fromMs, toMs): the middle report, the lower of the two middle ones
+ * for an even count (a reported value, and the more cautious one for visibility and ceiling; common practice, no
+ * source). NaN ignored; +Infinity (no ceiling) is a value; NaN when none.
+ */
+function lowerMedianIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number): number {
+  const xs: number[] = [];
+  for (let i = 0; i < t.length; i++) if (t[i]! >= fromMs && t[i]! < toMs && !Number.isNaN(v[i]!)) xs.push(v[i]!);
+  if (!xs.length) return NaN;
+  xs.sort((a, b) => a - b);
+  return xs[(xs.length - 1) >> 1]!;
+}
+
 /** Minimum of the clean values with time in (fromMs, toMs] (NaN when none). */
 function minIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number): number {
   let m = NaN;
@@ -97,7 +110,7 @@ export function precipTypesOf(flags: number): PrecipType[] {
  * over the hour before `timeMs`; after = median 1–3 h after (past the sharpest change); minima over the 6 and 12 h
  * after; first freeze = first clean report ≤ 0 °C within 12 h after; precipitation before = any precipitation flag or
  * amount > 0 in the 6 h before; types and heavy = present weather within ±1 h; wind speed before = median over the
- * hour before. Runway components use the wind before/after of the event and the speeds here and in the event.
+ * hour before; visibility and ceiling = lower median over the same windows as the temperature levels. Runway components use the wind before/after of the event and the speeds here and in the event.
  */
 export function operatorFields(s: StationSeries, e: PassageEvent, runways: readonly RunwayHeading[] = []): OperatorFields {
   const t = s.timeMs;
@@ -105,6 +118,8 @@ export function operatorFields(s: StationSeries, e: PassageEvent, runways: reado
   const Td = cleanColumn(s, 'dewpointC');
   const V = cleanColumn(s, 'windSpeedMs');
   const P = cleanColumn(s, 'precipMm');
+  const vis = cleanColumn(s, 'visibilityM');
+  const cig = cleanColumn(s, 'ceilingFt');
   const t0 = e.timeMs;
   let freezeTimeMs = NaN;
   let before = false;
@@ -128,6 +143,10 @@ export function operatorFields(s: StationSeries, e: PassageEvent, runways: reado
     precipTypes: precipTypesOf(near),
     precipHeavy: (near & WX.HEAVY) !== 0 && (near & WX.PRECIP) !== 0,
     windSpeedBeforeMs,
+    visibilityBeforeM: lowerMedianIn(t, vis, t0 - HOUR_MS, t0),
+    visibilityAfterM: lowerMedianIn(t, vis, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1),
+    ceilingBeforeFt: lowerMedianIn(t, cig, t0 - HOUR_MS, t0),
+    ceilingAfterFt: lowerMedianIn(t, cig, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1),
     pressureSource: pressureSource(s),
   };
   if (runways.length) {
