@@ -127,16 +127,22 @@ const MISSING = new Set(['', 'm', 'mm', 'na', 'n/a', 'nan', 'null', 'none', '-',
  * WX flags of a present-weather text such as `-RA BR`, `+TSRA`, or LCD `-RA:02 BR:1 |RA BR |`: each token
  * (split on blanks, `|`, `,`, `;`; an LCD `:n` suffix dropped) is one FM 15 w'w' group read by the METAR
  * decoder's table (`weatherFlags`, WMO-No. 306 code table 4678; FMH-1 §12.6.8), so `VC` groups keep only
- * their SH/TS flags. Tokens that are not weather groups are ignored.
- * @example weatherFlagsFromCodes('-RA BR') // WX.RAIN | WX.PRECIP
+ * their SH/TS flags. Tokens that are not weather groups are ignored. Intensity (WX.LIGHT, WX.MODERATE) is read
+ * only before the first `|`: in LCD the later sections (from memory: the AW and MW code lists) carry no sign.
+ * @example weatherFlagsFromCodes('-RA BR') // WX.RAIN | WX.PRECIP | WX.LIGHT
  */
 export function weatherFlagsFromCodes(text: string): number {
   let flags = 0;
-  for (const raw of text.toUpperCase().split(/[\s|,;]+/)) {
-    const tok = raw.split(':')[0]!;
-    if (tok === '') continue;
-    const f = weatherFlags(tok, 0, tok.length);
-    if (f > 0) flags |= f;
+  const sections = text.toUpperCase().split('|');
+  for (let k = 0; k < sections.length; k++) {
+    for (const raw of sections[k]!.split(/[\s,;]+/)) {
+      const tok = raw.split(':')[0]!;
+      if (tok === '') continue;
+      let f = weatherFlags(tok, 0, tok.length);
+      // LCD: only the first section (automated codes) writes intensity; the others have no sign to read
+      if (k > 0 && f > 0) f &= ~(WX.LIGHT | WX.MODERATE);
+      if (f > 0) flags |= f;
+    }
   }
   return flags;
 }

@@ -58,6 +58,7 @@ export const EVENT_COLUMNS = [
   'visibility_after_m',
   'ceiling_before_ft',
   'ceiling_after_ft',
+  'precip_intensity',
 ] as const;
 export type EventColumn = (typeof EVENT_COLUMNS)[number];
 export type RecordValue = string | number | boolean | null | string[];
@@ -104,7 +105,7 @@ export function recordColumns(events: readonly PassageEvent[], opts: RecordOptio
 
 const NO_OPERATOR: OperatorFields = {
   tempBeforeC: NaN, tempAfterC: NaN, dewpointBeforeC: NaN, dewpointAfterC: NaN, tempMin6hC: NaN, tempMin12hC: NaN,
-  freezeTimeMs: NaN, precipBefore6h: false, precipTypes: [], precipHeavy: false, windSpeedBeforeMs: NaN, pressureSource: 'none',
+  freezeTimeMs: NaN, precipBefore6h: false, precipTypes: [], precipHeavy: false, precipIntensity: null, windSpeedBeforeMs: NaN, pressureSource: 'none',
   visibilityBeforeM: NaN, visibilityAfterM: NaN, ceilingBeforeFt: NaN, ceilingAfterFt: NaN,
 };
 
@@ -192,6 +193,7 @@ export function eventToRecord(e: PassageEvent, opts: RecordOptions = {}): EventR
     visibility_after_m: roundOrNull(o.visibilityAfterM, 0),
     ceiling_before_ft: ceilingValue(o.ceilingBeforeFt),
     ceiling_after_ft: ceilingValue(o.ceilingAfterFt),
+    precip_intensity: o.precipIntensity,
   };
   if (unit.suffix !== 'ms') {
     rec[`wind_speed_before_${unit.suffix}`] = w(o.windSpeedBeforeMs);
@@ -411,7 +413,7 @@ export function eventsToTable(events: readonly PassageEvent[], opts: TableOption
       pair(o?.dewpointBeforeC, o?.dewpointAfterC, 1),
       num(o?.tempMin12hC ?? NaN, 1),
       o && Number.isFinite(o.freezeTimeMs) ? clock(o.freezeTimeMs, opts.zone, false) : '-',
-      o && o.precipTypes.length ? (o.precipHeavy ? 'heavy ' : '') + o.precipTypes.join('+') : '-',
+      o && o.precipTypes.length ? (o.precipIntensity ? o.precipIntensity + ' ' : '') + o.precipTypes.join('+') : '-',
       o ? PRESSURE_LABEL[o.pressureSource] : '-',
       pair(o ? o.visibilityBeforeM / 1000 : NaN, o ? o.visibilityAfterM / 1000 : NaN, 1),
       o && (o.ceilingBeforeFt === o.ceilingBeforeFt || o.ceilingAfterFt === o.ceilingAfterFt) ? `${cig(o.ceilingBeforeFt)}→${cig(o.ceilingAfterFt)}` : '-',

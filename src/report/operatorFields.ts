@@ -4,7 +4,7 @@
  * wind speed before, which pressure was used, and runway cross- and tailwind components. Pure: (series, event) →
  * fields; applied once per event by src/pipeline.ts after detection.
  */
-import { WX, type OperatorFields, type PassageEvent, type PrecipType, type PressureSource, type RunwayComponents, type StationSeries } from '../model/index.js';
+import { WX, type OperatorFields, type PassageEvent, type PrecipIntensity, type PrecipType, type PressureSource, type RunwayComponents, type StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { choosePressure } from '../detect/grid.js';
 import { median } from '../signal/median.js';
@@ -106,10 +106,22 @@ export function precipTypesOf(flags: number): PrecipType[] {
 }
 
 /**
+ * The strongest precipitation intensity in a WX flag set (WMO-No. 306 code table 4678: `+` heavy, no sign moderate,
+ * `-` light), null when the set names none. Heavy needs a precipitation flag, as `precipHeavy` does.
+ * @example precipIntensityOf(WX.RAIN | WX.PRECIP | WX.LIGHT | WX.MODERATE) // 'moderate'
+ */
+export function precipIntensityOf(flags: number): PrecipIntensity | null {
+  if (flags & WX.HEAVY && flags & WX.PRECIP) return 'heavy';
+  if (flags & WX.MODERATE) return 'moderate';
+  if (flags & WX.LIGHT) return 'light';
+  return null;
+}
+
+/**
  * The operator fields of one event at its station. Windows (common practice, no source): levels before = median
  * over the hour before `timeMs`; after = median 1–3 h after (past the sharpest change); minima over the 6 and 12 h
  * after; first freeze = first clean report ≤ 0 °C within 12 h after; precipitation before = any precipitation flag or
- * amount > 0 in the 6 h before; types and heavy = present weather within ±1 h; wind speed before = median over the
+ * amount > 0 in the 6 h before; types, heavy and intensity = present weather within ±1 h; wind speed before = median over the
  * hour before; visibility and ceiling = lower median over the same windows as the temperature levels. Runway components use the wind before/after of the event and the speeds here and in the event.
  */
 export function operatorFields(s: StationSeries, e: PassageEvent, runways: readonly RunwayHeading[] = []): OperatorFields {
@@ -142,6 +154,7 @@ export function operatorFields(s: StationSeries, e: PassageEvent, runways: reado
     precipBefore6h: before,
     precipTypes: precipTypesOf(near),
     precipHeavy: (near & WX.HEAVY) !== 0 && (near & WX.PRECIP) !== 0,
+    precipIntensity: precipIntensityOf(near),
     windSpeedBeforeMs,
     visibilityBeforeM: lowerMedianIn(t, vis, t0 - HOUR_MS, t0),
     visibilityAfterM: lowerMedianIn(t, vis, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1),

@@ -1,6 +1,6 @@
 /**
- * Visibility (m) and ceiling (ft) kept per observation by the METAR, CSV and ISD readers and carried through the
- * series builder. Real cases from ../shared/realdata and ../shared/realskill (station and time named at each check;
+ * Visibility (m), ceiling (ft) and present-weather intensity kept per observation by the METAR, CSV and ISD readers and
+ * carried through the series builder. Real cases from ../shared/realdata and ../shared/realskill (station and time named at each check;
  * expected values read from the reports themselves), constructed cases for the edges. Conventions: WMO-No. 306
  * FM 15 visibility group (statute miles in US reports, FMH-1 §12.6.6); ceiling per FMH-1 §12.6.9 (lowest BKN, OVC or
  * VV layer; heights in hundreds of feet); 1 statute mile = 1609.344 m, 1 ft = 0.3048 m (NIST SP 811 App. B.8).
@@ -13,7 +13,7 @@ import { decodeMetar, isParseIssue, readMetarText } from '../../src/ingest/metar
 import { readCsvText } from '../../src/ingest/csv.js';
 import { readIsdText } from '../../src/ingest/isd.js';
 import { buildSeries } from '../../src/series/series.js';
-import { emptyObservation, type StationSeries } from '../../src/model/index.js';
+import { emptyObservation, WX, type StationSeries } from '../../src/model/index.js';
 import { REALDATA_DIR, REALSKILL_DIR, realdataTest, realskillTest } from '../helpers/realdata.js';
 
 const MILE_M = 1609.344;
@@ -118,6 +118,21 @@ realskillTest(test, 'JFK_2019_LCD_localstd.csv')('NCEI LCD `HourlyVisibility` (m
   // LCD DATE is local standard time (UTC−5 at JFK): 00:18 LST = 05:18Z
   near(s.visibilityM[at(s, '2019-01-01T05:18:00Z')]!, 0.25 * MILE_M, 1e-9, 'visibility 05:18Z');
   near(s.visibilityM[at(s, '2019-01-01T08:49:00Z')]!, 1.5 * MILE_M, 1e-9, 'visibility 08:49Z');
+});
+
+realdataTest(test, JFK)('KJFK IEM `wxcodes` and METAR: 2019-12-09 12:51 `+RA BR` heavy, 2019-11-01 00:24 `BR` no precipitation', () => {
+  const s = loadPaths([REALDATA_DIR + JFK]).series[0]!;
+  // WMO-No. 306 code table 4678: `+` heavy; no sign for the other groups
+  const w = s.weather[at(s, '2019-12-09T12:51:00Z')]!;
+  assert.ok(w & WX.HEAVY && w & WX.PRECIP && !(w & WX.LIGHT), w.toString(2));
+  assert.is(s.weather[at(s, '2019-11-01T00:24:00Z')]! & (WX.LIGHT | WX.MODERATE | WX.HEAVY), 0);
+});
+
+realskillTest(test, 'JFK_2019_LCD_localstd.csv')('NCEI LCD weather codes: JFK 2019-01-05T01:51 LST `+RA:02 BR:1 |RA |RA` is heavy, not also moderate', () => {
+  const s = loadPaths([REALSKILL_DIR + 'JFK_2019_LCD_localstd.csv'], { offsetMinutes: -300 }).series[0]!;
+  const w = s.weather[at(s, '2019-01-05T06:51:00Z')]!;
+  assert.ok(w & WX.HEAVY, w.toString(2));
+  assert.is(w & (WX.LIGHT | WX.MODERATE), 0);
 });
 
 test('CSV: generic visibility names and units; sky covers without a ceiling; bad levels counted, never thrown', () => {

@@ -6,7 +6,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { loadPaths } from '../../src/pipeline.js';
-import { operatorFields, parseRunways, precipTypesOf, pressureSource, windOnRunway } from '../../src/report/operatorFields.js';
+import { operatorFields, parseRunways, precipIntensityOf, precipTypesOf, pressureSource, windOnRunway } from '../../src/report/operatorFields.js';
 import { eventToRecord, eventsToCsv, EVENT_COLUMNS, recordColumns } from '../../src/report/format.js';
 import { allocSeries, WX } from '../../src/model/index.js';
 import { KNOT_MS } from '../../src/physics/constants.js';
@@ -48,12 +48,28 @@ real('KORD 2024-02-28 08:51Z `-PLRA` and 09:00Z `-RA`: rain and ice pellets near
   // WMO-No. 306 code table 4678: PL ice pellets, RA rain; `-` light
   assert.equal(f.precipTypes, ['rain', 'ice-pellets']);
   assert.is(f.precipHeavy, false);
+  // the reports within ±1 h: 280835Z `-PLRA`, 280851Z `-PLRA`, 280900Z `-RA`, 280942Z none: all light
+  assert.is(f.precipIntensity, 'light');
 });
 
 real('KORD 2024-02-28 02:23Z `-TSRA` with hail in the remarks window: thunder reported near the squall line', () => {
   const f = operatorFields(kord(), sampleEvent({ station: 'KORD', timeMs: Date.UTC(2024, 1, 28, 2, 10) }));
   assert.ok(f.precipTypes.includes('thunder'), f.precipTypes.join(','));
   assert.ok(f.precipTypes.includes('rain'), f.precipTypes.join(','));
+  // 280133Z `-TSRA` ... 280208Z `TSRA` (no sign: moderate, WMO-No. 306 code table 4678): the strongest within ±1 h
+  assert.is(f.precipIntensity, 'moderate');
+});
+
+test('precipIntensityOf(): the strongest intensity; heavy only with precipitation, as precip_heavy', () => {
+  // WMO-No. 306 code table 4678: `-` light, no sign moderate, `+` heavy
+  assert.is(precipIntensityOf(WX.RAIN | WX.PRECIP | WX.LIGHT), 'light');
+  assert.is(precipIntensityOf(WX.RAIN | WX.PRECIP | WX.LIGHT | WX.MODERATE), 'moderate');
+  assert.is(precipIntensityOf(WX.RAIN | WX.PRECIP | WX.LIGHT | WX.HEAVY), 'heavy');
+  // constructed: +FC (tornado) without precipitation is not heavy precipitation
+  assert.is(precipIntensityOf(WX.HEAVY), null);
+  assert.is(precipIntensityOf(WX.THUNDER), null);
+  // constructed: precipitation from an LCD section without a sign: intensity unknown
+  assert.is(precipIntensityOf(WX.RAIN | WX.PRECIP), null);
 });
 
 real('KORD 2024-02-28 visibility and ceiling before and after: the squall line at 02:00Z and the cold front at 05:00Z', () => {
@@ -138,7 +154,7 @@ test('writers: new columns appended after the contract columns; --wind-unit and 
     windSpeedAfterMs: 10 * KNOT_MS,
     operator: {
       tempBeforeC: 5, tempAfterC: -1, dewpointBeforeC: 3, dewpointAfterC: -6, tempMin6hC: -2, tempMin12hC: -4.04,
-      freezeTimeMs: Date.UTC(2026, 2, 4, 15), precipBefore6h: true, precipTypes: ['rain', 'snow'], precipHeavy: false,
+      freezeTimeMs: Date.UTC(2026, 2, 4, 15), precipBefore6h: true, precipTypes: ['rain', 'snow'], precipHeavy: false, precipIntensity: 'moderate',
       windSpeedBeforeMs: 5 * KNOT_MS, pressureSource: 'station-from-altimeter',
       visibilityBeforeM: 16093.44, visibilityAfterM: 804.672, ceilingBeforeFt: Infinity, ceilingAfterFt: 800,
       runways: [{ runway: '04', headingDeg: 40, crosswindBeforeMs: 1, tailwindBeforeMs: -2, crosswindAfterMs: 3 * KNOT_MS, tailwindAfterMs: -4 }],
@@ -163,7 +179,7 @@ test('writers: new columns appended after the contract columns; --wind-unit and 
   const csv = eventsToCsv([e], { windUnit: 'kt' }).split('\n');
   assert.is(csv[0], cols.join(','));
   // 10 SM and 1/2 SM (FMH-1 §12.6.6; 1 mi = 1609.344 m, NIST SP 811): whole metres; no ceiling is written `none`
-  assert.match(csv[1]!, /,rain; snow,false,2\.6,station-from-altimeter,16093,805,none,800,5,10,/);
+  assert.match(csv[1]!, /,rain; snow,false,2\.6,station-from-altimeter,16093,805,none,800,moderate,5,10,/);
   assert.is(json.ceiling_before_ft, 'none');
   assert.is(json.ceiling_after_ft, 800);
 });
