@@ -93,3 +93,6 @@ export { SCORE_COLUMNS, verificationScoresToCsv } from './verify/format.js';
 // Season summaries (fropa season).
 export { distribution, seasonSummary, SEASON_MEASURES, type Distribution, type SeasonGroup, type SeasonSummary } from './season/season.js';
 export { seasonToCsv, seasonToJson, seasonToTable } from './season/seasonFormat.js';
+export { seasonSection } from './season/seasonHtml.js';
+export { timingHistogram, verificationSection } from './verify/verifyHtml.js';
+export type { ReportSection } from './report/html/reportHtml.js';
