@@ -148,7 +148,7 @@ test('CSV: generic visibility names and units; sky covers without a ceiling; bad
   assert.equal(r.observations.map((o) => o.visibilityM), [8000, 400, 20000, NaN, NaN]);
   assert.equal(r.observations.map((o) => o.ceilingFt), [2500, 100, Infinity, 7000, NaN]);
   assert.is(r.report.parsed, 5);
-  assert.ok(r.report.notes.some((n) => n.includes('bad-value') || n.includes('ceiling')), r.report.notes.join(' | '));
+  assert.ok(r.report.notes.some((n) => n.startsWith('bad-value in ceiling: 1 value (first at line 5: "x5")')), r.report.notes.join(' | '));
   // metres, inferred from values above 100 (common practice, no source)
   const m = readCsvText('time,temp_c,visibility\n2026-03-04T12:00Z,5,9999\n2026-03-04T13:00Z,5,800\n', 'XTST.csv');
   assert.equal(m.observations.map((o) => o.visibilityM), [9999, 800]);
