@@ -184,7 +184,7 @@ test('ISD: VIS (m) and CIG (m → ft; 22000 unlimited) per the NCEI ISD format d
   assert.is(a!.temperatureC, 1.1);
 });
 
-test('series: visibility and ceiling columns; a repeat differing only in them is a conflict, not an identical copy', () => {
+test('series: visibility and ceiling columns; a repeat differing only in them is a conflict, not an identical copy; they choose no report', () => {
   const o = (line: number, vis: number, cig: number) => {
     const x = emptyObservation('XTST', Date.UTC(2026, 2, 4, 12), 'x', line);
     x.temperatureC = 5;
@@ -194,12 +194,17 @@ test('series: visibility and ceiling columns; a repeat differing only in them is
   };
   const same = buildSeries('XTST', [o(1, 800, 300), o(2, 800, 300)]);
   assert.is(same.duplicates[0]!.action, 'identical-dropped');
-  const differ = buildSeries('XTST', [o(1, 800, 300), o(2, NaN, 500)]);
-  assert.is(differ.duplicates[0]!.action, 'conflict-kept-last');
-  // the later line's values, its gaps filled from the earlier one
+  const differ = buildSeries('XTST', [o(1, NaN, 300), o(2, 800, 500)]);
+  assert.is(differ.duplicates[0]!.action, 'conflict-resolved');
+  // visibility and ceiling do not choose the kept report (the same tie-break as without them: the earlier line);
+  // its gaps are filled from the other
+  assert.is(differ.duplicates[0]!.keptLine, 1);
   assert.is(differ.visibilityM[0], 800);
-  assert.is(differ.ceilingFt[0], 500);
+  assert.is(differ.ceilingFt[0], 300);
   assert.is(differ.temperatureC[0], 5);
+  // the same, the input order reversed: the same series (order-independent)
+  const reversed = buildSeries('XTST', [o(2, 800, 500), o(1, NaN, 300)]);
+  assert.equal([reversed.duplicates[0]!.keptLine, reversed.visibilityM[0], reversed.ceilingFt[0]], [1, 800, 300]);
 });
 
 test.run();
