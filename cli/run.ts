@@ -132,9 +132,13 @@ function parser(onSelect: (s: Selected) => void) {
           .option('to', { type: 'string', describe: 'End of the period shown (a date alone means the end of that day)', group: 'Report:' })
           .option('station', { type: 'string', describe: 'Show only this station; repeatable or comma-separated', group: 'Report:' })
           .option('local', { type: 'boolean', describe: 'Show passage times in the --tz zone beside UTC (needs --tz)', group: 'Report:' })
+          .option('season', { type: 'boolean', describe: 'Add a season section: passages by kind and month, and by hour of the day (as fropa season)', group: 'Report:' })
+          .option('forecasts', { type: 'string', describe: 'Add a verification section for these forecast passages (CSV as for fropa verify): hits, misses and false alarms per station, timing errors', group: 'Report:' })
+          .option('window-hours', { type: 'number', default: 6, describe: 'With --forecasts: a forecast and an observed passage match when within this many hours', group: 'Report:' })
           .example('$0 report stations-demo --out report.html', 'The demo network: overview, fronts with maps, a chart per passage')
           .example('$0 report stations-demo --from 2026-03-02 --to 2026-03-03 --out march2.html', 'Two days, one chart per station covering them')
           .example('$0 report obs/ --stations stations.csv --station KORD --kinds cold-front', 'One station, cold fronts only')
+          .example('$0 report stations-demo --season --forecasts stations-demo/forecasts/forecast_passages.csv', 'With the season charts and the verification charts of the demo forecasts')
           .epilogue('The page needs no network connection: inline SVG and CSS, no scripts. Without --out it is written to report.html; --out - writes it to standard output.\n\n' + EPILOGUE),
       (a) => onSelect({ command: 'report', args: a as Record<string, unknown> }),
     )

@@ -60,7 +60,7 @@ export { csi, far, frequencyBias, pod, proportionCorrect, type Contingency } fro
 // Writers: records, CSV, JSON, NDJSON, tables, the output folder, the HTML report, inspect, verification.
 export { EVENT_COLUMNS, WIND_UNITS, eventToRecord, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, recordColumns, summaryLines } from './report/format.js';
 export type { EventColumn, EventRecord, RecordOptions, RecordValue, TableOptions, WindUnit } from './report/format.js';
-export { operatorFields, parseRunways, precipTypesOf, pressureSource, windOnRunway, withOperatorFields, type RunwayHeading } from './report/operatorFields.js';
+export { operatorFields, parseRunways, precipIntensityOf, precipTypesOf, pressureSource, windOnRunway, withOperatorFields, type RunwayHeading } from './report/operatorFields.js';
 export { FRONT_COLUMNS, eventsAndTracksToJson, passagesToTable, trackToRecord, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable } from './report/fronts.js';
 export type { FrontColumn } from './report/fronts.js';
 export { outputFolderFiles, writeOutputFolder, type OutputFile } from './report/outputFolder.js';
@@ -93,3 +93,6 @@ export { SCORE_COLUMNS, verificationScoresToCsv } from './verify/format.js';
 // Season summaries (fropa season).
 export { distribution, seasonSummary, SEASON_MEASURES, type Distribution, type SeasonGroup, type SeasonSummary } from './season/season.js';
 export { seasonToCsv, seasonToJson, seasonToTable } from './season/seasonFormat.js';
+export { seasonSection } from './season/seasonHtml.js';
+export { timingHistogram, verificationSection } from './verify/verifyHtml.js';
+export type { ReportSection } from './report/html/reportHtml.js';

@@ -3,14 +3,14 @@
  * observations, verify forecast passage times (a forecast file, or passages the same detector finds in
  * forecast series) against them.
  */
-import { readFileSync } from 'node:fs';
 import { resolve } from 'node:path';
 import {
-  analyseSeries, buildStationIndex, issueLine, loadPaths, readForecastsText, seriesForecasts, seriesSpans, verificationScoresToCsv, verificationToCsv, verificationToJson,
+  analyseSeries, issueLine, loadPaths, seriesForecasts, seriesSpans, verificationScoresToCsv, verificationToCsv, verificationToJson,
   verificationToTable, verifyForecasts, UsageError, noDataMessage, type CoveragePeriod, type FileReport, type ForecastPassage,
 } from '../../src/index.js';
 import { inputArgs, inputFiles, resolveLoadOptions, writeOutput, type CliIo, printLoadSummary } from '../options.js';
 import { detectOptions, parseKinds } from './detect.js';
+import { parseForecastFile, printForecastReport, readForecastFile } from '../forecastFile.js';
 
 const last = (v: unknown) => (Array.isArray(v) ? v[v.length - 1] : v);
 const all = (v: unknown): string[] => (v === undefined ? [] : (Array.isArray(v) ? v : [v]).map(String));
@@ -36,14 +36,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const validHours = numberOption(raw.validHours, '--valid-hours', (x) => x > 0 && x <= 24 * 31, 'a number of hours above 0 and at most 744');
   const resamples = numberOption(raw.bootstrapResamples, '--bootstrap-resamples', (x) => Number.isInteger(x) && x >= 0 && x <= 100_000, 'an integer from 0 (no intervals) to 100000 (default 1000)') ?? 1000;
   const seed = numberOption(raw.bootstrapSeed, '--bootstrap-seed', (x) => Number.isInteger(x) && x >= 0 && x < 2 ** 32, 'an integer from 0 to 4294967295 (default 1)') ?? 1;
-  let text: string | undefined;
-  if (forecastFile) {
-    try {
-      text = readFileSync(forecastFile, 'utf8');
-    } catch {
-      throw new UsageError(`${forecastFile}: cannot read the forecast file`);
-    }
-  }
+  const text = forecastFile ? readForecastFile(forecastFile) : undefined;
   const opts = await resolveLoadOptions(args, io);
   // The forecast file may sit inside an observation folder; the loader's note that it skipped it is noise here.
   const note = opts.onNote;
@@ -60,14 +53,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   const coverage: CoveragePeriod[] = [];
   const reports: { label: string; report: FileReport; unit: string }[] = [];
   if (forecastFile && text !== undefined) {
-    const { forecasts: fs, report } = readForecastsText(text, forecastFile, {
-      stations: buildStationIndex(result.stations),
-      observedStations: new Set(result.series.map((s) => s.station)),
-      observedSpans,
-      zone: opts.zone,
-      offsetMinutes: opts.offsetMinutes,
-      standardTime: opts.standardTime,
-    });
+    const { forecasts: fs, report } = parseForecastFile(text, forecastFile, result, opts);
     forecasts.push(...fs);
     reports.push({ label: forecastFile, report, unit: 'forecasts read' });
   }
@@ -88,14 +74,7 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     io.stderr(`fropa: note: ${forecastFile}: no valid_from/valid_to and no --valid-hours: each forecast covers only ±${windowHours} h around itself, so a passage far from every forecast is not counted as a miss\n`);
   }
   // The summary line of each forecast source, also under --quiet when lines were rejected.
-  for (const { label, report, unit } of reports) {
-    if (!args.quiet) for (const n of report.notes) io.stderr(`fropa: note: ${label}: ${n}\n`);
-    if (report.rejected) {
-      const reasons = Object.entries(report.rejectedByReason).map(([k, n]) => `${k} ${n}`).join(', ');
-      io.stderr(`fropa: ${label}: ${report.parsed} ${unit}, ${report.rejected} rejected (${reasons})\n`);
-      if (!args.quiet) for (const i of report.issues.slice(0, 5)) io.stderr(`  ${issueLine(i)}\n`);
-    }
-  }
+  for (const { label, report, unit } of reports) printForecastReport(label, report, unit, Boolean(args.quiet), io);
   if (forecasts.length === 0 && coverage.length === 0) {
     io.stderr(`fropa: no usable forecasts in ${[forecastFile, ...seriesPaths].filter(Boolean).join(', ')}\n`);
     if (args.quiet) for (const { report } of reports) for (const i of report.issues.slice(0, 3)) io.stderr(`  ${issueLine(i)}\n`);

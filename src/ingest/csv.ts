@@ -119,22 +119,31 @@ export interface CsvResult {
   units: Partial<Record<NumericField, UnitChoice>>;
 }
 
+/** Sky covers that are no ceiling (FMH-1 §12.6.9: only BKN, OVC and VV make one). */
+const NO_CEILING_COVERS = new Set(['CLR', 'SKC', 'NCD', 'NSC', 'FEW', 'SCT']);
+
 const MISSING = new Set(['', 'm', 'mm', 'na', 'n/a', 'nan', 'null', 'none', '-', '--', 'missing', '#n/a']);
 
 /**
  * WX flags of a present-weather text such as `-RA BR`, `+TSRA`, or LCD `-RA:02 BR:1 |RA BR |`: each token
  * (split on blanks, `|`, `,`, `;`; an LCD `:n` suffix dropped) is one FM 15 w'w' group read by the METAR
  * decoder's table (`weatherFlags`, WMO-No. 306 code table 4678; FMH-1 §12.6.8), so `VC` groups keep only
- * their SH/TS flags. Tokens that are not weather groups are ignored.
- * @example weatherFlagsFromCodes('-RA BR') // WX.RAIN | WX.PRECIP
+ * their SH/TS flags. Tokens that are not weather groups are ignored. Intensity (WX.LIGHT, WX.MODERATE) is read
+ * only before the first `|`: in LCD the later sections (from memory: the AW and MW code lists) carry no sign.
+ * @example weatherFlagsFromCodes('-RA BR') // WX.RAIN | WX.PRECIP | WX.LIGHT
  */
 export function weatherFlagsFromCodes(text: string): number {
   let flags = 0;
-  for (const raw of text.toUpperCase().split(/[\s|,;]+/)) {
-    const tok = raw.split(':')[0]!;
-    if (tok === '') continue;
-    const f = weatherFlags(tok, 0, tok.length);
-    if (f > 0) flags |= f;
+  const sections = text.toUpperCase().split('|');
+  for (let k = 0; k < sections.length; k++) {
+    for (const raw of sections[k]!.split(/[\s,;]+/)) {
+      const tok = raw.split(':')[0]!;
+      if (tok === '') continue;
+      let f = weatherFlags(tok, 0, tok.length);
+      // LCD: only the first section (automated codes) writes intensity; the others have no sign to read
+      if (k > 0 && f > 0) f &= ~(WX.LIGHT | WX.MODERATE);
+      if (f > 0) flags |= f;
+    }
   }
   return flags;
 }
@@ -284,6 +293,8 @@ export class CsvCore {
   private timeColumns: TimeColumns | null = null;
   private stationCol = NO_COL;
   private wxCol = NO_COL;
+  /** Sky cover and sky level (ft) columns, pairwise (IEM `skyc1..4`, `skyl1..4`); empty when none. */
+  private skyCols: { cover: number; level: number }[] = [];
   private rawCol = NO_COL;
   private offsetCol = NO_COL;
   private typeCol = NO_COL;
@@ -596,6 +607,11 @@ export class CsvCore {
     this.timeCol = mapping.time.index;
     this.stationCol = mapping.station?.index ?? NO_COL;
     this.wxCol = mapping.weatherCodes?.index ?? NO_COL;
+    for (const [c, l] of [['skyCover1', 'skyLevel1'], ['skyCover2', 'skyLevel2'], ['skyCover3', 'skyLevel3'], ['skyCover4', 'skyLevel4']] as const) {
+      const cover = mapping[c];
+      const level = mapping[l];
+      if (cover && level) this.skyCols.push({ cover: cover.index, level: level.index });
+    }
     this.rawCol = hasRaw ? mapping.rawReport!.index : NO_COL;
     this.offsetCol = mapping.utcOffset?.index ?? NO_COL;
     this.typeCol = mapping.reportType?.index ?? NO_COL;
@@ -999,6 +1015,8 @@ export class CsvCore {
       o.weather = 0;
       o.peakWindMs = NaN;
       o.pressureTrend = 0;
+      o.visibilityM = NaN;
+      o.ceilingFt = NaN;
       o.latDeg = this.val(cols.lat, line);
       o.lonDeg = this.val(cols.lon, line);
       o.elevationM = this.val(cols.elevation, line);
@@ -1023,6 +1041,8 @@ export class CsvCore {
         weather: 0,
         peakWindMs: NaN,
         pressureTrend: 0,
+        visibilityM: NaN,
+        ceilingFt: NaN,
         latDeg: this.val(cols.lat, line),
         lonDeg: this.val(cols.lon, line),
         elevationM: this.val(cols.elevation, line),
@@ -1056,6 +1076,9 @@ export class CsvCore {
         }
       }
     }
+    // read after the other fields, so that the notes of their values keep their order
+    if (cols.visibility !== undefined) o.visibilityM = this.val(cols.visibility, line);
+    if (this.skyCols.length !== 0) o.ceilingFt = this.ceilingOf(line);
     if (this.rawCol !== NO_COL) {
       this.mergeRaw(o, this.cell(this.rawCol), line);
       station = o.station;
@@ -1072,6 +1095,33 @@ export class CsvCore {
     else this.lastStationTime = timeMs;
     this.report.parsed++;
     this.emit(o);
+  }
+
+  /**
+   * Ceiling of the current row from its sky columns, ft: the lowest layer whose cover is BKN, OVC or VV (FMH-1
+   * §12.6.9); +Infinity when the covers name only layers without a ceiling (CLR SKC NCD NSC FEW SCT); NaN when no
+   * cover is given. A level that is not a number is counted (`bad-value`), its layer skipped.
+   */
+  private ceilingOf(line: number): number {
+    let ceiling = NaN;
+    for (const k of this.skyCols) {
+      const cover = this.cell(k.cover).trim().toUpperCase();
+      if (cover !== 'BKN' && cover !== 'OVC' && cover !== 'VV') {
+        if (NO_CEILING_COVERS.has(cover) && ceiling !== ceiling) ceiling = Infinity;
+        continue;
+      }
+      const raw = this.cell(k.level).trim();
+      const lower = raw.toLowerCase();
+      if (raw === '' || MISSING.has(lower) || this.userMissingText.has(lower)) continue;
+      const h = plainNumber(raw);
+      if (h === -9999 || h === -999 || this.userMissingNum.includes(h)) continue;
+      if (!(h >= 0)) {
+        this.count('bad-value', 'ceiling', line, raw);
+        continue;
+      }
+      if (!(ceiling <= h)) ceiling = h;
+    }
+    return ceiling;
   }
 
   private mergeRaw(o: Observation, cell: string, line: number): void {
@@ -1091,7 +1141,7 @@ export class CsvCore {
       this.count('raw-report-undecoded', 'rawReport', line, text);
       return;
     }
-    const fill = (k: keyof Observation & ('temperatureC' | 'dewpointC' | 'windDirDeg' | 'windSpeedMs' | 'gustMs' | 'stationPressureHpa' | 'seaLevelPressureHpa' | 'altimeterHpa' | 'precipMm' | 'peakWindMs')) => {
+    const fill = (k: keyof Observation & ('temperatureC' | 'dewpointC' | 'windDirDeg' | 'windSpeedMs' | 'gustMs' | 'stationPressureHpa' | 'seaLevelPressureHpa' | 'altimeterHpa' | 'precipMm' | 'peakWindMs' | 'visibilityM' | 'ceilingFt')) => {
       const v = d![k];
       if (typeof v === 'number' && v === v && o[k] !== o[k]) o[k] = v;
     };
@@ -1109,6 +1159,8 @@ export class CsvCore {
     fill('altimeterHpa');
     fill('precipMm');
     fill('peakWindMs');
+    fill('visibilityM');
+    fill('ceilingFt');
     if (d.weather) o.weather |= d.weather;
     if (o.pressureTrend === 0 && d.pressureTrend) o.pressureTrend = d.pressureTrend;
     if (d.corrected) o.corrected = true;

@@ -106,8 +106,9 @@ const NO_WEATHER = new Set(['clear', 'mainly clear', 'mostly cloudy', 'cloudy', 
 
 /**
  * WX flags of an ECCC `Weather` cell: comma-separated words, each optionally after `Light`, `Moderate` or
- * `Heavy` (`Heavy` adds WX.HEAVY, as `+` does in a METAR group). Words it does not know are returned, to be
- * counted by the caller.
+ * `Heavy` (`Heavy` adds WX.HEAVY, as `+` does in a METAR group; `Light` and `Moderate` add WX.LIGHT and WX.MODERATE
+ * to precipitation). A word without one carries no intensity: the METAR convention that no sign means moderate is
+ * not the words'. Words it does not know are returned, to be counted by the caller.
  * @example ecccWeatherFlags('Freezing Rain,Fog').flags // WX.FREEZING | WX.RAIN | WX.PRECIP | WX.FOG
  */
 export function ecccWeatherFlags(text: string): { flags: number; unknown: string[] } {
@@ -117,9 +118,11 @@ export function ecccWeatherFlags(text: string): { flags: number; unknown: string
     let w = part.trim().toLowerCase().replace(/\s+/g, ' ');
     if (NO_WEATHER.has(w)) continue;
     let heavy = false;
+    let intensity = 0;
     const m = /^(light|moderate|heavy) (.*)$/.exec(w);
     if (m) {
       heavy = m[1] === 'heavy';
+      intensity = m[1] === 'light' ? WX.LIGHT : m[1] === 'moderate' ? WX.MODERATE : 0;
       w = m[2]!;
     }
     const code = WORDS[w];
@@ -127,7 +130,8 @@ export function ecccWeatherFlags(text: string): { flags: number; unknown: string
       unknown.push(part.trim());
       continue;
     }
-    flags |= weatherFlags(code, 0, code.length) | (heavy ? WX.HEAVY : 0);
+    const f = weatherFlags(code, 0, code.length) & ~(WX.LIGHT | WX.MODERATE);
+    flags |= f | (heavy ? WX.HEAVY : 0) | (f & WX.PRECIP ? intensity : 0);
   }
   return { flags, unknown };
 }

@@ -13,6 +13,10 @@
  * - `AA1` = liquid precipitation: period (hours, 99 missing), depth (mm ×10, 9999 missing), condition,
  *   quality; used only for a one-hour period.
  * - `OC1` = wind gust (m/s ×10, 9999 missing), quality.
+ * - `VIS` = visibility distance (m, 999999 missing), its quality code, variability code, its quality code.
+ * - `CIG` = ceiling height (m, 99999 missing, 22000 unlimited: no ceiling, +Infinity), its quality code, determination code,
+ *   CAVOK code; the format document defines it as the lowest layer with 5/8 or more sky cover (broken or overcast) or an
+ *   obscuration, the FMH-1 ceiling; converted to feet (÷ 0.3048). The sky-cover layers `GA1`…/`GD1`… are not read.
  * Quality codes: 0/1/4/5 passed (4, 5: NCEI data source), 2/6 suspect, 3/7 erroneous, 9 missing, letters are
  * other-source flags (A, C, I, M, P, R, U: kept). Erroneous values are read as missing and counted; suspect
  * values are kept and counted. `DATE` is UTC (the format document: "GMT").
@@ -22,6 +26,7 @@
  */
 import Papa from 'papaparse';
 import { addIssue, emptyObservation, newFileReport, type FileReport, type Observation } from '../model/index.js';
+import { FOOT_M } from '../physics/constants.js';
 
 export interface IsdResult {
   report: FileReport;
@@ -116,7 +121,7 @@ export function readIsdText(text: string, file: string, onObservation?: (o: Obse
       header = row.map((h) => h.trim().toUpperCase());
       header.forEach((h, i) => (col[h] = i));
       report.columns = {};
-      for (const [h, f] of [['DATE', 'time'], ['STATION', 'station'], ['CALL_SIGN', 'station'], ['WND', 'windDir+windSpeed'], ['TMP', 'temperature'], ['DEW', 'dewpoint'], ['SLP', 'seaLevelPressure'], ['MA1', 'altimeter+stationPressure'], ['AA1', 'precip'], ['OC1', 'gust'], ['LATITUDE', 'lat'], ['LONGITUDE', 'lon'], ['ELEVATION', 'elevation']] as const) {
+      for (const [h, f] of [['DATE', 'time'], ['STATION', 'station'], ['CALL_SIGN', 'station'], ['WND', 'windDir+windSpeed'], ['TMP', 'temperature'], ['DEW', 'dewpoint'], ['SLP', 'seaLevelPressure'], ['MA1', 'altimeter+stationPressure'], ['AA1', 'precip'], ['OC1', 'gust'], ['VIS', 'visibility'], ['CIG', 'ceiling'], ['LATITUDE', 'lat'], ['LONGITUDE', 'lon'], ['ELEVATION', 'elevation']] as const) {
         if (col[h] !== undefined) report.columns[h] = f;
       }
       report.units = { temperature: 'degC', dewpoint: 'degC', windSpeed: 'm/s', windDir: 'deg', seaLevelPressure: 'hPa' };
@@ -189,6 +194,17 @@ export function readIsdText(text: string, file: string, onObservation?: (o: Obse
     if (oc1 !== undefined && oc1.trim() !== '') {
       const p = oc1.split(',');
       o.gustMs = take(packedNumber(p[0], 10), isdQuality(p[1]), 'gustMs', oc1);
+    }
+    const vis = get(row, 'VIS');
+    if (vis !== undefined && vis.trim() !== '') {
+      const p = vis.split(',');
+      o.visibilityM = take(packedNumber(p[0], 1), isdQuality(p[1]), 'visibilityM', vis);
+    }
+    const cig = get(row, 'CIG');
+    if (cig !== undefined && cig.trim() !== '') {
+      const p = cig.split(',');
+      const h = packedNumber(p[0], 1);
+      o.ceilingFt = take(h === 22000 ? Infinity : h / FOOT_M, isdQuality(p[1]), 'ceilingFt', cig);
     }
     const lat = Number(get(row, 'LATITUDE'));
     const lon = Number(get(row, 'LONGITUDE'));

@@ -41,6 +41,8 @@ export function metarToObservation(r: MetarReport, file: string, line: number): 
     weather: r.weather,
     peakWindMs: r.peakWindMs,
     pressureTrend: r.pressureTrend,
+    visibilityM: r.visibilityM,
+    ceilingFt: r.ceilingFt,
     latDeg: NaN,
     lonDeg: NaN,
     elevationM: NaN,
@@ -179,6 +181,8 @@ function fillObservation(r: MetarReport, line: number, o: Observation): void {
   o.weather = r.weather;
   o.peakWindMs = r.peakWindMs;
   o.pressureTrend = r.pressureTrend;
+  o.visibilityM = r.visibilityM;
+  o.ceilingFt = r.ceilingFt;
   o.remarks = r.remarks.length ? r.remarks : undefined;
   o.line = line;
 }

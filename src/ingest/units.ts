@@ -2,11 +2,12 @@
  * Unit names, exact conversion factors, and unit detection from column headers and value ranges.
  *
  * Canonical units (what `toCanonical` returns): temperature °C, speed m/s, pressure hPa, angle degrees,
- * humidity %, precipitation depth mm (for `mm` and `in`), heights m (for `m` and `ft`). Lengths come in
- * two families on purpose: a precipitation depth in inches becomes mm, a height in feet becomes metres.
+ * humidity %, precipitation depth mm (for `mm` and `in`), heights and distances m (for `m`, `ft`, `km`, `mi`:
+ * elevation, visibility). Lengths come in two families on purpose: a precipitation depth in inches becomes mm,
+ * a height in feet or a visibility in statute miles becomes metres.
  *
  * Factors (exact unless stated), NIST SP 811 (2008 ed.) Appendix B.8 and the definitions it cites:
- * - 1 ft = 0.3048 m, 1 in = 0.0254 m, 1 mi (statute) = 1609.344 m (international yard and pound, 1959).
+ * - 1 ft = 0.3048 m, 1 in = 0.0254 m, 1 mi (statute) = 1609.344 m (international yard and pound, 1959); 1 km = 1000 m.
  * - 1 nautical mile = 1852 m, so 1 kn = 1852/3600 m/s.
  * - 1 mph = 1609.344/3600 m/s = 0.44704 m/s; 1 km/h = 1/3.6 m/s (SI).
  * - °C = (°F − 32)/1.8; °C = K − 273.15 (SI definition of the Celsius scale).
@@ -14,7 +15,7 @@
  *   physics/constants.ts; SP 811 B.8 prints 3.386 389 E+03); 1 hPa = 100 Pa; 1 kPa = 10 hPa.
  */
 
-import { FOOT_M, HPA_PER_INHG, INCH_M, KNOT_MS, MPH_MS, ZERO_CELSIUS_K } from '../physics/constants.js';
+import { FOOT_M, HPA_PER_INHG, INCH_M, KNOT_MS, MPH_MS, STATUTE_MILE_M, ZERO_CELSIUS_K } from '../physics/constants.js';
 import { medianInPlace } from '../signal/median.js';
 
 export type UnitName =
@@ -33,14 +34,16 @@ export type UnitName =
   | 'in'
   | 'm'
   | 'ft'
+  | 'km'
+  | 'mi'
   | 'deg'
   | 'deg10'
   | '%';
 
 /** Every unit name, in a stable order (for messages). */
-export const UNIT_NAMES: readonly UnitName[] = ['degC', 'degF', 'K', 'm/s', 'kt', 'mph', 'km/h', 'hPa', 'inHg', 'kPa', 'Pa', 'mm', 'in', 'm', 'ft', 'deg', 'deg10', '%'];
+export const UNIT_NAMES: readonly UnitName[] = ['degC', 'degF', 'K', 'm/s', 'kt', 'mph', 'km/h', 'hPa', 'inHg', 'kPa', 'Pa', 'mm', 'in', 'm', 'ft', 'km', 'mi', 'deg', 'deg10', '%'];
 
-/** Kind of quantity a unit measures. `depth` = precipitation (canonical mm), `height` = elevation (canonical m). */
+/** Kind of quantity a unit measures. `depth` = precipitation (canonical mm), `height` = elevation and visibility (canonical m). */
 export type Quantity = 'temperature' | 'speed' | 'pressure' | 'depth' | 'height' | 'angle' | 'fraction';
 
 const QUANTITY: Record<UnitName, Quantity> = {
@@ -59,6 +62,8 @@ const QUANTITY: Record<UnitName, Quantity> = {
   in: 'depth',
   m: 'height',
   ft: 'height',
+  km: 'height',
+  mi: 'height',
   deg: 'angle',
   deg10: 'angle',
   '%': 'fraction',
@@ -90,6 +95,8 @@ const ALIASES: Record<string, UnitName> = {
   in: 'in', inch: 'in', inches: 'in', '"': 'in',
   m: 'm', meters: 'm', metres: 'm', meter: 'm', metre: 'm',
   ft: 'ft', feet: 'ft', foot: 'ft',
+  km: 'km', kilometers: 'km', kilometres: 'km',
+  mi: 'mi', sm: 'mi', miles: 'mi', 'statute miles': 'mi',
   deg: 'deg', degrees: 'deg', '°': 'deg', degree: 'deg',
   // tens of degrees: Environment and Climate Change Canada `Wind Dir (10s deg)` (27 = 270°)
   '10s deg': 'deg10', '10s of degrees': 'deg10', 'tens of degrees': 'deg10', deg10: 'deg10', '10deg': 'deg10',
@@ -109,7 +116,7 @@ export function parseUnitName(text: string): UnitName | null {
 /**
  * A fast function converting a value in `unit` to the canonical unit of its quantity.
  * °F: (t − 32)/1.8; K: t − 273.15; kt ×1852/3600; mph ×0.44704; km/h ÷3.6; inHg ×33.8638864; kPa ×10; Pa ÷100;
- * in ×25.4 (to mm); ft ×0.3048 (to m). NaN stays NaN. Sources in the module comment. Built from the one
+ * in ×25.4 (to mm); ft ×0.3048, km ×1000, mi ×1609.344 (to m). NaN stays NaN. Sources in the module comment. Built from the one
  * table in `conversionOf`.
  * @example converter('kt')(10) // 5.1444…
  */
@@ -157,6 +164,10 @@ export function conversionOf(unit: UnitName): { op: 0 | 1 | 2 | 3 | 4; k: number
       return { op: 3, k: INCH_M * 1000 };
     case 'ft':
       return { op: 3, k: FOOT_M };
+    case 'km':
+      return { op: 3, k: 1000 };
+    case 'mi':
+      return { op: 3, k: STATUTE_MILE_M };
     case 'deg10':
       return { op: 3, k: 10 };
     case 'degC':
@@ -206,6 +217,10 @@ export function fromCanonical(value: number, unit: UnitName): number {
       return value / (INCH_M * 1000);
     case 'ft':
       return value / FOOT_M;
+    case 'km':
+      return value / 1000;
+    case 'mi':
+      return value / STATUTE_MILE_M;
     case 'deg10':
       return value / 10;
     default:
@@ -218,6 +233,7 @@ export function fromCanonical(value: number, unit: UnitName): number {
 const NAME_UNITS: Record<string, UnitName> = {
   tmpf: 'degF', dwpf: 'degF', feel: 'degF', tmpc: 'degC', dwpc: 'degC', sknt: 'kt',
   alti: 'inHg', p01i: 'in', p01m: 'mm', drct: 'deg', relh: '%', peak_wind_gust: 'kt', sped: 'mph', gust_mph: 'mph',
+  vsby: 'mi',
 };
 
 /** Suffixes after `_`, `-`, `.` or a space that name a unit (`temp_f`, `wind_kt`, `pressure_inhg`). */
@@ -271,6 +287,7 @@ export type InferField =
   | 'altimeter'
   | 'precip'
   | 'elevation'
+  | 'visibility'
   | 'windDir'
   | 'relativeHumidity';
 
@@ -304,6 +321,7 @@ function finiteMedianMax(values: ArrayLike<number>): { median: number; max: numb
  * - pressure: median 15–32.5 → inHg; 40–110 → kPa; 400–1100 → hPa; 40000–110000 → Pa (station pressure at
  *   high stations is lower than sea-level values, hence the wide lower bounds).
  * - speed, precipitation, elevation: values cannot tell units apart → m/s, mm, m defaults (ambiguous).
+ * - visibility: max above 100 → m (no visibility in km or miles is that large); else statute miles assumed (ambiguous).
  * - wind direction → deg; relative humidity → %.
  * @example inferUnit('temperature', [50, 55, 61]).unit // 'degF'
  */
@@ -334,6 +352,9 @@ export function inferUnit(field: InferField, values: ArrayLike<number>): Inferre
       return { unit: 'mm', why: `precipitation units cannot be told from values (${stat}); assumed mm`, ambiguous: true };
     case 'elevation':
       return { unit: 'm', why: `elevation units cannot be told from values (${stat}); assumed m`, ambiguous: true };
+    case 'visibility':
+      if (n > 0 && max > 100) return { unit: 'm', why: `${stat}: above 100, so metres`, ambiguous: false };
+      return { unit: 'mi', why: `visibility of at most 100 (${stat}); assumed statute miles — name the unit (e.g. name=visibility:km)`, ambiguous: true };
     case 'windDir':
       return { unit: 'deg', why: 'wind direction is in degrees', ambiguous: false };
     case 'relativeHumidity':

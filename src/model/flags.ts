@@ -21,7 +21,14 @@ export const WX = {
   PRECIP: 1 << 12,
   /** Lightning or CB reported (remarks or cloud type). */
   CONVECTIVE: 1 << 13,
+  /** A precipitation group with the `-` sign: light (WMO-No. 306 code table 4678, intensity; FMH-1 §12.6.8). */
+  LIGHT: 1 << 14,
+  /** A precipitation group without an intensity sign: moderate (same sources). `+` (heavy) sets HEAVY. */
+  MODERATE: 1 << 15,
 } as const;
+
+/** The intensity bits of precipitation groups. */
+export const WX_INTENSITY = WX.LIGHT | WX.MODERATE | WX.HEAVY;
 
 /** QC flag bits, one Uint8 per value (set by src/qc/). 0 = passed. */
 export const QC = {

@@ -45,6 +45,14 @@ export interface Observation {
   peakWindMs: number;
   /** PRESRR = +1, PRESFR = -1, none = 0. */
   pressureTrend: number;
+  /** Prevailing visibility, m (WMO-No. 306 FM 15 visibility group; statute miles converted), NaN if not reported. */
+  visibilityM: number;
+  /**
+   * Ceiling, ft above ground (aviation convention, FMH-1 §12.6.9: the lowest layer reported BKN or OVC, or the
+   * vertical visibility VV into an obscuration); +Infinity when the sky was reported without such a layer (no
+   * ceiling: CLR, SKC, NCD, NSC, CAVOK, FEW/SCT only); NaN when the sky was not reported.
+   */
+  ceilingFt: number;
   /** Station latitude/longitude/elevation from the row itself (CSV), NaN otherwise. */
   latDeg: number;
   lonDeg: number;
@@ -74,6 +82,8 @@ export function emptyObservation(station: string, timeMs: number, file: string, 
     weather: 0,
     peakWindMs: NaN,
     pressureTrend: 0,
+    visibilityM: NaN,
+    ceilingFt: NaN,
     latDeg: NaN,
     lonDeg: NaN,
     elevationM: NaN,

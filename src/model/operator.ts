@@ -8,6 +8,10 @@
 export const PRECIP_TYPES = ['rain', 'drizzle', 'snow', 'freezing-rain', 'freezing-drizzle', 'ice-pellets', 'hail', 'thunder'] as const;
 export type PrecipType = (typeof PRECIP_TYPES)[number];
 
+/** Intensity of precipitation groups: `-` light, no sign moderate, `+` heavy (WMO-No. 306, FM 15, code table 4678). */
+export const PRECIP_INTENSITIES = ['light', 'moderate', 'heavy'] as const;
+export type PrecipIntensity = (typeof PRECIP_INTENSITIES)[number];
+
 /**
  * Which pressure a series' pressure fields are: station pressure as reported, station pressure derived from the
  * altimeter setting (NWS inversion, physics/pressure.ts), the altimeter setting itself, sea-level pressure, or none.
@@ -46,8 +50,22 @@ export interface OperatorFields {
   precipTypes: PrecipType[];
   /** Heavy (`+`) precipitation reported within ±1 h of the passage. */
   precipHeavy: boolean;
+  /**
+   * The strongest intensity of the precipitation reported within ±1 h (heavy exactly when `precipHeavy`); null when
+   * no precipitation group with an intensity was reported there (none, or only codes that carry no intensity).
+   */
+  precipIntensity: PrecipIntensity | null;
   /** Median wind speed over the hour before the passage, m/s. */
   windSpeedBeforeMs: number;
+  /** Prevailing visibility over the hour before the passage and 1–3 h after, m (lower median of the reports). */
+  visibilityBeforeM: number;
+  visibilityAfterM: number;
+  /**
+   * Ceiling over the hour before and 1–3 h after, ft (lower median of the reports; the FMH-1 ceiling: lowest BKN, OVC or
+   * VV layer). +Infinity: no ceiling (most reports had none); NaN: no sky reported.
+   */
+  ceilingBeforeFt: number;
+  ceilingAfterFt: number;
   /** Which pressure the event's pressure fields (pressure minimum, 3 h rise) were measured on. */
   pressureSource: PressureSource;
   /** Components per runway direction (only with runways asked for). */

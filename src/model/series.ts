@@ -17,6 +17,8 @@ export const SERIES_FIELDS = [
   'altimeterHpa',
   'precipMm',
   'peakWindMs',
+  'visibilityM',
+  'ceilingFt',
 ] as const;
 export type SeriesField = (typeof SERIES_FIELDS)[number];
 
@@ -86,6 +88,8 @@ export function allocSeries(station: string, n: number, meta?: StationMeta): Sta
     altimeterHpa: nan(),
     precipMm: nan(),
     peakWindMs: nan(),
+    visibilityM: nan(),
+    ceilingFt: nan(),
     weather: new Uint16Array(n),
     pressureTrend: new Int8Array(n),
     reportType: new Uint8Array(n),

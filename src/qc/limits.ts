@@ -24,6 +24,8 @@ export const RANGE_LIMITS: Partial<Record<SeriesField, RangeLimit>> = {
   altimeterHpa: { min: 850, max: 1100, source: 'common practice, no source (altimeter setting is reduced to sea level)' },
   seaLevelPressureHpa: { min: 850, max: 1100, source: 'common practice, no source (record sea-level pressures lie near 870 and 1084 hPa)' },
   precipMm: { min: 0, max: 500, source: 'common practice, no source' },
+  visibilityM: { min: 0, max: 100000, source: 'common practice, no source (prevailing visibility; METAR caps at 10 km, surface networks report tens of km)' },
+  ceilingFt: { min: 0, max: Infinity, source: 'common practice, no source (no negative heights; +Infinity is "no ceiling")' },
 };
 
 /**

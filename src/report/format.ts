@@ -54,6 +54,11 @@ export const EVENT_COLUMNS = [
   'precip_heavy',
   'wind_speed_before_ms',
   'pressure_source',
+  'visibility_before_m',
+  'visibility_after_m',
+  'ceiling_before_ft',
+  'ceiling_after_ft',
+  'precip_intensity',
 ] as const;
 export type EventColumn = (typeof EVENT_COLUMNS)[number];
 export type RecordValue = string | number | boolean | null | string[];
@@ -100,8 +105,17 @@ export function recordColumns(events: readonly PassageEvent[], opts: RecordOptio
 
 const NO_OPERATOR: OperatorFields = {
   tempBeforeC: NaN, tempAfterC: NaN, dewpointBeforeC: NaN, dewpointAfterC: NaN, tempMin6hC: NaN, tempMin12hC: NaN,
-  freezeTimeMs: NaN, precipBefore6h: false, precipTypes: [], precipHeavy: false, windSpeedBeforeMs: NaN, pressureSource: 'none',
+  freezeTimeMs: NaN, precipBefore6h: false, precipTypes: [], precipHeavy: false, precipIntensity: null, windSpeedBeforeMs: NaN, pressureSource: 'none',
+  visibilityBeforeM: NaN, visibilityAfterM: NaN, ceilingBeforeFt: NaN, ceilingAfterFt: NaN,
 };
+
+/**
+ * A ceiling for output: whole feet, `none` for no ceiling (+Infinity), null when not known.
+ * @example ceilingValue(Infinity) // 'none'
+ */
+export function ceilingValue(ft: number): number | string | null {
+  return ft === Infinity ? 'none' : roundOrNull(ft, 0);
+}
 
 /**
  * Epoch ms → `YYYY-MM-DDTHH:MM:SSZ` (ISO 8601 UTC, no fraction); null when not finite.
@@ -127,7 +141,8 @@ export function roundOrNull(x: number, digits: number): number | null {
 
 /**
  * One event as a flat record with the contract's snake_case keys, in contract order. Rounding:
- * 0.1 for °C, K, hPa, m/s, hours, km and K/100 km; whole degrees for wind; 0.01 for confidence.
+ * 0.1 for °C, K, hPa, m/s, hours, km and K/100 km; whole degrees for wind; 0.01 for confidence; whole metres for
+ * visibility and whole feet for ceiling (`none`: no ceiling).
  */
 export function eventToRecord(e: PassageEvent, opts: RecordOptions = {}): EventRecord {
   const o = e.operator ?? NO_OPERATOR;
@@ -174,6 +189,11 @@ export function eventToRecord(e: PassageEvent, opts: RecordOptions = {}): EventR
     precip_heavy: e.operator ? o.precipHeavy : null,
     wind_speed_before_ms: roundOrNull(o.windSpeedBeforeMs, 1),
     pressure_source: e.operator ? o.pressureSource : null,
+    visibility_before_m: roundOrNull(o.visibilityBeforeM, 0),
+    visibility_after_m: roundOrNull(o.visibilityAfterM, 0),
+    ceiling_before_ft: ceilingValue(o.ceilingBeforeFt),
+    ceiling_after_ft: ceilingValue(o.ceilingAfterFt),
+    precip_intensity: o.precipIntensity,
   };
   if (unit.suffix !== 'ms') {
     rec[`wind_speed_before_${unit.suffix}`] = w(o.windSpeedBeforeMs);
@@ -294,6 +314,11 @@ function num(x: number, digits: number, signed = false): string {
   return signed && r > 0 ? '+' + s : s;
 }
 
+/** A ceiling for the table: whole feet, `none` for no ceiling, `-` when not known. */
+function cig(ft: number): string {
+  return ft === Infinity ? 'none' : num(ft, 0);
+}
+
 function clock(ms: number, zone: string | undefined, withDate: boolean): string {
   if (!Number.isFinite(ms)) return '-';
   const d = DateTime.fromMillis(ms, { zone: zone ?? 'utc' });
@@ -358,8 +383,10 @@ export function eventsToTable(events: readonly PassageEvent[], opts: TableOption
     'freeze',
     'wx near',
     'pressure',
+    'vis km',
+    'ceiling ft',
   ];
-  const right = [false, false, false, true, true, true, true, true, true, true, false, true, false, true, false, true, true, false, false, false, true, false, false, false];
+  const right = [false, false, false, true, true, true, true, true, true, true, false, true, false, true, false, true, true, false, false, false, true, false, false, false, false, false];
   const rows = events.map((e) => {
     const o = e.operator;
     const pair = (a: number | undefined, b: number | undefined, d: number) =>
@@ -390,8 +417,10 @@ export function eventsToTable(events: readonly PassageEvent[], opts: TableOption
       pair(o?.dewpointBeforeC, o?.dewpointAfterC, 1),
       num(o?.tempMin12hC ?? NaN, 1),
       o && Number.isFinite(o.freezeTimeMs) ? clock(o.freezeTimeMs, opts.zone, false) : '-',
-      o && o.precipTypes.length ? (o.precipHeavy ? 'heavy ' : '') + o.precipTypes.join('+') : '-',
+      o && o.precipTypes.length ? (o.precipIntensity ? o.precipIntensity + ' ' : '') + o.precipTypes.join('+') : '-',
       o ? PRESSURE_LABEL[o.pressureSource] : '-',
+      pair(o ? o.visibilityBeforeM / 1000 : NaN, o ? o.visibilityAfterM / 1000 : NaN, 1),
+      o && (o.ceilingBeforeFt === o.ceilingBeforeFt || o.ceilingAfterFt === o.ceilingAfterFt) ? `${cig(o.ceilingBeforeFt)}→${cig(o.ceilingAfterFt)}` : '-',
     ];
   });
   const runwayLines: string[] = [];
@@ -413,6 +442,7 @@ export function eventsToTable(events: readonly PassageEvent[], opts: TableOption
     out.push(
       'T, Td: median of the hour before → 1–3 h after; Tmin 12h and freeze (first report ≤ 0 °C): in the 12 h after;',
       'precip "before": in the 6 h before; pressure: the pressure the p columns were measured on (stn<-alt: station pressure from the altimeter setting).',
+      'vis, ceiling: lower median of the hour before → 1–3 h after (ceiling: lowest BKN/OVC/VV layer; none: no ceiling).',
       '',
     );
   }

@@ -4,7 +4,7 @@
  * wind speed before, which pressure was used, and runway cross- and tailwind components. Pure: (series, event) →
  * fields; applied once per event by src/pipeline.ts after detection.
  */
-import { WX, type OperatorFields, type PassageEvent, type PrecipType, type PressureSource, type RunwayComponents, type StationSeries } from '../model/index.js';
+import { WX, type OperatorFields, type PassageEvent, type PrecipIntensity, type PrecipType, type PressureSource, type RunwayComponents, type StationSeries } from '../model/index.js';
 import { cleanColumn } from '../qc/qc.js';
 import { choosePressure } from '../detect/grid.js';
 import { lowerBound } from '../detect/features.js';
@@ -45,6 +45,19 @@ function medianIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number
   return median(xs);
 }
 
+/**
+ * Lower median of the clean values at indices [a, b) with time in [fromMs, toMs): the middle report, the lower of
+ * the two middle ones for an even count (a reported value, and the more cautious one for visibility and ceiling;
+ * common practice, no source). NaN ignored; +Infinity (no ceiling) is a value; NaN when none.
+ */
+function lowerMedianIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number, a: number, b: number): number {
+  const xs: number[] = [];
+  for (let i = a; i < b; i++) if (t[i]! >= fromMs && t[i]! < toMs && !Number.isNaN(v[i]!)) xs.push(v[i]!);
+  if (!xs.length) return NaN;
+  xs.sort((x, y) => x - y);
+  return xs[(xs.length - 1) >> 1]!;
+}
+
 /** Minimum of the clean values at indices [a, b) with time in (fromMs, toMs] (NaN when none). */
 function minIn(t: Float64Array, v: Float64Array, fromMs: number, toMs: number, a: number, b: number): number {
   let m = NaN;
@@ -59,6 +72,8 @@ interface StationColumns {
   Td: Float64Array;
   V: Float64Array;
   P: Float64Array;
+  vis: Float64Array;
+  cig: Float64Array;
   pressureSource: PressureSource;
   /** Times in non-decreasing order (as series are built), so a time window is one index range found by binary search. */
   sorted: boolean;
@@ -75,6 +90,8 @@ function stationColumns(s: StationSeries): StationColumns {
     Td: cleanColumn(s, 'dewpointC'),
     V: cleanColumn(s, 'windSpeedMs'),
     P: cleanColumn(s, 'precipMm'),
+    vis: cleanColumn(s, 'visibilityM'),
+    cig: cleanColumn(s, 'ceilingFt'),
     pressureSource: pressureSource(s),
     sorted,
   };
@@ -133,11 +150,23 @@ export function precipTypesOf(flags: number): PrecipType[] {
 }
 
 /**
+ * The strongest precipitation intensity in a WX flag set (WMO-No. 306 code table 4678: `+` heavy, no sign moderate,
+ * `-` light), null when the set names none. Heavy needs a precipitation flag, as `precipHeavy` does.
+ * @example precipIntensityOf(WX.RAIN | WX.PRECIP | WX.LIGHT | WX.MODERATE) // 'moderate'
+ */
+export function precipIntensityOf(flags: number): PrecipIntensity | null {
+  if (flags & WX.HEAVY && flags & WX.PRECIP) return 'heavy';
+  if (flags & WX.MODERATE) return 'moderate';
+  if (flags & WX.LIGHT) return 'light';
+  return null;
+}
+
+/**
  * The operator fields of one event at its station. Windows (common practice, no source): levels before = median
  * over the hour before `timeMs`; after = median 1–3 h after (past the sharpest change); minima over the 6 and 12 h
  * after; first freeze = first clean report ≤ 0 °C within 12 h after; precipitation before = any precipitation flag or
- * amount > 0 in the 6 h before; types and heavy = present weather within ±1 h; wind speed before = median over the
- * hour before. Runway components use the wind before/after of the event and the speeds here and in the event.
+ * amount > 0 in the 6 h before; types, heavy and intensity = present weather within ±1 h; wind speed before = median over the
+ * hour before; visibility and ceiling = lower median over the same windows as the temperature levels. Runway components use the wind before/after of the event and the speeds here and in the event.
  */
 export function operatorFields(s: StationSeries, e: PassageEvent, runways: readonly RunwayHeading[] = []): OperatorFields {
   return fieldsAt(stationColumns(s), e, runways);
@@ -147,7 +176,7 @@ export function operatorFields(s: StationSeries, e: PassageEvent, runways: reado
 function fieldsAt(c: StationColumns, e: PassageEvent, runways: readonly RunwayHeading[]): OperatorFields {
   const s = c.s;
   const t = s.timeMs;
-  const { T, Td, V, P } = c;
+  const { T, Td, V, P, vis, cig } = c;
   const t0 = e.timeMs;
   let freezeTimeMs = NaN;
   let before = false;
@@ -174,7 +203,12 @@ function fieldsAt(c: StationColumns, e: PassageEvent, runways: readonly RunwayHe
     precipBefore6h: before,
     precipTypes: precipTypesOf(near),
     precipHeavy: (near & WX.HEAVY) !== 0 && (near & WX.PRECIP) !== 0,
+    precipIntensity: precipIntensityOf(near),
     windSpeedBeforeMs,
+    visibilityBeforeM: lowerMedianIn(t, vis, t0 - HOUR_MS, t0, ba, bb),
+    visibilityAfterM: lowerMedianIn(t, vis, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1, aa, ab),
+    ceilingBeforeFt: lowerMedianIn(t, cig, t0 - HOUR_MS, t0, ba, bb),
+    ceilingAfterFt: lowerMedianIn(t, cig, t0 + HOUR_MS, t0 + 3 * HOUR_MS + 1, aa, ab),
     pressureSource: c.pressureSource,
   };
   if (runways.length) {

@@ -10,8 +10,8 @@ import { allocSeries, SERIES_FIELDS, type DuplicateNote, type DuplicateReason, t
 
 const INITIAL_CAPACITY = 32;
 const MAX_CHUNK_ROWS = 2048;
-/** Values per row in a station's record array (row-major, so one report writes two cache lines, not sixteen). */
-const STRIDE = 16;
+/** Values per row in a station's record array (row-major, so one report writes three cache lines, not eighteen). */
+const STRIDE = 18;
 // record slots
 const R_TIME = 0;
 const R_T = 1;
@@ -30,6 +30,8 @@ const R_TREND = 12;
 const R_KIND = 13;
 const R_LINE = 14;
 const R_FILE = 15;
+const R_VIS = 16;
+const R_CIG = 17;
 
 /** One station's rows column by column (exact length), in input order. */
 export interface Columns extends FieldColumns {
@@ -92,6 +94,8 @@ export class StationColumns {
     r[p + R_ALT] = o.altimeterHpa;
     r[p + R_PCP] = o.precipMm;
     r[p + R_PK] = o.peakWindMs;
+    r[p + R_VIS] = o.visibilityM;
+    r[p + R_CIG] = o.ceilingFt;
     // integer slots hold what the typed columns of the series would hold
     r[p + R_WX] = o.weather | 0;
     r[p + R_TREND] = (o.pressureTrend << 24) >> 24;
@@ -121,6 +125,8 @@ export class StationColumns {
     const altimeterHpa = new Float64Array(n);
     const precipMm = new Float64Array(n);
     const peakWindMs = new Float64Array(n);
+    const visibilityM = new Float64Array(n);
+    const ceilingFt = new Float64Array(n);
     const weather = new Int32Array(n);
     const pressureTrend = new Int8Array(n);
     const reportType = new Uint8Array(n);
@@ -142,6 +148,8 @@ export class StationColumns {
       altimeterHpa[i] = r[p + R_ALT]!;
       precipMm[i] = r[p + R_PCP]!;
       peakWindMs[i] = r[p + R_PK]!;
+      visibilityM[i] = r[p + R_VIS]!;
+      ceilingFt[i] = r[p + R_CIG]!;
       weather[i] = r[p + R_WX]!;
       pressureTrend[i] = r[p + R_TREND]!;
       const kind = r[p + R_KIND]!;
@@ -153,7 +161,7 @@ export class StationColumns {
     }
     return {
       length: n, timeMs, temperatureC, dewpointC, windDirDeg, windSpeedMs, gustMs, stationPressureHpa, seaLevelPressureHpa,
-      altimeterHpa, precipMm, peakWindMs, weather, pressureTrend, reportType, corrected, line, fileIndex,
+      altimeterHpa, precipMm, peakWindMs, visibilityM, ceilingFt, weather, pressureTrend, reportType, corrected, line, fileIndex,
       remarkRows: this.remarkRows, remarkLists: this.remarkLists,
     };
   }
@@ -345,10 +353,17 @@ function buildFromColumns(station: string, c: Columns, files: readonly string[],
 /** Rank of a report type (0 CSV, 1 METAR, 2 SPECI) when reports of one minute conflict: the routine METAR first, then a SPECI, then a CSV row. */
 const TYPE_RANK = [2, 0, 1];
 
-/** Values present in row i: the numeric fields that are not NaN, plus one for a present-weather report. */
+/**
+ * The fields whose presence and values choose which report of one time is kept: SERIES_FIELDS without visibility and
+ * ceiling. Those two are compared for identity (`sameValues`) and fill gaps (`fillGaps`) but choose nothing, so the
+ * values detection sees (temperature, dew point, wind, pressure) do not depend on whether a file carries them.
+ */
+const PREFERENCE_FIELDS = SERIES_FIELDS.filter((f) => f !== 'visibilityM' && f !== 'ceilingFt');
+
+/** Values present in row i: the PREFERENCE_FIELDS that are not NaN, plus one for a present-weather report. */
 function elementCount(c: Columns, i: number): number {
   let k = c.weather[i] !== 0 ? 1 : 0;
-  for (const f of SERIES_FIELDS) if (c[f][i] === c[f][i]) k++;
+  for (const f of PREFERENCE_FIELDS) if (c[f][i] === c[f][i]) k++;
   return k;
 }
 
@@ -356,7 +371,7 @@ function elementCount(c: Columns, i: number): number {
  * Which of two rows of one time is kept, decided from the rows alone, never from their order in the input:
  * negative when row i is preferred. In turn: a correction (COR) over a report that is not one (FMH-1 §12);
  * more values present (`elementCount`); the routine METAR over a SPECI over a CSV row; then, at the first of
- * SERIES_FIELDS where the two differ, a value over a missing one, else the smaller value; then fewer weather
+ * PREFERENCE_FIELDS where the two differ, a value over a missing one, else the smaller value; then fewer weather
  * bits, then the smaller pressure-trend code (the last three an arbitrary but fixed tie-break: common practice,
  * no source). Rows equal in all of these differ in nothing the series keeps but file and line: the earlier
  * file of the load, then the earlier line, is named as kept.
@@ -373,9 +388,9 @@ function preferRow(c: Columns, i: number, j: number): number {
   );
 }
 
-/** The values tie-break of preferRow: negative when row i is preferred. */
+/** The values tie-break of preferRow (over PREFERENCE_FIELDS): negative when row i is preferred. */
 function compareValues(c: Columns, i: number, j: number): number {
-  for (const f of SERIES_FIELDS) {
+  for (const f of PREFERENCE_FIELDS) {
     const x = c[f][i]!;
     const y = c[f][j]!;
     if (same(x, y)) continue;
@@ -433,6 +448,8 @@ function copyColumns(station: string, c: Columns, files: readonly string[], meta
   s.altimeterHpa = c.altimeterHpa;
   s.precipMm = c.precipMm;
   s.peakWindMs = c.peakWindMs;
+  s.visibilityM = c.visibilityM;
+  s.ceilingFt = c.ceilingFt;
   s.weather = new Uint16Array(n);
   s.weather.set(c.weather);
   s.pressureTrend = c.pressureTrend;
@@ -457,6 +474,8 @@ function writeRow(s: StationSeries, k: number, c: Columns, idx: number): void {
   s.altimeterHpa[k] = c.altimeterHpa[idx]!;
   s.precipMm[k] = c.precipMm[idx]!;
   s.peakWindMs[k] = c.peakWindMs[idx]!;
+  s.visibilityM[k] = c.visibilityM[idx]!;
+  s.ceilingFt[k] = c.ceilingFt[idx]!;
   s.pressureTrend[k] = c.pressureTrend[idx]!;
   s.reportType[k] = c.reportType[idx]!;
   s.line[k] = c.line[idx]!;
@@ -470,7 +489,7 @@ function fillGaps(s: StationSeries, k: number, c: Columns, idx: number): void {
   }
 }
 
-/** The ten series values of rows i and j are equal (NaN equals NaN). */
+/** The series values of rows i and j are equal (NaN equals NaN), visibility and ceiling included. */
 function sameValues(c: Columns, i: number, j: number): boolean {
   for (const f of SERIES_FIELDS) if (!same(c[f][i]!, c[f][j]!)) return false;
   return true;

@@ -2,7 +2,8 @@
  * The HTML report in a real browser: Debian's chromium (installed by .ci/run when missing), driven headless by
  * playwright-core with the system executable (no browser is downloaded). Opens a report of three demo stations
  * (invented data) and a page with a hostile station name, and checks: no console errors, every station section and
- * every passage marker present, the hostile name rendered as text (no script runs). Screenshots go to
+ * every passage marker present, the season and verification sections present exactly when asked for, the hostile
+ * name rendered as text (no script runs). Screenshots go to
  * test-output/browser/. Skipped (counted) when /usr/bin/chromium is absent.
  * Source of the expectation that markup in data must render as text: the HTML Living Standard's parsing of
  * character references (what escapeXml relies on) and OWASP's XSS prevention cheat sheet (rule 1, HTML-escape
@@ -20,6 +21,7 @@ import { loadGeography } from '../../src/report/html/geography.js';
 import { CAUTION } from '../../src/report/caution.js';
 import type { StationMeta } from '../../src/model/index.js';
 import { passage, smallSeries } from '../report/html/fixture.js';
+import { cli } from '../cli/io.js';
 
 const CHROMIUM = '/usr/bin/chromium';
 const run = existsSync(CHROMIUM) ? test : (name: string, fn: () => Promise<void>) => test.skip(name, fn);
@@ -65,12 +67,38 @@ run('demo report in chromium: no console errors, every station section and passa
     const markers = await page.locator('path.pass').count();
     assert.ok(markers >= inPeriod.length, `${markers} markers for ${inPeriod.length} passages`);
     assert.ok((await page.locator('svg.map path.land').count()) >= 1, 'maps carry land and coastlines');
+    // season and verification sections only when asked for
+    assert.is(await page.locator('#season, #verification').count(), 0);
     assert.equal(errors, []);
     await page.screenshot({ path: join(OUT, 'demo-report-top.png') });
     if (await page.locator('svg.map').count()) await page.locator('svg.map').first().screenshot({ path: join(OUT, 'demo-front-map.png') });
     await page.screenshot({ path: join(OUT, 'demo-report-full.png'), fullPage: true });
   });
   assert.ok(existsSync(join(OUT, 'demo-report-full.png')));
+});
+
+run('report --season --forecasts in chromium: both sections appear with bar charts, in the contents, no console errors', async () => {
+  mkdirSync(OUT, { recursive: true });
+  const path = join(OUT, 'demo-season-verify.html');
+  const r = await cli(['report', 'stations-demo', '--season', '--forecasts', 'stations-demo/forecasts/forecast_passages.csv', '--from', '2026-03-01', '--to', '2026-03-10', '--out', path, '--force', '--quiet']);
+  assert.is(r.code, 0, r.stderr);
+  await withPage(async (page, errors) => {
+    await page.goto(pathToFileURL(path).href);
+    for (const [id, title] of [['season', 'Season'], ['verification', 'Forecast verification']] as const) {
+      const sec = page.locator(`section#${id}`);
+      assert.is(await sec.count(), 1, id);
+      assert.ok(await sec.isVisible(), `${id} visible`);
+      assert.is((await sec.locator('h2').innerText()).trim(), title);
+      assert.ok((await sec.locator('svg.bars rect.bar').count()) > 0, `${id}: bars drawn`);
+      assert.is(await page.locator(`nav a[href="#${id}"]`).count(), 1, `${id} in the contents`);
+    }
+    // the bars have a size on screen (the style rules came with the sections)
+    const box = await page.locator('#season-months').boundingBox();
+    assert.ok(box && box.width > 300 && box.height > 80, JSON.stringify(box));
+    assert.equal(errors, []);
+    await page.locator('section#season').screenshot({ path: join(OUT, 'demo-season.png') });
+    await page.locator('section#verification').screenshot({ path: join(OUT, 'demo-verification.png') });
+  });
 });
 
 run('a hostile station name (<script>, quotes) renders as text in chromium and runs nothing', async () => {

@@ -88,7 +88,10 @@ test('ECCC Weather words give the WX flags of the matching METAR groups (code ta
     ['Thunderstorms', WX.THUNDER],
     ['Freezing Rain,Fog', WX.FREEZING | WX.RAIN | WX.PRECIP | WX.FOG],
     ['Heavy Snow', WX.HEAVY | WX.SNOW | WX.PRECIP],
-    ['Moderate Rain,Drizzle', WX.RAIN | WX.DRIZZLE | WX.PRECIP],
+    // intensity only where a word names it (Light, Moderate, Heavy); a bare word carries none
+    ['Moderate Rain,Drizzle', WX.RAIN | WX.DRIZZLE | WX.PRECIP | WX.MODERATE],
+    ['Light Snow', WX.SNOW | WX.PRECIP | WX.LIGHT],
+    ['Light Fog', WX.FOG],
     ['Ice Pellets', WX.ICE_PELLETS | WX.PRECIP],
     ['Mostly Cloudy', 0],
     ['NA', 0],

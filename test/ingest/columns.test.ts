@@ -56,7 +56,9 @@ realdataTest(test, 'nyc_2013_EWR_JFK_LGA_hourly.csv')('mapColumns() maps the nyc
   assert.is(mapping.seaLevelPressure!.unit, 'hPa');
   assert.is(mapping.precip!.unit, 'in');
   assert.is(mapping.relativeHumidity!.header, 'humid');
-  assert.equal(unmatched, ['year', 'month', 'day', 'hour', 'visib']); // `hour` is local time: not used
+  // nycflights13 R documentation: `visib` visibility in miles
+  assert.equal([mapping.visibility!.header, mapping.visibility!.unit], ['visib', 'mi']);
+  assert.equal(unmatched, ['year', 'month', 'day', 'hour']); // `hour` is local time: not used
 });
 
 realdataTest(test, 'colorado_2017_FNL_LMO_1V6_0CO.tsv')('mapColumns() maps the tab-separated Colorado header', () => {
@@ -97,7 +99,8 @@ test('matchHeader() knows generic names, bracketed and suffixed units', () => {
   assert.is(matchHeader('slp')!.field, 'seaLevelPressure');
   assert.is(matchHeader('station_pressure')!.field, 'stationPressure');
   assert.is(matchHeader('RH')!.field, 'relativeHumidity');
-  assert.is(matchHeader('visibility'), null);
+  assert.is(matchHeader('visibility')!.field, 'visibility');
+  assert.is(matchHeader('ozone'), null);
   const { mapping } = mapColumns(['time', 'Temperature (degF)', 'wspd_kt']);
   assert.equal([mapping.temperature!.unit, mapping.temperature!.unitSource], ['degF', 'header']);
   assert.is(mapping.windSpeed!.unit, 'kt');

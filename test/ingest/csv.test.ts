@@ -220,15 +220,18 @@ test('readCsvText() collects station positions from lat/lon columns', () => {
 
 // WMO-No. 306 FM 15 present-weather groups (code table 4678).
 test('weatherFlagsFromCodes() reads METAR weather groups', () => {
-  assert.is(weatherFlagsFromCodes('-RA BR'), WX.RAIN | WX.PRECIP);
+  assert.is(weatherFlagsFromCodes('-RA BR'), WX.RAIN | WX.PRECIP | WX.LIGHT); // "-" light (code table 4678)
   // WMO-No. 306 code table 4678: TS is the thunderstorm descriptor; CONVECTIVE is kept for lightning/CB reports
   assert.is(weatherFlagsFromCodes('+TSRA'), WX.THUNDER | WX.RAIN | WX.PRECIP | WX.HEAVY);
   assert.is(weatherFlagsFromCodes('TS'), WX.THUNDER);
-  assert.is(weatherFlagsFromCodes('FZDZ'), WX.FREEZING | WX.DRIZZLE | WX.PRECIP);
+  assert.is(weatherFlagsFromCodes('FZDZ'), WX.FREEZING | WX.DRIZZLE | WX.PRECIP | WX.MODERATE); // no sign: moderate
   assert.is(weatherFlagsFromCodes('VCSH'), WX.SHOWER);
   // FMH-1 §12.6.8 / WMO-No. 306: VC = in the vicinity, not at the station: no precipitation flag
   assert.is(weatherFlagsFromCodes('VCSHRA'), WX.SHOWER);
-  assert.is(weatherFlagsFromCodes('-RA:02 BR:1 |RA BR |'), WX.RAIN | WX.PRECIP); // NCEI LCD layout
+  assert.is(weatherFlagsFromCodes('-RA:02 BR:1 |RA BR |'), WX.RAIN | WX.PRECIP | WX.LIGHT); // NCEI LCD layout
+  // NCEI LCD (from memory): intensity is written only in the first section; `|RA` later has no sign to read
+  assert.is(weatherFlagsFromCodes('||RA'), WX.RAIN | WX.PRECIP);
+  assert.is(weatherFlagsFromCodes('+RA:02 BR:1 |RA |RA'), WX.RAIN | WX.PRECIP | WX.HEAVY);
   assert.is(weatherFlagsFromCodes('SQ'), WX.SQUALL);
   assert.is(weatherFlagsFromCodes('M'), 0);
 });

@@ -56,7 +56,7 @@ test('decodeMetar M1: NWS/FAA "Key to decode a METAR" card example', () => {
   assertClose(r.visibilityM, STATUTE_MILE_M, 1e-9, 0, '1SM');
   assert.equal(r.rvr, ['R11/P6000FT']);
   assert.equal(r.weatherCodes, ['-RA', 'BR']);
-  assert.is(r.weather, WX.RAIN | WX.PRECIP);
+  assert.is(r.weather, WX.RAIN | WX.PRECIP | WX.LIGHT);
   assert.equal(r.sky, [
     { cover: 'BKN', heightFt: 1500 },
     { cover: 'OVC', heightFt: 2500 },
@@ -190,7 +190,7 @@ test('decodeMetar M8: constructed WMO report (CB, NOSIG, Q group)', () => {
   assertClose(r.gustMs, kt(28), 1e-12);
   assert.is(r.windVarFromDeg, 200);
   assert.is(r.visibilityM, 6000);
-  assert.is(r.weather, WX.SHOWER | WX.RAIN | WX.PRECIP | WX.CONVECTIVE);
+  assert.is(r.weather, WX.SHOWER | WX.RAIN | WX.PRECIP | WX.CONVECTIVE | WX.LIGHT);
   assert.equal(r.sky, [
     { cover: 'FEW', heightFt: 1200 },
     { cover: 'SCT', heightFt: 2500, cloudType: 'CB' },
@@ -211,7 +211,7 @@ test('decodeMetar M9: constructed MPS + RVR + negative temperatures', () => {
   assertClose(r.windSpeedMs / KNOT_MS, 13.607, 5e-4); // check-values: 7 m/s = 13.607 kt
   assert.is(r.visibilityM, 800);
   assert.equal(r.rvr, ['R28R/1100U']);
-  assert.is(r.weather, WX.SNOW | WX.PRECIP);
+  assert.is(r.weather, WX.SNOW | WX.PRECIP | WX.LIGHT);
   assert.equal(r.sky.map((l) => l.heightFt), [400, 1500]);
   assert.is(r.temperatureC, -5);
   assert.is(r.dewpointC, -7);
@@ -353,9 +353,9 @@ test('decodeMetar rejects lines without station and time', () => {
 test('weatherFlags: WMO-No. 306 code table 4678 phenomena → WX bits', () => {
   const f = (g: string) => weatherFlags(g, 0, g.length);
   assert.is(f('+TSRAGR'), WX.HEAVY | WX.THUNDER | WX.RAIN | WX.HAIL | WX.PRECIP);
-  assert.is(f('-FZRA'), WX.FREEZING | WX.RAIN | WX.PRECIP);
-  assert.is(f('-SHSN'), WX.SHOWER | WX.SNOW | WX.PRECIP);
-  assert.is(f('-PLRA'), WX.ICE_PELLETS | WX.RAIN | WX.PRECIP);
+  assert.is(f('-FZRA'), WX.FREEZING | WX.RAIN | WX.PRECIP | WX.LIGHT);
+  assert.is(f('-SHSN'), WX.SHOWER | WX.SNOW | WX.PRECIP | WX.LIGHT);
+  assert.is(f('-PLRA'), WX.ICE_PELLETS | WX.RAIN | WX.PRECIP | WX.LIGHT);
   assert.is(f('FG'), WX.FOG);
   assert.is(f('BR'), 0); // mist: known, no flag
   assert.is(f('VCSH'), WX.SHOWER); // vicinity: descriptor only, no precipitation at the station

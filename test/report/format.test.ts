@@ -61,6 +61,7 @@ test('EVENT_COLUMNS equals the output contract, in order', () => {
       // operators' fields, appended (issue 13); documented with units in the README
       'temp_before_c', 'temp_after_c', 'dewpoint_before_c', 'dewpoint_after_c', 'temp_min_6h_c', 'temp_min_12h_c',
       'freeze_time', 'precip_before_6h', 'precip_types', 'precip_heavy', 'wind_speed_before_ms', 'pressure_source',
+      'visibility_before_m', 'visibility_after_m', 'ceiling_before_ft', 'ceiling_after_ft', 'precip_intensity',
     ],
   );
 });

@@ -6,7 +6,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { loadPaths } from '../../src/pipeline.js';
-import { operatorFields, parseRunways, precipTypesOf, pressureSource, windOnRunway, withOperatorFields } from '../../src/report/operatorFields.js';
+import { operatorFields, parseRunways, precipIntensityOf, precipTypesOf, pressureSource, windOnRunway, withOperatorFields } from '../../src/report/operatorFields.js';
 import { eventToRecord, eventsToCsv, EVENT_COLUMNS, recordColumns } from '../../src/report/format.js';
 import { allocSeries, WX } from '../../src/model/index.js';
 import { KNOT_MS } from '../../src/physics/constants.js';
@@ -48,12 +48,55 @@ real('KORD 2024-02-28 08:51Z `-PLRA` and 09:00Z `-RA`: rain and ice pellets near
   // WMO-No. 306 code table 4678: PL ice pellets, RA rain; `-` light
   assert.equal(f.precipTypes, ['rain', 'ice-pellets']);
   assert.is(f.precipHeavy, false);
+  // the reports within ±1 h: 280835Z `-PLRA`, 280851Z `-PLRA`, 280900Z `-RA`, 280942Z none: all light
+  assert.is(f.precipIntensity, 'light');
 });
 
 real('KORD 2024-02-28 02:23Z `-TSRA` with hail in the remarks window: thunder reported near the squall line', () => {
   const f = operatorFields(kord(), sampleEvent({ station: 'KORD', timeMs: Date.UTC(2024, 1, 28, 2, 10) }));
   assert.ok(f.precipTypes.includes('thunder'), f.precipTypes.join(','));
   assert.ok(f.precipTypes.includes('rain'), f.precipTypes.join(','));
+  // 280133Z `-TSRA` ... 280208Z `TSRA` (no sign: moderate, WMO-No. 306 code table 4678): the strongest within ±1 h
+  assert.is(f.precipIntensity, 'moderate');
+});
+
+test('precipIntensityOf(): the strongest intensity; heavy only with precipitation, as precip_heavy', () => {
+  // WMO-No. 306 code table 4678: `-` light, no sign moderate, `+` heavy
+  assert.is(precipIntensityOf(WX.RAIN | WX.PRECIP | WX.LIGHT), 'light');
+  assert.is(precipIntensityOf(WX.RAIN | WX.PRECIP | WX.LIGHT | WX.MODERATE), 'moderate');
+  assert.is(precipIntensityOf(WX.RAIN | WX.PRECIP | WX.LIGHT | WX.HEAVY), 'heavy');
+  // constructed: +FC (tornado) without precipitation is not heavy precipitation
+  assert.is(precipIntensityOf(WX.HEAVY), null);
+  assert.is(precipIntensityOf(WX.THUNDER), null);
+  // constructed: precipitation from an LCD section without a sign: intensity unknown
+  assert.is(precipIntensityOf(WX.RAIN | WX.PRECIP), null);
+});
+
+real('KORD 2024-02-28 visibility and ceiling before and after: the squall line at 02:00Z and the cold front at 05:00Z', () => {
+  const s = kord();
+  const MILE_M = 1609.344; // NIST SP 811 App. B.8
+  // hour before 02:00Z: 280109Z 10SM BKN065, 280133Z 9SM BKN055, 280151Z 4SM BKN050, 280159Z 2SM BKN040 → lower
+  // median 4 SM, 5000 ft (FMH-1 §12.6.9: ceiling = lowest BKN/OVC layer; heights in hundreds of feet)
+  let f = operatorFields(s, sampleEvent({ station: 'KORD', timeMs: Date.UTC(2024, 1, 28, 2, 0) }));
+  near(f.visibilityBeforeM, 4 * MILE_M, 1e-6, 'visibility before');
+  assert.is(f.ceilingBeforeFt, 5000);
+  // 03:00-05:00Z: 280351Z and 280451Z `10SM FEW050`: no ceiling
+  near(f.visibilityAfterM, 10 * MILE_M, 1e-6, 'visibility after');
+  assert.is(f.ceilingAfterFt, Infinity);
+  assert.is(eventToRecord({ ...sampleEvent({ station: 'KORD' }), operator: f }).ceiling_after_ft, 'none');
+  // after 05:00Z: 280651Z `SCT032 BKN250`, 280751Z `SCT035 BKN130 BKN250` → lower median 13000 ft
+  f = operatorFields(s, sampleEvent({ station: 'KORD', timeMs: Date.UTC(2024, 1, 28, 5, 0) }));
+  assert.is(f.ceilingBeforeFt, Infinity);
+  assert.is(f.ceilingAfterFt, 13000);
+});
+
+test('visibility and ceiling: no reports in a window give NaN (empty), written null in JSON', () => {
+  const s = allocSeries('XTST', 0);
+  const f = operatorFields(s, sampleEvent({ station: 'XTST', timeMs: Date.UTC(2026, 2, 4, 12) }));
+  assert.ok(Number.isNaN(f.visibilityBeforeM) && Number.isNaN(f.ceilingAfterFt));
+  const r = eventToRecord({ ...sampleEvent({ station: 'XTST' }), operator: f });
+  assert.is(r.visibility_before_m, null);
+  assert.is(r.ceiling_after_ft, null);
 });
 
 real('which pressure: KORD (altimeter setting A2922 with elevation 204.8 m) vs MSP October 2010 (sea-level pressure only)', () => {
@@ -134,8 +177,9 @@ test('writers: new columns appended after the contract columns; --wind-unit and 
     windSpeedAfterMs: 10 * KNOT_MS,
     operator: {
       tempBeforeC: 5, tempAfterC: -1, dewpointBeforeC: 3, dewpointAfterC: -6, tempMin6hC: -2, tempMin12hC: -4.04,
-      freezeTimeMs: Date.UTC(2026, 2, 4, 15), precipBefore6h: true, precipTypes: ['rain', 'snow'], precipHeavy: false,
+      freezeTimeMs: Date.UTC(2026, 2, 4, 15), precipBefore6h: true, precipTypes: ['rain', 'snow'], precipHeavy: false, precipIntensity: 'moderate',
       windSpeedBeforeMs: 5 * KNOT_MS, pressureSource: 'station-from-altimeter',
+      visibilityBeforeM: 16093.44, visibilityAfterM: 804.672, ceilingBeforeFt: Infinity, ceilingAfterFt: 800,
       runways: [{ runway: '04', headingDeg: 40, crosswindBeforeMs: 1, tailwindBeforeMs: -2, crosswindAfterMs: 3 * KNOT_MS, tailwindAfterMs: -4 }],
     },
   });
@@ -157,7 +201,10 @@ test('writers: new columns appended after the contract columns; --wind-unit and 
   assert.is(json.wind_speed_before_kt, undefined);
   const csv = eventsToCsv([e], { windUnit: 'kt' }).split('\n');
   assert.is(csv[0], cols.join(','));
-  assert.match(csv[1]!, /,rain; snow,false,2\.6,station-from-altimeter,5,10,/);
+  // 10 SM and 1/2 SM (FMH-1 §12.6.6; 1 mi = 1609.344 m, NIST SP 811): whole metres; no ceiling is written `none`
+  assert.match(csv[1]!, /,rain; snow,false,2\.6,station-from-altimeter,16093,805,none,800,moderate,5,10,/);
+  assert.is(json.ceiling_before_ft, 'none');
+  assert.is(json.ceiling_after_ft, 800);
 });
 
 test.run();

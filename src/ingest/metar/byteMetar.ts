@@ -18,6 +18,8 @@ import {
   isWord,
   k3,
   kw,
+  lowerCeiling,
+  noCeiling,
   peakWind,
   pressureGroup,
   signedTenths,
@@ -278,9 +280,16 @@ export function decodeBytesInto(r: MetarReport, u: Uint8Array, start: number, en
         return false;
       }
       if (len === 6) {
-        // FEWhhh SCThhh BKNhhh OVChhh: nothing to keep in lite mode
+        // FEWhhh SCThhh BKNhhh OVChhh: only the ceiling (BKN, OVC) is kept in lite mode
         const k = k3(u, a);
-        if ((k === K_FEW || k === K_SCT || k === K_BKN || k === K_OVC) && dg(u, a + 3) + dg(u, a + 4) + dg(u, a + 5) >= 0) continue;
+        const d3 = dg(u, a + 3);
+        const d4 = dg(u, a + 4);
+        const d5 = dg(u, a + 5);
+        if ((k === K_FEW || k === K_SCT || k === K_BKN || k === K_OVC) && d3 + d4 + d5 >= 0) {
+          if (k === K_BKN || k === K_OVC) lowerCeiling(r, (d3 * 100 + d4 * 10 + d5) * 100);
+          else noCeiling(r);
+          continue;
+        }
       } else if (len === 5 && c0 === 65) {
         const v = digits(u, a + 1, b);
         if (v >= 0) {
@@ -312,6 +321,7 @@ export function decodeBytesInto(r: MetarReport, u: Uint8Array, start: number, en
           if (isWord(u, a, b, 'CAVOK')) {
             r.cavok = true;
             r.visibilityM = 10000;
+            noCeiling(r);
             visSet = true;
             continue;
           }

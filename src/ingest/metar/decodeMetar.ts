@@ -7,7 +7,7 @@
 import { WX, type ParseIssue } from '../../model/index.js';
 import { reportTimeMs, type MonthRef } from './calendar.js';
 import { asciiBytes } from './ascii.js';
-import { asciiView, compassSuffix, dg, digits, isWord, k3, kw, pressureGroup, skyGroup, slashes, statuteMiles, tempGroup, windGroup } from './groups.js';
+import { asciiView, compassSuffix, dg, digits, isWord, k3, kw, noCeiling, pressureGroup, skyGroup, slashes, statuteMiles, tempGroup, windGroup } from './groups.js';
 import { decodeRemarks } from './remarks.js';
 import { STATUTE_MILE_M } from '../../physics/constants.js';
 import { weatherFlagsAt } from './weather.js';
@@ -329,6 +329,7 @@ export function decodeInto(
         if (isWord(u, a, b, 'CAVOK')) {
           r.cavok = true;
           r.visibilityM = 10000;
+          noCeiling(r);
           visSet = true;
           continue;
         }

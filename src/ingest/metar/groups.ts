@@ -184,8 +184,23 @@ export function tempGroup(u: Uint8Array, a: number, b: number, r: MetarReport): 
 }
 
 /**
+ * Lower the report's ceiling to a BKN, OVC or VV layer at `heightFt`: the ceiling is the lowest such layer
+ * (FMH-1 §12.6.9). A layer of unknown height (`BKN///`) makes a report that so far had no ceiling unknown (NaN).
+ */
+export function lowerCeiling(r: MetarReport, heightFt: number): void {
+  if (heightFt !== heightFt) {
+    if (r.ceilingFt === Infinity) r.ceilingFt = NaN;
+  } else if (!(r.ceilingFt <= heightFt)) r.ceilingFt = heightFt;
+}
+
+/** A sky group without a ceiling (CLR SKC NCD NSC CAVOK, FEW, SCT): no ceiling (+Infinity) unless a layer set one. */
+export function noCeiling(r: MetarReport): void {
+  if (r.ceilingFt !== r.ceilingFt) r.ceilingFt = Infinity;
+}
+
+/**
  * Sky group: `FEW|SCT|BKN|OVC hhh [CB|TCU|///]`, `VVhhh`, `//////`, CLR SKC NSC NCD (FM 15 §15.9;
- * FMH-1 §12.6.9). CB adds WX.CONVECTIVE; `lite` keeps no layer list.
+ * FMH-1 §12.6.9). CB adds WX.CONVECTIVE; BKN, OVC and VV lower the ceiling (`lowerCeiling`); `lite` keeps no layer list.
  */
 export function skyGroup(u: Uint8Array, a: number, b: number, r: MetarReport, lite: boolean): boolean {
   const len = b - a;
@@ -198,6 +213,7 @@ export function skyGroup(u: Uint8Array, a: number, b: number, r: MetarReport, li
     else if (k === K_NSC) cover = 'NSC';
     else if (k === K_NCD) cover = 'NCD';
     else return false;
+    noCeiling(r);
     if (!lite) r.sky.push({ cover, heightFt: NaN });
     return true;
   }
@@ -229,6 +245,8 @@ export function skyGroup(u: Uint8Array, a: number, b: number, r: MetarReport, li
     else if (slashes(u, i, b)) type = '///';
     else return false;
   }
+  if (cover === 'BKN' || cover === 'OVC' || cover === 'VV') lowerCeiling(r, h);
+  else if (cover !== '///') noCeiling(r);
   if (!lite) r.sky.push(type === undefined ? { cover, heightFt: h } : { cover, heightFt: h, cloudType: type });
   return true;
 }

@@ -37,6 +37,13 @@ export interface MetarReport {
   /** WX bit flags from present weather, CB clouds and lightning remarks. */
   weather: number;
   sky: SkyLayer[];
+  /**
+   * Ceiling, ft: the lowest layer reported BKN or OVC, or the vertical visibility VV (FMH-1 §12.6.9 ceiling; FM 15
+   * cloud group NsNsNshshshs, heights in hundreds of feet); +Infinity when sky groups name no such layer (CLR, SKC,
+   * NCD, NSC, CAVOK, FEW/SCT only: no ceiling); NaN when there is no sky group or the layer's height is `///`.
+   * Kept in lite mode too.
+   */
+  ceilingFt: number;
   /** Temperature, °C: the tenths from the `T` remark group when present, else the body group. */
   temperatureC: number;
   dewpointC: number;
@@ -87,7 +94,7 @@ export function newMetarReport(): MetarReport {
   return {
     type: 'METAR', station: '', timeMs: NaN, auto: false, corrected: false, nil: false,
     windDirDeg: NaN, windSpeedMs: NaN, gustMs: NaN, windVariable: false, windVarFromDeg: NaN, windVarToDeg: NaN,
-    visibilityM: NaN, weatherCodes: [], weather: 0, sky: [], temperatureC: NaN, dewpointC: NaN, tempFromRemarks: false,
+    visibilityM: NaN, weatherCodes: [], weather: 0, sky: [], ceilingFt: NaN, temperatureC: NaN, dewpointC: NaN, tempFromRemarks: false,
     qnhHpa: NaN, altimeterHpa: NaN, seaLevelPressureHpa: NaN, pressureTendency3hHpa: NaN, pressureTendencyCode: -1,
     pressureTrend: 0, precip1hMm: NaN, peakWindMs: NaN, peakWindDirDeg: NaN, peakWindTimeMs: NaN, remarks: [],
     stationType: '', maintenance: false, unknownGroups: [], precipTrace: false, precip3or6hMm: NaN, precip24hMm: NaN,
@@ -99,7 +106,7 @@ export function newMetarReport(): MetarReport {
 export function resetReport(r: MetarReport): void {
   r.type = 'METAR'; r.station = ''; r.timeMs = NaN; r.auto = false; r.corrected = false; r.nil = false;
   r.windDirDeg = NaN; r.windSpeedMs = NaN; r.gustMs = NaN; r.windVariable = false; r.windVarFromDeg = NaN; r.windVarToDeg = NaN;
-  r.visibilityM = NaN; if (r.weatherCodes.length) r.weatherCodes.length = 0; r.weather = 0; if (r.sky.length) r.sky.length = 0; r.temperatureC = NaN; r.dewpointC = NaN;
+  r.visibilityM = NaN; if (r.weatherCodes.length) r.weatherCodes.length = 0; r.weather = 0; if (r.sky.length) r.sky.length = 0; r.ceilingFt = NaN; r.temperatureC = NaN; r.dewpointC = NaN;
   r.tempFromRemarks = false; r.qnhHpa = NaN; r.altimeterHpa = NaN; r.seaLevelPressureHpa = NaN; r.pressureTendency3hHpa = NaN;
   r.pressureTendencyCode = -1; r.pressureTrend = 0; r.precip1hMm = NaN; r.peakWindMs = NaN; r.peakWindDirDeg = NaN;
   r.peakWindTimeMs = NaN; if (r.remarks.length) r.remarks = []; r.stationType = ''; r.maintenance = false;

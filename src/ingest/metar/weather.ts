@@ -32,7 +32,8 @@ const VICINITY_KEEP = WX.SHOWER | WX.THUNDER;
 
 /**
  * WX flags of one present-weather group in u[a, b) (WMO-No. 306, FM 15, code table 4678; FMH-1 §12.6.8),
- * or -1 when it is not a weather group. `+` adds WX.HEAVY; `VC` (in the vicinity) keeps only SH/TS flags;
+ * or -1 when it is not a weather group. `+` adds WX.HEAVY; a precipitation group adds WX.LIGHT with `-` and
+ * WX.MODERATE without a sign (no sign is moderate intensity; none for BL/DR snow); `VC` (in the vicinity) keeps only SH/TS flags;
  * `//` (not observable) and `NSW` give 0.
  */
 export function weatherFlagsAt(u: Uint8Array, a: number, b: number): number {
@@ -55,12 +56,18 @@ export function weatherFlagsAt(u: Uint8Array, a: number, b: number): number {
     i += 2;
     if (i === b) return -1;
   }
+  // BL (blowing) and DR (low drifting) snow or sand is lifted, not falling: no intensity (FMH-1 §12.6.8)
+  const lifted = (u[i] === 66 && u[i + 1] === 76) || (u[i] === 68 && u[i + 1] === 82);
   for (; i < b; i += 2) {
     const f = pairFlags(u, i);
     if (f < 0) return -1;
     flags |= f;
   }
-  if (vicinity) flags &= VICINITY_KEEP;
+  if (vicinity) return flags & VICINITY_KEEP;
+  if (flags & WX.PRECIP && !lifted) {
+    if (c0 === 45) flags |= WX.LIGHT;
+    else if (c0 !== 43) flags |= WX.MODERATE;
+  }
   return flags;
 }
 
@@ -75,7 +82,7 @@ function pairFlags(u: Uint8Array, i: number): number {
 /**
  * WX flags of one present-weather group in the text `s[a, b)` (see weatherFlagsAt), or -1 when it is not a
  * weather group.
- * @example weatherFlags('-SHRA', 0, 5) // WX.SHOWER | WX.RAIN | WX.PRECIP
+ * @example weatherFlags('-SHRA', 0, 5) // WX.SHOWER | WX.RAIN | WX.PRECIP | WX.LIGHT
  */
 export function weatherFlags(s: string, a: number, b: number): number {
   return weatherFlagsAt(asciiBytes(s), a, b);

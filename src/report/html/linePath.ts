@@ -1,10 +1,12 @@
 /**
- * SVG path data from coordinates, built as strings: numbers rounded to one decimal (a tenth of a pixel),
- * gaps as a new `M` (moveto) the way d3-shape's `line.defined` splits a line (written here; no d3 package).
+ * SVG path data from coordinates: lines and dots through d3-shape's `line` generator (curveLinear, `defined` for the
+ * gaps, numbers rounded to one decimal by `digits(1)`, a tenth of a pixel), and the crosses of flagged values.
  */
+import { line } from 'd3-shape';
 
 /**
- * A pixel coordinate as short text: rounded half up to one decimal, no trailing `.0`, never `-0`.
+ * A pixel coordinate as short text: rounded half up to one decimal, no trailing `.0`, never `-0` (the rounding
+ * d3-path applies with `digits(1)`).
  * @example px(12.345) // '12.3'
  * @example px(-0.04) // '0'
  */
@@ -18,50 +20,68 @@ export interface LinePathOptions {
   defined?: (i: number) => boolean;
   /** Start a new subpath at point i even when i − 1 was drawn (a time gap in the reports). */
   breakBefore?: (i: number) => boolean;
-  /** Draw a point with no drawn neighbour as a zero-length segment (`h0`) so that round caps show it. Default true. */
+  /**
+   * Draw a point with no drawn neighbour (d3-shape writes it `M x,y Z`, a zero-length subpath that round caps show as
+   * a dot). Default true; false leaves such points out.
+   */
   isolatedDots?: boolean;
 }
 
+/** Index −1 separates subpaths in the data handed to the generator. */
+const BREAK = -1;
+
+/** d3-shape line over point indices into xs, ys; BREAK leaves a gap. */
+function indexLine(xs: ArrayLike<number>, ys: ArrayLike<number>) {
+  return line<number>()
+    .x((i) => xs[i]!)
+    .y((i) => ys[i]!)
+    .defined((i) => i !== BREAK)
+    .digits(1);
+}
+
 /**
- * Path data `M x,y L x,y …` through the defined points; each run of defined points is a subpath, so a missing
- * value or a break leaves a gap (a new `M`). Coordinates go through {@link px}.
- * Empty string when no point is defined.
- * @example linePath([0, 10, 20, 30], [5, NaN, 7, 8]) // 'M0,5h0M20,7L30,8'
+ * Path data `M x,y L x,y …` through the defined points (d3-shape `line`); each run of defined points is a subpath,
+ * so a missing value or a break leaves a gap (a new `M`); a lone point is `M x,y Z`. Empty string when no point is
+ * defined.
+ * @example linePath([0, 10, 20, 30], [5, NaN, 7, 8]) // 'M0,5ZM20,7L30,8'
  */
 export function linePath(xs: ArrayLike<number>, ys: ArrayLike<number>, opts: LinePathOptions = {}): string {
   const n = Math.min(xs.length, ys.length);
   const defined = opts.defined ?? ((i: number) => Number.isFinite(xs[i]!) && Number.isFinite(ys[i]!));
   const dots = opts.isolatedDots ?? true;
-  let out = '';
-  let run = 0; // points in the current subpath
+  // runs of drawn points, BREAK between runs
+  const data: number[] = [];
+  let run: number[] = [];
+  const close = () => {
+    if (run.length > 1 || (run.length === 1 && dots)) {
+      if (data.length) data.push(BREAK);
+      data.push(...run);
+    }
+    run = [];
+  };
   for (let i = 0; i < n; i++) {
     if (!defined(i)) {
-      if (run === 1 && dots) out += 'h0';
-      run = 0;
+      close();
       continue;
     }
-    if (run > 0 && opts.breakBefore?.(i)) {
-      if (run === 1 && dots) out += 'h0';
-      run = 0;
-    }
-    out += (run === 0 ? 'M' : 'L') + px(xs[i]!) + ',' + px(ys[i]!);
-    run++;
+    if (run.length > 0 && opts.breakBefore?.(i)) close();
+    run.push(i);
   }
-  if (run === 1 && dots) out += 'h0';
-  return out;
+  close();
+  return indexLine(xs, ys)(data) ?? '';
 }
 
 /**
- * Path data of dots: `M x,y h0` per defined point (zero-length segments; with `stroke-linecap: round` each
- * shows as a dot of the stroke width). Far shorter than one `<circle>` per point.
- * @example dotsPath([1, 2], [3, NaN]) // 'M1,3h0'
+ * Path data of dots: `M x,y Z` per defined point (zero-length subpaths from d3-shape `line`; with
+ * `stroke-linecap: round` each shows as a dot of the stroke width). Far shorter than one `<circle>` per point.
+ * @example dotsPath([1, 2], [3, NaN]) // 'M1,3Z'
  */
 export function dotsPath(xs: ArrayLike<number>, ys: ArrayLike<number>, defined?: (i: number) => boolean): string {
   const n = Math.min(xs.length, ys.length);
   const ok = defined ?? ((i: number) => Number.isFinite(xs[i]!) && Number.isFinite(ys[i]!));
-  let out = '';
-  for (let i = 0; i < n; i++) if (ok(i)) out += 'M' + px(xs[i]!) + ',' + px(ys[i]!) + 'h0';
-  return out;
+  const data: number[] = [];
+  for (let i = 0; i < n; i++) if (ok(i)) data.push(i, BREAK);
+  return indexLine(xs, ys)(data) ?? '';
 }
 
 /**

@@ -15,6 +15,7 @@ import { panelSvg } from './panelSvg.js';
 import { utcMinute } from './timeAxis.js';
 import { DateTime } from 'luxon';
 import { legendSvg } from './legendSvg.js';
+import { barCss } from './barChartSvg.js';
 
 const HOUR = 3_600_000;
 
@@ -51,6 +52,20 @@ export interface ReportInput {
   localZone?: string;
   /** Land, coastlines and borders for the front maps (geography.ts loadGeography); plain maps when absent. */
   geography?: Geography;
+  /** Extra sections (season, verification), in order; none by default. */
+  sections?: readonly ReportSection[];
+}
+
+/**
+ * A section built elsewhere (season charts, verification charts: src/season/seasonHtml.ts, src/verify/verifyHtml.ts)
+ * and placed after the fronts, before the stations; listed in the contents.
+ */
+export interface ReportSection {
+  /** Element id (unique in the page). */
+  id: string;
+  title: string;
+  /** The section's body: HTML with inline SVG, escaped by its builder. */
+  html: string;
 }
 
 export interface PanelWindow {
@@ -278,14 +293,17 @@ export function reportHtml(r: ReportInput): string {
   });
 
   const caution = `<p class="caution" role="note">${escapeXml(r.caution)}</p>`;
-  const nav = r.series.length > 1 ? `<nav aria-label="Stations"><h2>Contents</h2><ul>${tracks.length ? '<li><a href="#network">Fronts across the network</a></li>' : ''}${r.series.map((s, i) => `<li><a href="#st-${i}">${escapeXml(s.station)}</a></li>`).join('')}</ul></nav>` : '';
+  const sections = r.sections ?? [];
+  const sectionLinks = sections.map((x) => `<li><a href="#${escapeXml(x.id)}">${escapeXml(x.title)}</a></li>`).join('');
+  const sectionsHtml = sections.map((x) => `<section id="${escapeXml(x.id)}"><h2>${escapeXml(x.title)}</h2>${x.html}</section>`).join('\n');
+  const nav = r.series.length > 1 || sections.length ? `<nav aria-label="Stations"><h2>Contents</h2><ul>${tracks.length ? '<li><a href="#network">Fronts across the network</a></li>' : ''}${sectionLinks}${r.series.map((s, i) => `<li><a href="#st-${i}">${escapeXml(s.station)}</a></li>`).join('')}</ul></nav>` : '';
   const layout = single
     ? 'The period is short, so each station gets one chart covering all of it.'
     : `Each station gets an overview of its temperature over the whole period and one chart per passage (±${hours} h; passages within 6 h share a chart; at most ${maxPanels} charts per station).`;
 
   return (
     '<!DOCTYPE html>\n<html lang="en">\n<head>\n<meta charset="utf-8">\n<meta name="viewport" content="width=device-width, initial-scale=1">\n' +
-    `<title>${escapeXml(title)}</title>\n<style>\n${reportCss()}\n</style>\n</head>\n<body>\n<header>\n` +
+    `<title>${escapeXml(title)}</title>\n<style>\n${reportCss()}${sections.length ? '\n' + barCss() : ''}\n</style>\n</head>\n<body>\n<header>\n` +
     `<h1>Frontal passages: ${escapeXml(period)}</h1>\n${caution}\n` +
     (r.note ? `<p class="muted">${escapeXml(r.note)}</p>\n` : '') +
     '</header>\n<main>\n<section id="summary"><h2>What was read and found</h2>' +
@@ -296,6 +314,7 @@ export function reportHtml(r: ReportInput): string {
     `<h3>How to read the charts</h3><figure>${legendSvg()}</figure></section>\n` +
     nav +
     frontsSection(tracks, r.stations, r.geography) +
+    (sections.length ? '\n' + sectionsHtml : '') +
     '\n' +
     stationsHtml +
     `\n</main>\n<footer>\n${caution}\n</footer>\n</body>\n</html>\n`

@@ -116,7 +116,7 @@ test('decodeBytesInto() M8: WMO report with variable wind, metres, showers, CB a
   assert.is(r.windVarToDeg, 280);
   assert.is(r.visibilityM, 6000);
   // WMO-No. 306 code table 4678: -SHRA light rain showers; CB marks convection
-  assert.is(r.weather, WX.SHOWER | WX.RAIN | WX.PRECIP | WX.CONVECTIVE);
+  assert.is(r.weather, WX.SHOWER | WX.RAIN | WX.PRECIP | WX.CONVECTIVE | WX.LIGHT);
   assert.is(r.temperatureC, 12);
   assert.is(r.dewpointC, 8);
   assert.is(r.qnhHpa, 1003);
@@ -131,7 +131,7 @@ test('decodeBytesInto() M9 and M10: m/s wind, negative temperatures, calm and CA
   // check-values M9 (constructed): 330° 7 m/s, 800 m, -SN, M05/M07, Q1018
   assert.is(r9.windSpeedMs, 7);
   assert.is(r9.visibilityM, 800);
-  assert.is(r9.weather, WX.SNOW | WX.PRECIP);
+  assert.is(r9.weather, WX.SNOW | WX.PRECIP | WX.LIGHT); // -SN: light (code table 4678)
   assert.equal([r9.temperatureC, r9.dewpointC], [-5, -7]);
   assert.is(r9.qnhHpa, 1018);
   const r10 = fast(M10)!;

@@ -12,8 +12,8 @@ import { WX } from '../../../src/ingest/types.js';
 const f = (g: string) => weatherFlagsAt(asciiBytes(g), 0, g.length);
 
 test('weatherFlagsAt() reads the M1 groups -RA and BR (check-values M1: light rain and mist)', () => {
-  // WMO-No. 306 code table 4678: "-" light, RA rain; light intensity adds no flag
-  assert.is(f('-RA'), WX.RAIN | WX.PRECIP);
+  // WMO-No. 306 code table 4678: "-" light, RA rain; light intensity adds WX.LIGHT
+  assert.is(f('-RA'), WX.RAIN | WX.PRECIP | WX.LIGHT);
   // WMO-No. 306 code table 4678: BR mist is an obscuration, known but without a flag
   assert.is(f('BR'), 0);
 });
@@ -22,12 +22,12 @@ test('weatherFlagsAt() adds WX.HEAVY for "+" and reads several phenomena in one 
   // WMO-No. 306 code table 4678: "+" heavy; +SHRA heavy rain showers (check-values 6.2 example)
   assert.is(f('+SHRA'), WX.HEAVY | WX.SHOWER | WX.RAIN | WX.PRECIP);
   // WMO-No. 306 code table 4678: phenomena may be combined, RASN rain and snow
-  assert.is(f('RASN'), WX.RAIN | WX.SNOW | WX.PRECIP);
+  assert.is(f('RASN'), WX.RAIN | WX.SNOW | WX.PRECIP | WX.MODERATE);
   // WMO-No. 306 code table 4678: DZ drizzle, SG snow grains, GS small hail, UP unknown precipitation (automatic)
-  assert.is(f('-DZ'), WX.DRIZZLE | WX.PRECIP);
-  assert.is(f('SG'), WX.SNOW | WX.PRECIP);
-  assert.is(f('GS'), WX.HAIL | WX.PRECIP);
-  assert.is(f('UP'), WX.PRECIP);
+  assert.is(f('-DZ'), WX.DRIZZLE | WX.PRECIP | WX.LIGHT);
+  assert.is(f('SG'), WX.SNOW | WX.PRECIP | WX.MODERATE);
+  assert.is(f('GS'), WX.HAIL | WX.PRECIP | WX.MODERATE);
+  assert.is(f('UP'), WX.PRECIP | WX.MODERATE);
 });
 
 test('weatherFlagsAt() knows +FC (tornado or waterspout) and the obscurations without flags', () => {
@@ -79,15 +79,33 @@ test('weatherFlagsAt(u, a, b) reads only u[a, b) of a longer line', () => {
   const u = asciiBytes(line);
   const a = line.indexOf('-TSRA');
   // constructed: expected by construction
-  assert.is(weatherFlagsAt(u, a, a + 5), WX.THUNDER | WX.RAIN | WX.PRECIP);
+  assert.is(weatherFlagsAt(u, a, a + 5), WX.THUNDER | WX.RAIN | WX.PRECIP | WX.LIGHT);
   // constructed: the station id is no weather group
   assert.is(weatherFlagsAt(u, 0, 4), -1);
 });
 
 test('weatherFlags(s, a, b) reads a text range the same way', () => {
   // constructed: same answer as the byte reader (its @example: -SHRA)
-  assert.is(weatherFlags('-SHRA', 0, 5), WX.SHOWER | WX.RAIN | WX.PRECIP);
-  assert.is(weatherFlags('xx FZDZ yy', 3, 7), WX.FREEZING | WX.DRIZZLE | WX.PRECIP);
+  assert.is(weatherFlags('-SHRA', 0, 5), WX.SHOWER | WX.RAIN | WX.PRECIP | WX.LIGHT);
+  assert.is(weatherFlags('xx FZDZ yy', 3, 7), WX.FREEZING | WX.DRIZZLE | WX.PRECIP | WX.MODERATE);
+});
+
+test('weatherFlagsAt() intensity of precipitation groups: "-" light, no sign moderate, "+" heavy (WMO-No. 306 code table 4678)', () => {
+  const intensity = (g: string) => f(g) & (WX.LIGHT | WX.MODERATE | WX.HEAVY);
+  assert.is(intensity('-RA'), WX.LIGHT);
+  assert.is(intensity('RA'), WX.MODERATE);
+  assert.is(intensity('+RA'), WX.HEAVY);
+  assert.is(intensity('-TSRA'), WX.LIGHT);
+  assert.is(intensity('TSRA'), WX.MODERATE);
+  assert.is(intensity('+SHSN'), WX.HEAVY);
+  // no precipitation, no intensity: thunder alone, fog, mist
+  assert.is(intensity('TS'), 0);
+  assert.is(intensity('FG'), 0);
+  assert.is(intensity('BR'), 0);
+  // FMH-1 §12.6.8: VC (in the vicinity) and BL/DR (snow lifted by the wind) are not precipitation falling at the station
+  assert.is(intensity('VCSH'), 0);
+  assert.is(intensity('BLSN'), 0);
+  assert.is(intensity('DRSN'), 0);
 });
 
 test.run();

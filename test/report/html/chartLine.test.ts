@@ -11,7 +11,7 @@ const id = (v: number) => v;
 
 test('chartLine: a flagged value is not on the line (gap) and is drawn as a cross at its value', () => {
   const r = chartLine({ timeMs: [0, 1, 2, 3], values: [1, 99, 3, 4], qc: [0, 1, 0, 0], from: 0, to: 4, x: (t) => t * 10, y: id, gapMs: 5 });
-  assert.is(r.path, 'M0,1h0M20,3L30,4');
+  assert.is(r.path, 'M0,1ZM20,3L30,4');
   assert.is(r.flagged, 'M7,96l6,6m0,-6l-6,6');
   assert.is(r.flaggedCount, 1);
 });
@@ -28,7 +28,7 @@ test('chartLine: a step longer than gapMs breaks the line', () => {
 
 test('chartLine dots: one dot per value that passed QC', () => {
   const r = chartLine({ timeMs: [0, 1, 2], values: [90, NaN, 180], from: 0, to: 3, x: id, y: id, gapMs: 5, dots: true });
-  assert.is(r.path, 'M0,90h0M2,180h0');
+  assert.is(r.path, 'M0,90ZM2,180Z');
 });
 
 test('m4Indices keeps first, lowest, highest and last per pixel column, and missing values', () => {

@@ -1,7 +1,8 @@
 /**
- * Path data builders. Path grammar (M moveto, L lineto, h relative horizontal lineto, m/l relative) per
- * W3C SVG 1.1 §8.3; gaps as a new subpath (M) the way d3-shape's line.defined splits a line (d3-shape
- * README, "line.defined", from memory).
+ * Path data builders. Path grammar (M moveto, L lineto, Z closepath, m/l relative) per W3C SVG 1.1 §8.3; lines and
+ * dots come from d3-shape's `line` (reference library): gaps as a new subpath (M) where `line.defined` is false, a
+ * lone point as `M x,y Z` (d3-shape curveLinear closes a one-point line), a zero-length subpath that is stroked
+ * with round caps (SVG 1.1 §11.4, 'stroke-linecap'), so it shows as a dot.
  */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
@@ -25,11 +26,21 @@ test('linePath(xs, ys) draws one subpath through defined points, rounded to 0.1 
   assert.is(linePath([0, 10.04, 20.06], [5.55, 6.449, 7]), 'M0,5.6L10,6.4L20.1,7');
 });
 
-test('linePath: a NaN value starts a new subpath (gap → new M); an isolated point becomes a dot (h0)', () => {
+test('linePath: a NaN value starts a new subpath (gap → new M); an isolated point becomes a dot (M x,y Z)', () => {
   assertPathEqual(linePath([0, 10, 20, 30, 40], [1, 2, NaN, 3, 4]), 'M0,1L10,2M30,3L40,4');
-  assert.is(linePath([0, 10, 20, 30], [5, NaN, 7, 8]), 'M0,5h0M20,7L30,8');
+  assert.is(linePath([0, 10, 20, 30], [5, NaN, 7, 8]), 'M0,5ZM20,7L30,8');
   assert.is(linePath([0, 10, 20], [NaN, NaN, NaN]), '');
-  assert.is(linePath([0, 10], [1, 2], { isolatedDots: false, defined: (i) => i === 0 }), 'M0,1');
+  // a lone point without a dot is left out (a lone moveto draws nothing, SVG 1.1 §11.4)
+  assert.is(linePath([0, 10], [1, 2], { isolatedDots: false, defined: (i) => i === 0 }), '');
+  assert.is(linePath([0, 10, 20], [1, 2, 3], { isolatedDots: false, defined: (i) => i !== 1 }), '');
+});
+
+test('linePath: the same string as d3-shape line() with defined() on the same points (reference library)', async () => {
+  const { line } = await import('d3-shape');
+  const xs = [0, 10.04, 20.06, 30, 40.55, 50];
+  const ys = [5.55, NaN, 7, 8.25, -0.04, 3];
+  const ref = line<number>().x((i) => xs[i]!).y((i) => ys[i]!).defined((i) => Number.isFinite(ys[i]!)).digits(1)(xs.map((_, i) => i));
+  assert.is(linePath(xs, ys), ref);
 });
 
 test('linePath: breakBefore splits at a time gap even when both sides are defined', () => {
@@ -38,8 +49,8 @@ test('linePath: breakBefore splits at a time gap even when both sides are define
   assert.is(p, 'M0,0L1,0L2,0M3,0L4,0');
 });
 
-test('dotsPath and crossesPath: one zero-length segment per dot; × of half-size r', () => {
-  assert.is(dotsPath([1, 2, 3], [4, NaN, 6]), 'M1,4h0M3,6h0');
+test('dotsPath and crossesPath: one zero-length subpath per dot; × of half-size r', () => {
+  assert.is(dotsPath([1, 2, 3], [4, NaN, 6]), 'M1,4ZM3,6Z');
   assert.is(crossesPath([10], [20], 2), 'M8,18l4,4m0,-4l-4,4');
   assert.is(crossesPath([NaN], [20], 2), '');
 });

@@ -84,6 +84,40 @@ test('parsePeriodTime: ISO dates and times, UTC unless an offset is given; a dat
   assert.throws(() => parsePeriodTime('2026-02-30', '--from'), (e: unknown) => e instanceof UsageError && /not a valid date/.test((e as Error).message));
 });
 
+test('fropa report --season --forecasts: season and verification sections, with the numbers fropa verify prints; absent by default', async () => {
+  const out = join(dir, 'sv.html');
+  const fc = join(demo, 'forecasts', 'forecast_passages.csv');
+  const r = await cli(['report', demo, '--season', '--forecasts', fc, '--out', out, '--quiet']);
+  assert.is(r.code, 0, r.stderr);
+  const html = readFileSync(out, 'utf8');
+  for (const id of ['season', 'season-months', 'season-hours-utc', 'verification', 'verify-stations', 'verify-timing']) assert.match(html, `id="${id}"`);
+  assert.match(html, '<a href="#season">Season</a>');
+  assert.is(html.split(CAUTION).length - 1, 2, 'caution at top and bottom');
+  // the headline counts of `fropa verify` on the same files (its table's `all` row)
+  const v = await cli(['verify', demo, '--forecasts', fc, '--bootstrap-resamples', '0', '--quiet']);
+  assert.is(v.code, 0, v.stderr);
+  const all = /^all\s+(\d+)\s+(\d+)\s+(\d+)/m.exec(v.stdout);
+  assert.ok(all, v.stdout);
+  assert.match(html, `Hits ${all![1]}, misses ${all![2]}, false alarms ${all![3]}`);
+  // without the options: no such sections, and no bar-chart style rules
+  const plain = join(dir, 'plain.html');
+  assert.is((await cli(['report', demo, '--out', plain, '--quiet'])).code, 0);
+  const p = readFileSync(plain, 'utf8');
+  assert.not.match(p, 'id="season"');
+  assert.not.match(p, 'id="verification"');
+  assert.not.match(p, 'svg.bars');
+});
+
+test('fropa report --forecasts: an unreadable file or a bad --window-hours is a usage error (exit 2)', async () => {
+  const r = await cli(['report', demo, '--forecasts', join(dir, 'nope.csv'), '--out', join(dir, 'x.html'), '--quiet']);
+  assert.is(r.code, 2);
+  assert.match(r.stderr, 'cannot read the forecast file');
+  assertNoStack(r.stderr);
+  const w = await cli(['report', demo, '--forecasts', join(demo, 'forecasts', 'forecast_passages.csv'), '--window-hours', '0', '--out', join(dir, 'y.html'), '--quiet']);
+  assert.is(w.code, 2);
+  assertNoStack(w.stderr);
+});
+
 test('fropa report --help lists the options and an example with stations-demo', async () => {
   const r = await cli(['report', '--help']);
   assert.is(r.code, 0);
