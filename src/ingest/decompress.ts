@@ -5,8 +5,8 @@
  * FD 37 7A 58 5A 00 (xz file format 1.0.4 §2.1.1.1); bzip2 `BZh` (common practice, no source); zstd
  * 28 B5 2F FD (RFC 8878 §3.1.1); 7z 37 7A BC AF 27 1C (from memory).
  */
-import { createGunzip, gunzipSync } from 'node:zlib';
-import { Transform, type Readable } from 'node:stream';
+import { gunzipSync } from 'node:zlib';
+import { Gunzip } from 'fflate';
 
 /** Expanded bytes may be at most this many times the compressed size (text compresses about 5–20×). */
 export const MAX_EXPANSION_RATIO = 200;
@@ -68,28 +68,52 @@ export function expandBytes(bytes: Buffer, opts: { maxRatio?: number; maxBytes?:
 const TOOL: Record<Exclude<CompressionKind, 'gzip' | null>, string> = { zip: 'unzip', xz: 'xz -d', bzip2: 'bunzip2', zstd: 'zstd -d', '7z': '7z x' };
 
 /**
- * A gzip stream expanded as it is read, failing (an Error with `code` `ERR_DECOMPRESSION_BOMB`) once the
- * output passes `maxRatio` × the input read so far plus 64 KiB, or `maxBytes`: memory stays bounded.
+ * A gzip file expanded piece by piece, synchronously (fflate's streaming Gunzip; several members are read as one,
+ * RFC 1952 §2.2): `push` takes the next compressed piece and gives back the expanded bytes it completes. It
+ * throws a {@link GzipStreamError} once the output passes `maxRatio` × the compressed bytes read so far plus
+ * 64 KiB (a decompression bomb), or when the data is damaged. Memory holds one piece, not the file, so there is
+ * no bound on the total.
  */
-export function gunzipBounded(input: Readable, opts: { maxRatio?: number; maxBytes?: number } = {}): Readable {
-  const maxRatio = opts.maxRatio ?? MAX_EXPANSION_RATIO;
-  const maxBytes = opts.maxBytes ?? MAX_EXPANDED_BYTES;
-  let inBytes = 0;
-  let outBytes = 0;
-  input.on('data', (c: Buffer) => (inBytes += c.length));
-  const gunzip = createGunzip();
-  const guard = new Transform({
-    transform(chunk: Buffer, _enc, done) {
-      outBytes += chunk.length;
-      if (outBytes > maxBytes || outBytes > inBytes * maxRatio + (1 << 16)) {
-        const e = Object.assign(new Error(`gzip expands more than ${maxRatio}× (${outBytes} bytes from ${inBytes}): refused as a possible decompression bomb`), { code: 'ERR_DECOMPRESSION_BOMB' });
-        done(e);
-        return;
-      }
-      done(null, chunk);
-    },
-  });
-  input.on('error', (e) => guard.destroy(e));
-  gunzip.on('error', (e) => guard.destroy(e));
-  return input.pipe(gunzip).pipe(guard);
+export class GunzipPieces {
+  private readonly g: Gunzip;
+  private readonly maxRatio: number;
+  private inBytes = 0;
+  private outBytes = 0;
+  private out: Buffer[] = [];
+
+  constructor(maxRatio = MAX_EXPANSION_RATIO) {
+    this.maxRatio = maxRatio;
+    this.g = new Gunzip((data) => {
+      this.outBytes += data.length;
+      this.out.push(Buffer.from(data.buffer, data.byteOffset, data.length));
+    });
+  }
+
+  /** Expand the next compressed piece (`final` for the last); returns the expanded bytes, possibly none. */
+  push(piece: Uint8Array, final = false): Buffer[] {
+    this.inBytes += piece.length;
+    try {
+      this.g.push(piece, final);
+    } catch (e) {
+      throw new GzipStreamError('bad-gzip', `gzip data is damaged (${(e as Error).message}); the file may be cut short`);
+    }
+    if (this.outBytes > this.inBytes * this.maxRatio + (1 << 16)) {
+      throw new GzipStreamError(
+        'decompression-bomb',
+        `gzip expands more than ${this.maxRatio}× (${this.outBytes} bytes from the first ${this.inBytes}): refused as a possible decompression bomb`,
+      );
+    }
+    const got = this.out;
+    this.out = [];
+    return got;
+  }
+}
+
+/** Why a streamed gzip file stopped expanding. */
+export class GzipStreamError extends Error {
+  readonly reason: 'bad-gzip' | 'decompression-bomb';
+  constructor(reason: 'bad-gzip' | 'decompression-bomb', message: string) {
+    super(message);
+    this.reason = reason;
+  }
 }

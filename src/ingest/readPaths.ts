@@ -11,7 +11,7 @@ import { decodeMetarAt, isParseIssue, looksLikeMetar, MetarReader, metarToObserv
 import { CsvReader, type CsvOptions, type RawReportDecoded } from './csv.js';
 import { buildStationIndex, looksLikeStationsFile, readStationsText, resolveStation, stationFromFileName, type FileNameStation, type StationIndex } from './stations.js';
 import type { ColumnOverride } from './columns.js';
-import { compressionOf, expandBytes } from './decompress.js';
+import { compressionOf, expandBytes, GunzipPieces, GzipStreamError } from './decompress.js';
 import { isIsdHeaders, readIsdText } from './isd.js';
 import { looksBinary, prepareText } from './text.js';
 import { encodingOf, LineSplitter, splitWhole, type TextBlock } from './lines.js';
@@ -52,7 +52,7 @@ export interface DataFile {
   /** The file's bytes (prepared text) when held in memory; empty when `stream` is set. */
   bytes: Buffer;
   /** Read in chunks from here: a file path, or an open descriptor (standard input) with the chunk already read from it. */
-  stream?: { file: string } | { fd: number; head: Buffer; ended: boolean };
+  stream?: { file: string; gzip?: boolean } | { fd: number; head: Buffer; ended: boolean };
   format: SniffedFormat;
   fromDir: boolean;
   /** The station id the file name gives (for files without a station column), with its rule. */
@@ -219,6 +219,20 @@ function streamChunks(src: NonNullable<DataFile['stream']>, onChunk: (chunk: Buf
     }
   }
   const fd = openSync(src.file, 'r');
+  if (src.gzip) {
+    // expanded piece by piece (decompress.ts: bounded against decompression bombs); the pieces are never whole
+    try {
+      const g = new GunzipPieces();
+      for (;;) {
+        const buf = Buffer.allocUnsafe(CHUNK_BYTES);
+        const n = readFull(fd, buf);
+        for (const out of g.push(buf.subarray(0, n), n < CHUNK_BYTES)) if (out.length) onChunk(out, false);
+        if (n < CHUNK_BYTES) return;
+      }
+    } finally {
+      closeSync(fd);
+    }
+  }
   try {
     let firstChunk = true;
     for (;;) {
@@ -240,6 +254,7 @@ function readFailure(e: unknown): string {
   if (code === 'ERR_FS_FILE_TOO_LARGE' || code === 'ERR_STRING_TOO_LONG' || code === 'ERR_BUFFER_TOO_LARGE')
     return 'cannot read the file: a compressed file is expanded in memory, and this one is larger than one in-memory read allows (2 GiB); decompress it first (plain files are streamed)';
   if (code === 'EISDIR') return 'cannot read the file: it is a folder';
+  if (e instanceof GzipStreamError) return e.message;
   return `cannot read the file (${code})`;
 }
 
@@ -298,6 +313,15 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
     reports.push(r.report);
   }
   const dataFiles: DataFile[] = [];
+  /** A compressed file not expanded: skipped, its one rejection counted and said. */
+  const refuse = (name: string, reason: string, message: string): void => {
+    const r = newFileReport(name, 'skipped');
+    r.rejectedByReason[reason] = 1;
+    r.rejected = 1;
+    r.issues.push({ file: name, line: 1, reason, message });
+    reports.push(r);
+    note(`${name}: ${message}`);
+  };
   for (const c of files) {
     let raw: Buffer;
     const name = c.path === '-' ? '(stdin)' : c.path;
@@ -320,7 +344,16 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
       }
       try {
         raw = readHead(c.path);
-        if (compressionOf(raw) !== null) raw = readFileSync(c.path);
+        if (compressionOf(raw) === 'gzip' && raw.length === CHUNK_BYTES) {
+          // a gzip file of 1 MiB or more is streamed: its expanded head is sniffed here, the rest read in turn
+          try {
+            raw = Buffer.concat(new GunzipPieces().push(raw, false));
+          } catch (e) {
+            refuse(c.path, e instanceof GzipStreamError ? e.reason : 'bad-gzip', (e as Error).message);
+            continue;
+          }
+          stream = { file: c.path, gzip: true };
+        } else if (compressionOf(raw) !== null) raw = readFileSync(c.path);
         else stream = { file: c.path };
       } catch (e) {
         const why = readFailure(e);
@@ -335,19 +368,14 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
       // gzip is expanded (bounded); other compressed files are refused with a message (decompress.ts)
       const expanded = expandBytes(raw);
       if ('reason' in expanded) {
-        const r = newFileReport(name, 'skipped');
-        r.rejectedByReason[expanded.reason] = 1;
-        r.rejected = 1;
-        r.issues.push({ file: name, line: 1, reason: expanded.reason, message: expanded.message });
-        reports.push(r);
-        note(`${name}: ${expanded.message}`);
+        refuse(name, expanded.reason, expanded.message);
         continue;
       }
       if (expanded.kind === 'gzip') raw = expanded.bytes;
     }
     // binary only when most of the head is not text (text.ts); else decoded, BOM dropped, line ends made one kind
     const binary = looksBinary(raw);
-    const wholeHere = stream === undefined || ('fd' in stream ? stream.ended : raw.length < CHUNK_BYTES);
+    const wholeHere = stream === undefined || ('fd' in stream ? stream.ended : !stream.gzip && raw.length < CHUNK_BYTES);
     const bytes = binary ? raw.subarray(0, 8192) : Buffer.concat(splitWhole(raw, new LineSplitter(wholeHere ? { encoding: encodingOf(raw) } : {})).map((b) => b.bytes));
     // the first 8192 characters (at most 4 bytes each)
     const sample = bytes.toString('utf8', 0, Math.min(bytes.length, 32_768)).slice(0, 8192);
@@ -358,6 +386,14 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
     if (whole && stream && !('fd' in stream)) {
       try {
         raw = readFileSync(c.path);
+        if (stream.gzip) {
+          const ex = expandBytes(raw);
+          if ('reason' in ex) {
+            refuse(c.path, ex.reason, ex.message);
+            continue;
+          }
+          raw = ex.bytes;
+        }
       } catch (e) {
         const why = readFailure(e);
         const r = newFileReport(c.path, 'unreadable');

@@ -7,6 +7,7 @@
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { closeSync, openSync, readFileSync } from 'node:fs';
+import { gzipSync } from 'node:zlib';
 import { join } from 'node:path';
 import { CHUNK_BYTES, readDataFiles, scanPaths } from '../../src/ingest/readPaths.js';
 import { readMetarBytes } from '../../src/ingest/metar.js';
@@ -96,6 +97,36 @@ test('a CSV file over several read chunks (read piece by piece) = the reader on 
   );
   assert.equal(got.reports[0]!.issues, whole.report.issues);
   assert.is(got.reports[0]!.lines, whole.report.lines);
+});
+
+test('a gzip file of 1 MiB or more is expanded as it is read (RFC 1952, several members): the same as the plain file', () => {
+  const dir = tempDir('fropa-stream-gz-');
+  const text = metarText(Math.floor(2.3 * CHUNK_BYTES));
+  const plain = put(dir, 'big_metar.txt', text);
+  // level 0 (stored blocks) keeps the compressed file over one read chunk; two members, split inside a line
+  const cut = Math.floor(text.length / 2) + 7;
+  const gz = Buffer.concat([gzipSync(text.slice(0, cut), { level: 0 }), gzipSync(text.slice(cut), { level: 0 })]);
+  assert.ok(gz.length > 2 * CHUNK_BYTES);
+  const gzPath = put(dir, 'big_metar.txt.gz', gz);
+  const a = readAll([plain]);
+  const b = readAll([gzPath]);
+  assert.ok(a.obs.length > 20_000);
+  assert.equal(
+    b.obs.map((o) => [o.station, o.timeMs, o.temperatureC, o.line]),
+    a.obs.map((o) => [o.station, o.timeMs, o.temperatureC, o.line]),
+  );
+  assert.is(b.reports[0]!.parsed, a.reports[0]!.parsed);
+  assert.is(b.reports[0]!.rejected, a.reports[0]!.rejected);
+});
+
+test('a streamed gzip file cut short: the lines before are read and the file says why reading stopped', () => {
+  const dir = tempDir('fropa-stream-gzcut-');
+  const text = metarText(Math.floor(2.3 * CHUNK_BYTES));
+  const gz = gzipSync(text, { level: 0 });
+  const path = put(dir, 'cut_metar.txt.gz', gz.subarray(0, Math.floor(gz.length * 0.7)));
+  const got = readAll([path]);
+  assert.ok(got.obs.length > 10_000);
+  assert.ok(got.reports[0]!.notes.some((n) => /reading stopped: gzip data is damaged/.test(n)), JSON.stringify(got.reports[0]!.notes));
 });
 
 test.run();
