@@ -52,7 +52,7 @@ export interface DataFile {
   /** The file's bytes (prepared text) when held in memory; empty when `stream` is set. */
   bytes: Buffer;
   /** Read in chunks from here: a file path, or an open descriptor (standard input) with the chunk already read from it. */
-  stream?: { file: string; gzip?: boolean } | { fd: number; head: Buffer; ended: boolean };
+  stream?: { file: string; gzip?: boolean } | { fd: number; head: Buffer; ended: boolean; gunzip?: GunzipPieces };
   format: SniffedFormat;
   fromDir: boolean;
   /** The station id the file name gives (for files without a station column), with its rule. */
@@ -209,12 +209,15 @@ function readRest(fd: number): Buffer {
  */
 function streamChunks(src: NonNullable<DataFile['stream']>, onChunk: (chunk: Buffer, whole: boolean) => void): void {
   if ('fd' in src) {
-    onChunk(src.head, src.ended);
+    // (gzip on standard input: the head is already expanded, the rest goes through the same expander)
+    if (src.head.length > 0 || !src.gunzip) onChunk(src.head, src.ended);
     if (src.ended) return;
     for (;;) {
       const buf = Buffer.allocUnsafe(CHUNK_BYTES);
       const n = readFull(src.fd, buf);
-      if (n > 0) onChunk(buf.subarray(0, n), false);
+      if (src.gunzip) {
+        for (const out of src.gunzip.push(buf.subarray(0, n), n < CHUNK_BYTES)) if (out.length) onChunk(out, false);
+      } else if (n > 0) onChunk(buf.subarray(0, n), false);
       if (n < CHUNK_BYTES) return;
     }
   }
@@ -332,9 +335,20 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
         const head = Buffer.allocUnsafe(CHUNK_BYTES);
         const n = readFull(opts.stdinFd, head);
         raw = head.subarray(0, n);
-        // compressed input is expanded whole (bounded, decompress.ts)
-        if (compressionOf(raw) !== null) raw = n < CHUNK_BYTES ? raw : Buffer.concat([raw, readRest(opts.stdinFd)]);
-        else stream = { fd: opts.stdinFd, head: raw, ended: n < CHUNK_BYTES };
+        if (compressionOf(raw) === 'gzip' && n === CHUNK_BYTES) {
+          // gzip of 1 MiB or more: expanded as it is read (decompress.ts), its expanded head sniffed here
+          const gunzip = new GunzipPieces();
+          try {
+            raw = Buffer.concat(gunzip.push(raw, false));
+          } catch (e) {
+            refuse(name, e instanceof GzipStreamError ? e.reason : 'bad-gzip', (e as Error).message);
+            continue;
+          }
+          stream = { fd: opts.stdinFd, head: raw, ended: false, gunzip };
+        } else if (compressionOf(raw) !== null) {
+          // smaller compressed input is expanded whole (bounded, decompress.ts)
+          raw = n < CHUNK_BYTES ? raw : Buffer.concat([raw, readRest(opts.stdinFd)]);
+        } else stream = { fd: opts.stdinFd, head: raw, ended: n < CHUNK_BYTES };
       } else raw = Buffer.from(opts.stdinText ?? '', 'utf8');
     } else {
       if (c.fromDir && NOT_OBSERVATIONS.has(extname(c.path).toLowerCase())) {
@@ -402,7 +416,14 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
         note(`${c.path}: ${why}`);
         continue;
       }
-    } else if (whole && stream && 'fd' in stream) raw = Buffer.concat([raw, readRest(stream.fd)]);
+    } else if (whole && stream && 'fd' in stream) {
+      try {
+        raw = Buffer.concat(stream.gunzip ? [raw, ...stream.gunzip.push(readRest(stream.fd), true)] : [raw, readRest(stream.fd)]);
+      } catch (e) {
+        refuse(name, e instanceof GzipStreamError ? e.reason : 'bad-gzip', (e as Error).message);
+        continue;
+      }
+    }
     if (format === 'stations') {
       if (opts.stationsFile) {
         note(`${name}: stations file ignored (--stations given)`);

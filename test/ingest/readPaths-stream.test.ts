@@ -119,6 +119,25 @@ test('a gzip file of 1 MiB or more is expanded as it is read (RFC 1952, several 
   assert.is(b.reports[0]!.rejected, a.reports[0]!.rejected);
 });
 
+test('gzip on standard input (a descriptor) is expanded as it is read: the same as the gzip file by path', () => {
+  const dir = tempDir('fropa-stdin-gz-');
+  const gz = gzipSync(metarText(Math.floor(2.1 * CHUNK_BYTES)), { level: 0 });
+  const path = put(dir, 'in_metar.txt.gz', gz);
+  const byPath = readAll([path]);
+  const fd = openSync(path, 'r');
+  try {
+    const byStdin = readAll(['-'], { stdinFd: fd });
+    assert.ok(byPath.obs.length > 20_000);
+    assert.equal(
+      byStdin.obs.map((o) => [o.station, o.timeMs, o.line]),
+      byPath.obs.map((o) => [o.station, o.timeMs, o.line]),
+    );
+    assert.is(byStdin.reports[0]!.parsed, byPath.reports[0]!.parsed);
+  } finally {
+    closeSync(fd);
+  }
+});
+
 test('a streamed gzip file cut short: the lines before are read and the file says why reading stopped', () => {
   const dir = tempDir('fropa-stream-gzcut-');
   const text = metarText(Math.floor(2.3 * CHUNK_BYTES));
