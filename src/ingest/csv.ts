@@ -122,6 +122,33 @@ export interface CsvResult {
 /** Sky covers that are no ceiling (FMH-1 §12.6.9: only BKN, OVC and VV make one). */
 const NO_CEILING_COVERS = new Set(['CLR', 'SKC', 'NCD', 'NSC', 'FEW', 'SCT']);
 
+/**
+ * Ceiling, ft, from a sky-conditions text of layers `COVER:oktas height`, the height in hundreds of feet, as NCEI
+ * LCD writes `HourlySkyConditions` (e.g. `FEW:02 45 BKN:07 100 OVC:08 250`; layout from the LCD documentation,
+ * from memory): the lowest BKN, OVC or VV layer (FMH-1 §12.6.9); +Infinity when only layers without a ceiling are
+ * given (CLR, SKC, FEW, SCT); NaN for an empty or missing cell; null when the text holds no layer at all (counted
+ * as a bad value by the caller). Only the first `|`-separated section is read.
+ * @example ceilingFromSkyText('FEW:02 45 BKN:07 100') // 10000
+ */
+export function ceilingFromSkyText(text: string): number | null {
+  const t = text.split('|', 1)[0]!.trim().toUpperCase();
+  if (t === '' || MISSING.has(t.toLowerCase())) return NaN;
+  let ceiling = NaN;
+  let layers = 0;
+  for (const m of t.matchAll(/\b(FEW|SCT|BKN|OVC|VV|CLR|SKC|X)(?::(\d{1,2}))?(?:\s+(\d{1,3}))?(?=\s|$)/g)) {
+    layers++;
+    const cover = m[1]!;
+    if (cover !== 'BKN' && cover !== 'OVC' && cover !== 'VV') {
+      if (NO_CEILING_COVERS.has(cover) && ceiling !== ceiling) ceiling = Infinity;
+      continue;
+    }
+    if (m[3] === undefined) continue;
+    const h = Number(m[3]) * 100;
+    if (!(ceiling <= h)) ceiling = h;
+  }
+  return layers === 0 ? null : ceiling;
+}
+
 const MISSING = new Set(['', 'm', 'mm', 'na', 'n/a', 'nan', 'null', 'none', '-', '--', 'missing', '#n/a']);
 
 /**
@@ -295,6 +322,8 @@ export class CsvCore {
   private wxCol = NO_COL;
   /** Sky cover and sky level (ft) columns, pairwise (IEM `skyc1..4`, `skyl1..4`); empty when none. */
   private skyCols: { cover: number; level: number }[] = [];
+  /** A sky-conditions text column (NCEI LCD `HourlySkyConditions`), read when no cover/level pairs are given. */
+  private skyTextCol = NO_COL;
   private rawCol = NO_COL;
   private offsetCol = NO_COL;
   private typeCol = NO_COL;
@@ -612,6 +641,7 @@ export class CsvCore {
       const level = mapping[l];
       if (cover && level) this.skyCols.push({ cover: cover.index, level: level.index });
     }
+    if (this.skyCols.length === 0 && mapping.skyConditions) this.skyTextCol = mapping.skyConditions.index;
     this.rawCol = hasRaw ? mapping.rawReport!.index : NO_COL;
     this.offsetCol = mapping.utcOffset?.index ?? NO_COL;
     this.typeCol = mapping.reportType?.index ?? NO_COL;
@@ -1079,6 +1109,12 @@ export class CsvCore {
     // read after the other fields, so that the notes of their values keep their order
     if (cols.visibility !== undefined) o.visibilityM = this.val(cols.visibility, line);
     if (this.skyCols.length !== 0) o.ceilingFt = this.ceilingOf(line);
+    else if (this.skyTextCol !== NO_COL) {
+      const text = this.cell(this.skyTextCol);
+      const c = ceilingFromSkyText(text);
+      if (c === null) this.count('bad-value', 'ceiling', line, text.trim());
+      else o.ceilingFt = c;
+    }
     if (this.rawCol !== NO_COL) {
       this.mergeRaw(o, this.cell(this.rawCol), line);
       station = o.station;

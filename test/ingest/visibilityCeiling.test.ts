@@ -10,7 +10,7 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { loadPaths } from '../../src/pipeline.js';
 import { decodeMetar, isParseIssue, readMetarText } from '../../src/ingest/metar.js';
-import { readCsvText } from '../../src/ingest/csv.js';
+import { ceilingFromSkyText, readCsvText } from '../../src/ingest/csv.js';
 import { readIsdText } from '../../src/ingest/isd.js';
 import { buildSeries } from '../../src/series/series.js';
 import { emptyObservation, WX, type StationSeries } from '../../src/model/index.js';
@@ -133,6 +133,28 @@ realskillTest(test, 'JFK_2019_LCD_localstd.csv')('NCEI LCD weather codes: JFK 20
   const w = s.weather[at(s, '2019-01-05T06:51:00Z')]!;
   assert.ok(w & WX.HEAVY, w.toString(2));
   assert.is(w & (WX.LIGHT | WX.MODERATE), 0);
+});
+
+test('NCEI LCD `HourlySkyConditions`: layers COVER:oktas height (hundreds of ft); ceiling the lowest BKN/OVC/VV', () => {
+  // Layout as in the NCEI LCD documentation (from memory: cover, `:`, eighths, then the base in hundreds of feet);
+  // ceiling per FMH-1 §12.6.9. Invented rows.
+  assert.is(ceilingFromSkyText('FEW:02 45 BKN:07 100 OVC:08 250'), 10000);
+  assert.is(ceilingFromSkyText('VV:09 2'), 200);
+  assert.is(ceilingFromSkyText('CLR:00'), Infinity);
+  assert.is(ceilingFromSkyText('FEW:02 35 SCT:04 250'), Infinity);
+  assert.ok(Number.isNaN(ceilingFromSkyText('')!));
+  assert.is(ceilingFromSkyText('garbage'), null);
+  const text = [
+    'STATION,DATE,REPORT_TYPE,HourlyDryBulbTemperature,HourlySkyConditions,HourlyVisibility',
+    '72530094846,2024-02-28T10:51:00,FM-15,40,BKN:07 23 OVC:08 30,10.00',
+    '72530094846,2024-02-28T11:51:00,FM-15,38,FEW:02 250,10.00',
+    '72530094846,2024-02-28T12:51:00,FM-15,36,,10.00',
+    '72530094846,2024-02-28T13:51:00,FM-15,35,??,10.00',
+  ].join('\n');
+  const r = readCsvText(text, 'XLCD.csv', { offsetMinutes: -360 });
+  assert.equal(r.observations.map((o) => o.ceilingFt), [2300, Infinity, NaN, NaN]);
+  assert.is(r.report.parsed, 4);
+  assert.ok(r.report.notes.some((n) => n.startsWith('bad-value in ceiling: 1 value (first at line 5: "??")')), r.report.notes.join(' | '));
 });
 
 test('CSV: generic visibility names and units; sky covers without a ceiling; bad levels counted, never thrown', () => {
