@@ -325,6 +325,16 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
     reports.push(r);
     note(`${name}: ${message}`);
   };
+  /** A gzip stream that stopped expanding (a bomb or damaged data), refused as above. */
+  const refuseGzip = (name: string, e: unknown): void => refuseGzip(name, e);
+  /** A file that could not be read: its report says why. */
+  const unreadable = (path: string, e: unknown): void => {
+    const why = readFailure(e);
+    const r = newFileReport(path, 'unreadable');
+    r.notes.push(why);
+    reports.push(r);
+    note(`${path}: ${why}`);
+  };
   for (const c of files) {
     let raw: Buffer;
     const name = c.path === '-' ? '(stdin)' : c.path;
@@ -335,17 +345,18 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
         const head = Buffer.allocUnsafe(CHUNK_BYTES);
         const n = readFull(opts.stdinFd, head);
         raw = head.subarray(0, n);
-        if (compressionOf(raw) === 'gzip' && n === CHUNK_BYTES) {
+        const kind = compressionOf(raw);
+        if (kind === 'gzip' && n === CHUNK_BYTES) {
           // gzip of 1 MiB or more: expanded as it is read (decompress.ts), its expanded head sniffed here
           const gunzip = new GunzipPieces();
           try {
             raw = Buffer.concat(gunzip.push(raw, false));
           } catch (e) {
-            refuse(name, e instanceof GzipStreamError ? e.reason : 'bad-gzip', (e as Error).message);
+            refuseGzip(name, e);
             continue;
           }
           stream = { fd: opts.stdinFd, head: raw, ended: false, gunzip };
-        } else if (compressionOf(raw) !== null) {
+        } else if (kind !== null) {
           // smaller compressed input is expanded whole (bounded, decompress.ts)
           raw = n < CHUNK_BYTES ? raw : Buffer.concat([raw, readRest(opts.stdinFd)]);
         } else stream = { fd: opts.stdinFd, head: raw, ended: n < CHUNK_BYTES };
@@ -358,23 +369,20 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
       }
       try {
         raw = readHead(c.path);
-        if (compressionOf(raw) === 'gzip' && raw.length === CHUNK_BYTES) {
+        const kind = compressionOf(raw);
+        if (kind === 'gzip' && raw.length === CHUNK_BYTES) {
           // a gzip file of 1 MiB or more is streamed: its expanded head is sniffed here, the rest read in turn
           try {
             raw = Buffer.concat(new GunzipPieces().push(raw, false));
           } catch (e) {
-            refuse(c.path, e instanceof GzipStreamError ? e.reason : 'bad-gzip', (e as Error).message);
+            refuseGzip(c.path, e);
             continue;
           }
           stream = { file: c.path, gzip: true };
-        } else if (compressionOf(raw) !== null) raw = readFileSync(c.path);
+        } else if (kind !== null) raw = readFileSync(c.path);
         else stream = { file: c.path };
       } catch (e) {
-        const why = readFailure(e);
-        const r = newFileReport(c.path, 'unreadable');
-        r.notes.push(why);
-        reports.push(r);
-        note(`${c.path}: ${why}`);
+        unreadable(c.path, e);
         continue;
       }
     }
@@ -409,18 +417,14 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
           raw = ex.bytes;
         }
       } catch (e) {
-        const why = readFailure(e);
-        const r = newFileReport(c.path, 'unreadable');
-        r.notes.push(why);
-        reports.push(r);
-        note(`${c.path}: ${why}`);
+        unreadable(c.path, e);
         continue;
       }
     } else if (whole && stream && 'fd' in stream) {
       try {
         raw = Buffer.concat(stream.gunzip ? [raw, ...stream.gunzip.push(readRest(stream.fd), true)] : [raw, readRest(stream.fd)]);
       } catch (e) {
-        refuse(name, e instanceof GzipStreamError ? e.reason : 'bad-gzip', (e as Error).message);
+        refuseGzip(name, e);
         continue;
       }
     }
