@@ -206,12 +206,13 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
   const byStrength = events.slice().sort((a, b) => strength(b) - strength(a) || a.timeMs - b.timeMs);
   const kept: PassageEvent[] = [];
   const thermalSign = (e: PassageEvent) => (e.kind === 'cold-front' || e.kind === 'outflow-boundary' ? -1 : e.kind === 'warm-front' ? 1 : 0);
+  // When a kept cold front's temperature fall starts (NaN when unknown).
+  const fallOf = (k: PassageEvent) => (Number.isFinite(k.changeStartTimeMs) ? k.changeStartTimeMs : k.timeBasis === 'temperature-change' ? k.timeMs : NaN);
   for (const e of byStrength) {
     // Two cold-front candidates within 4 h (of each other, or of the kept one's temperature fall) are one
     // passage seen at the wind shift and at the fall: keep the stronger, timed at the wind shift nearest its
     // fall, from 3 h before to 2 h after it (FMH-1 times a passage at the wind shift; a dew-point crash or a
     // small veer hours ahead of the fall is not the front's shift), with both times reported.
-    const fallOf = (k: PassageEvent) => (Number.isFinite(k.changeStartTimeMs) ? k.changeStartTimeMs : k.timeBasis === 'temperature-change' ? k.timeMs : NaN);
     const twin = kept.find((k) => {
       if (k.kind !== 'cold-front' || e.kind !== 'cold-front') return false;
       const fall = fallOf(k);
@@ -325,7 +326,7 @@ function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEv
   // For a warm front that is also where the station enters the warm air: its temperature contrast lies
   // ahead of it, on the cold side (Petterssen 1956, from memory), so the rise comes before the front.
   const byWind = c.timeBasis === 'wind-shift' && c.timing !== undefined;
-  const timeMs = byWind ? (process.env.X_MID && c.c.kind !== 'warm-front' ? (c.timing!.earliestMs + c.timing!.latestMs) / 2 : c.timing!.latestMs) : c.timing?.timeMs ?? f.timeMs;
+  const timeMs = byWind ? c.timing!.latestMs : c.timing?.timeMs ?? f.timeMs;
   const evidence = [...c.c.evidence];
   if (c.basis) evidence.push(`${c.basis}, between the reports at ${hhmm(c.timing!.earliestMs)} and ${hhmm(c.timing!.latestMs)} UTC${byWind ? ' (placed at the first report with the new wind)' : ''}`);
   if (c.prefrontalShiftMs !== undefined) {
