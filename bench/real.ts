@@ -69,7 +69,7 @@ function bracketRate(events: readonly PassageEvent[], series: readonly StationSe
 function observerRemarks() {
   const files = ['KJFK_2019-11_to_2020-02_asos.csv', 'KORD_2024-02-27_28_metar.txt'].map((f) => join(SHARED, 'realdata', f));
   const r = loadPaths(files, { stationsFile: join(SHARED, 'realdata', 'stations.csv') });
-  const events = analyseSeries(r.series, { minConfidence: 0.4, network: false }).events;
+  const events = analyseSeries(r.series, { network: false }).events;
   const rows: string[] = [];
   let n = 0;
   let within60 = 0;

@@ -49,7 +49,7 @@ interface Selected {
 function withDetectionOptions<T>(y: Argv<T>) {
   return y
     .option('kinds', { type: 'string', describe: `Only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Detection:' })
-    .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.4)', group: 'Detection:' })
+    .option('min-confidence', { type: 'number', describe: 'Drop passages below this confidence, 0 to 1 (detector default 0.5)', group: 'Detection:' })
     .option('front-speed', { type: 'number', describe: 'Front speed normal to the front, km/h, for zone depth and gradient (default: the speed fitted across the network)', group: 'Detection:' })
     .option('network', { type: 'boolean', default: true, describe: 'Track fronts across stations with coordinates (--no-network to skip)', group: 'Detection:' })
     .option('jobs', { type: 'number', describe: 'Worker threads for detection (default: the number of cores); the output is the same for every value', group: 'Detection:' });
@@ -113,7 +113,7 @@ function parser(onSelect: (s: Selected) => void) {
           .option('bootstrap-resamples', { type: 'number', default: 1000, describe: 'Bootstrap resamples of the headline intervals (0: none)', group: 'Verification:' })
           .option('bootstrap-seed', { type: 'number', default: 1, describe: 'Seed of the bootstrap (output is deterministic)', group: 'Verification:' })
           .option('kinds', { type: 'string', describe: `Verify only these kinds, comma-separated: ${BOUNDARY_KINDS.join(', ')}`, group: 'Verification:' })
-          .option('min-confidence', { type: 'number', describe: 'Observed passages: drop those below this confidence, 0 to 1 (detector default 0.4)', group: 'Verification:' })
+          .option('min-confidence', { type: 'number', describe: 'Observed passages: drop those below this confidence, 0 to 1 (detector default 0.5)', group: 'Verification:' })
           .option('format', { choices: ['table', 'csv', 'json', 'scores'] as const, default: 'table', describe: 'Output format (CSV/JSON: one record per forecast and per miss of every issue; scores: CSV of the scores per group, with the headline intervals)', group: 'Output:' })
           .example('$0 verify stations-demo --forecasts stations-demo/forecasts/forecast_passages.csv', 'Demo forecasts against the demo observations: scores per station and lead time')
           .example('$0 verify obs/ --stations stations.csv --forecasts fc.csv --kinds cold-front --window-hours 3', 'Cold fronts only, matched within ±3 h')

@@ -52,6 +52,6 @@ export function loadRealFiles(files: readonly RealFile[] = REAL_FILES): LoadedFi
 /** Run the main job on each loaded file. */
 export function detectReal(loaded: readonly LoadedFile[], opts: AnalyseOptions = {}): PassageEvent[] {
   const all: PassageEvent[] = [];
-  for (const l of loaded) all.push(...analyseSeries(l.series, { minConfidence: 0.4, ...opts }).events);
+  for (const l of loaded) all.push(...analyseSeries(l.series, { ...opts }).events);
   return all;
 }

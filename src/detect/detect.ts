@@ -25,8 +25,18 @@ import { MS_PER_HOUR, MS_PER_MINUTE } from '../physics/constants.js';
 
 /** Candidates closer than this before timing are one change (the strongest is kept). common practice, no source. */
 const SUPPRESS_MS = 1 * MS_PER_HOUR;
-/** Default confidence floor. */
-export const DEFAULT_MIN_CONFIDENCE = 0.4;
+/**
+ * Default confidence floor. A confidence is calibrated to the frequency with which such a detection matches a
+ * labelled passage of its kind (two passes of Platt scaling on the tuning part, bench/real/fit.ts), so 0.5
+ * keeps the passages more likely right than wrong. common practice, no source, for taking 0.5.
+ */
+export const DEFAULT_MIN_CONFIDENCE = 0.5;
+/**
+ * Without the model (no wind reported, or no parameters) a confidence is a signature score, not a calibrated
+ * frequency; those scores were tuned to keep passages from 0.4, so their floor is the calibrated floor × 0.8
+ * (0.5 → 0.4). common practice, no source.
+ */
+const SIGNATURE_FLOOR_SCALE = 0.8;
 
 interface Candidate {
   index: number;
@@ -150,7 +160,6 @@ export function checkDetectOptions(opts: DetectOptions): void {
  */
 export function detectStation(series: StationSeries, opts: DetectOptions = {}): PassageEvent[] {
   checkDetectOptions(opts);
-  const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
   const ctx = stationContext(series);
   if (!ctx) return [];
   const { g, hemisphere, raw, tSmooth, tRawSmooth } = ctx;
@@ -158,6 +167,8 @@ export function detectStation(series: StationSeries, opts: DetectOptions = {}): 
   // The model was fitted on stations that report wind; a record without any wind direction is judged by
   // the signatures alone (which have a temperature-and-moisture path for it).
   const params = !hasWind(series) ? null : opts.model === undefined ? MODEL_PARAMS : opts.model;
+  // Signature scores are not calibrated frequencies: their floor is the one they were tuned with.
+  const minConfidence = (opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE) * (params ? 1 : SIGNATURE_FLOOR_SCALE);
   const meta = classificationMeta(series, g);
   const evaluate = (i: number): Candidate => {
     const f = measure(g, series, raw, i, tSmooth, tRawSmooth);

@@ -38,6 +38,15 @@ export function calibrate(p: number, ab: readonly [number, number] | undefined):
   return 1 / (1 + Math.exp(-z));
 }
 
+/**
+ * Platt scaling applied twice is one Platt scaling (Platt 1999 form):
+ * σ(a2 + b2·logit σ(a1 + b1·x)) = σ((a2 + b2·a1) + b2·b1·x).
+ * @example composeCalibration([-1, 1], [0.5, 2]) // [-1.5, 2]
+ */
+export function composeCalibration(first: readonly [number, number], second: readonly [number, number]): [number, number] {
+  return [second[0] + second[1] * first[0], second[1] * first[1]];
+}
+
 /** Clamp to ±limit and map NaN to 0 (the missing indicators carry the absence). */
 const c = (x: number, limit = 3) => (Number.isNaN(x) ? 0 : x > limit ? limit : x < -limit ? -limit : x);
 const miss = (x: number) => (Number.isNaN(x) ? 1 : 0);

@@ -6,7 +6,7 @@ export { BOUNDARY_KINDS, type BoundaryKind, type PassageEvent } from '../model/e
 export interface DetectOptions {
   /** Front speed normal to the front, km/h, for zone depth and gradient. */
   frontSpeedKmh?: number;
-  /** Drop events below this confidence. Default 0.4 (DEFAULT_MIN_CONFIDENCE). */
+  /** Drop events below this confidence. Default 0.5 (DEFAULT_MIN_CONFIDENCE). */
   minConfidence?: number;
   /** Classifier parameters: the fitted ones by default; `null` for the hand signatures alone. */
   model?: import('./model.js').ModelParams | null;

@@ -6,7 +6,7 @@ import { test } from 'uvu';
 import * as assert from 'uvu/assert';
 import { existsSync, readFileSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
-import { decideKind, fitSoftmax, FEATURE_NAMES, MODEL_CLASSES, predictProbabilities, type ModelParams } from '../../src/detect/model.js';
+import { calibrate, composeCalibration, decideKind, fitSoftmax, FEATURE_NAMES, MODEL_CLASSES, predictProbabilities, type ModelParams } from '../../src/detect/model.js';
 import { MODEL_PARAMS } from '../../src/detect/modelParams.js';
 import type { AirMassChange } from '../../src/detect/airmass.js';
 import type { Classification } from '../../src/detect/classify.js';
@@ -17,6 +17,16 @@ test('predictProbabilities(x, params) is the softmax of the linear scores', () =
   const p = predictProbabilities([Math.log(3)], params);
   // softmax([0, ln 3]) = [1/4, 3/4], by the definition (HTF 2009 eq. 4.17)
   assert.ok(Math.abs(p[0]! - 0.25) < 1e-12 && Math.abs(p[1]! - 0.75) < 1e-12, `${p[0]} ${p[1]}`);
+});
+
+test('composeCalibration: two Platt scalings in a row equal the composed one', () => {
+  // Platt 1999: p' = 1 / (1 + exp(−(a + b·logit p))); applying it twice is again of that form.
+  assert.equal(composeCalibration([-1, 1], [0.5, 2]), [-1.5, 2]);
+  for (const p of [0.01, 0.2, 0.5, 0.77, 0.99]) {
+    const twice = calibrate(calibrate(p, [-1.19, 0.98]), [0.4, 0.6]);
+    const once = calibrate(p, composeCalibration([-1.19, 0.98], [0.4, 0.6]));
+    assert.ok(Math.abs(twice - once) < 1e-9, `${p}: ${twice} vs ${once}`);
+  }
 });
 
 test('fitSoftmax(X, y) separates two constructed classes and is deterministic', () => {
