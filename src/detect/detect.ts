@@ -14,7 +14,7 @@ import { buildGrid, type DetectGrid } from './grid.js';
 import { lowerBound, measure, rawColumns, type Features, type RawColumns } from './features.js';
 import { classify, type Classification } from './classify.js';
 import { airMassChange } from './airmass.js';
-import { decideKind, modelInputs, type ModelParams } from './model.js';
+import { ARRIVED_WITH_STORM, decideKind, modelInputs, type ModelParams } from './model.js';
 import { MODEL_PARAMS } from './modelParams.js';
 import { inferSeaBreezeSector } from './seaBreeze.js';
 import type { StationMeta } from '../ingest/types.js';
@@ -225,7 +225,7 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
     // fall, from 3 h before to 2 h after it (FMH-1 times a passage at the wind shift; a dew-point crash or a
     // small veer hours ahead of the fall is not the front's shift), with both times reported.
     const twin = kept.find((k) => {
-      if (k.kind !== 'cold-front' || e.kind !== 'cold-front') return false;
+      if (k.kind !== 'cold-front' || e.kind !== 'cold-front' || withStorm(k) || withStorm(e)) return false;
       const fall = fallOf(k);
       return Math.abs(k.timeMs - e.timeMs) < 4 * MS_PER_HOUR || Math.abs(fall - e.timeMs) < 4 * MS_PER_HOUR;
     });
@@ -267,6 +267,15 @@ export function suppressAfterTiming(events: PassageEvent[]): PassageEvent[] {
  */
 export function markPrefrontalTroughs(events: PassageEvent[]): PassageEvent[] {
   return events.map((e) => {
+    // A storm's outflow ahead of a cold front (a squall line in the warm sector) is followed by the front's own
+    // passage: the lasting cold air behind it is that front's, so the storm's passage stays an outflow.
+    if (e.kind === 'cold-front' && withStorm(e)) {
+      const front = events.find((c) => c !== e && c.kind === 'cold-front' && !withStorm(c) && c.timeMs - e.timeMs >= 0.5 * MS_PER_HOUR && c.timeMs - e.timeMs <= 8 * MS_PER_HOUR);
+      if (front) {
+        const lead = ((front.timeMs - e.timeMs) / MS_PER_HOUR).toFixed(1);
+        return { ...e, kind: 'outflow-boundary', evidence: [...e.evidence.filter((x) => x !== ARRIVED_WITH_STORM), `+ the cold front follows ${lead} h later: the storm's outflow ahead of it`] };
+      }
+    }
     // A drying without cooling up to 7 h ahead of a cold front's fall is the front's dry leading edge (a
     // dew-point crash in the westerlies ahead of the cold air), neither a second front nor a dryline; a
     // dryline overtaken later by a cold front stays a dryline. common practice, no source, for the 7 h.
@@ -329,6 +338,9 @@ function retime(c: Candidate, g: DetectGrid, s: StationSeries, raw: RawColumns, 
 }
 
 const hhmm = (ms: number) => new Date(ms).toISOString().slice(11, 16);
+
+/** A cold front that decideKind took from a storm's outflow because a colder, drier air mass followed. */
+const withStorm = (e: PassageEvent) => e.evidence.includes(ARRIVED_WITH_STORM);
 
 function toEvent(s: StationSeries, c: Candidate, opts: DetectOptions): PassageEvent {
   const f = c.f;

@@ -27,6 +27,12 @@ export interface ModelParams {
   calibration?: Readonly<Record<string, readonly [number, number]>>;
 }
 
+/**
+ * Evidence of a cold front that came with a storm's outflow (decideKind); detect.ts keeps such a passage an
+ * outflow when a cold front of its own follows within hours (the lasting cold air is that front's).
+ */
+export const ARRIVED_WITH_STORM = '+ a colder, drier air mass stays behind: a front that arrived with the storm, not its outflow alone';
+
 /** Candidates whose best boundary class is less probable than this are not passages (common practice, no source). */
 export const MIN_CLASS_PROBABILITY = 0.1;
 
@@ -227,6 +233,14 @@ export function decideKind(x: ArrayLike<number>, a: AirMassChange, h: Classifica
       kind = 'wind-shift';
       confidence = calibrate(Math.min(h.scores['wind-shift'], 1 - Math.max(...Array.from(p).slice(1))), params.calibration?.['wind-shift']);
     } else confidence = 0;
+  }
+  // A storm's outflow leaves rain-cooled but moist air that is gone within hours (Wakimoto1982); a passage that
+  // leaves a colder and drier air mass half a day later than the same hours the day before is a front that
+  // arrived with, or under, the storm. common practice, no source, for the 3 °C and 2 °C.
+  if (kind === 'outflow-boundary' && a.tempDayC <= -3 && a.dewpointDayC <= -2) {
+    kind = 'cold-front';
+    confidence = calibrate(Math.min(1, probOf('cold-front') + probOf('outflow-boundary')), params.calibration?.['cold-front']);
+    evidence.push(ARRIVED_WITH_STORM);
   }
   if (!Number.isNaN(a.tempDayC)) {
     const f1 = (v: number) => v.toFixed(1);

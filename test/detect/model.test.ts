@@ -74,6 +74,17 @@ test('decideKind: a sharp dew-point crash from moist air to dry air, temperature
   assert.is(decideKind([0], air({}), hand('dryline', { dryline: 0.9 }), coldish, moist).kind, 'cold-front');
 });
 
+test('decideKind: an outflow that leaves colder, drier air behind for half a day is a cold front', () => {
+  // Wakimoto1982 (from memory): outflow air is rain-cooled but moist and gone within hours; a lasting colder
+  // and drier air mass is a front's. constructed; common practice, no source, for the 3 °C and 2 °C.
+  const outflowish: ModelParams = { classes: MODEL_CLASSES, features: ['x'], weights: MODEL_CLASSES.map((k) => [0, k === 'outflow-boundary' ? Math.log(0.6 / 0.1) : 0]) };
+  const storm = hand('outflow-boundary', { 'outflow-boundary': 0.7 });
+  assert.is(decideKind([0], air({ tempDayC: -5, dewpointDayC: -4 }), storm, outflowish).kind, 'cold-front');
+  // the same storm with the moist air back (dew point as the day before) stays an outflow
+  assert.is(decideKind([0], air({ tempDayC: -5, dewpointDayC: -0.5 }), storm, outflowish).kind, 'outflow-boundary');
+  assert.is(decideKind([0], air({ tempDayC: -1, dewpointDayC: -4 }), storm, outflowish).kind, 'outflow-boundary');
+});
+
 test('decideKind: "none" becomes a wind shift only when the shift score holds', () => {
   const noneModel: ModelParams = { classes: MODEL_CLASSES, features: ['x'], weights: MODEL_CLASSES.map((k) => [0, k === 'none' ? 5 : 0]) };
   assert.is(decideKind([0], air({}), hand('wind-shift', { 'wind-shift': 0.6 }), noneModel).kind, 'wind-shift');
