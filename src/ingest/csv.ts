@@ -45,8 +45,6 @@
  *   (noted). Ids are trimmed, case kept.
  */
 import Papa from 'papaparse';
-import { Transform } from 'node:stream';
-import { StringDecoder } from 'node:string_decoder';
 import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from '../model/index.js';
 import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, TIME_PARTS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
@@ -58,7 +56,7 @@ import { NEAR_KM, utcOffsetLabel, zoneAtCoordinates } from './zones.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
 import { MAGNUS_AERK1996 } from '../physics/vapor.js';
 import { lineEndsToLf, normalizeLineEnds, prepareText } from './text.js';
-import type { TextBlock } from './lines.js';
+import { LineSplitter, type TextBlock } from './lines.js';
 import { DEFAULT_TIME_WINDOW, outOfWindowMessage, type TimeWindow } from './plausible.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
@@ -415,11 +413,6 @@ export class CsvCore {
   useTextChecks(q: QuoteCheck | null, hasNul: boolean): void {
     if (q) this.quoteBad = q.bad.size ? q.bad : null;
     this.checkNul = hasNul;
-  }
-
-  /** Take the lines a QuoteScanner rejects as it goes (a stream: its map fills before papaparse sees the lines). */
-  useQuoteScanner(scanner: QuoteScanner): void {
-    this.quoteBad = scanner.bad;
   }
 
   /**
@@ -1475,48 +1468,6 @@ export function checkQuotes(text: string, delimiter: string, at: QuoteCheckAt = 
   return { text: out, bad, continued, end, headerFields };
 }
 
-/**
- * checkQuotes on a text that arrives in pieces (a Node stream, readCsvStream): `push` takes the next piece and
- * gives back the text whose records are decided (unclosed quotes blanked, line ends kept), holding back what
- * the next piece may still change (checkQuotes with `more`); `end` gives the rest. The pieces given back,
- * joined, are what checkQuotes gives for the whole text, and `bad` fills as they are given.
- */
-export class QuoteScanner {
-  /** Physical line (1-based) → reason and message, as QuoteCheck.bad; filled as records are decided. */
-  readonly bad = new Map<number, { reason: string; message: string }>();
-  /** Physical lines that continue a multi-line record. */
-  continued = 0;
-  private readonly d: string;
-  private headerFields = -1;
-  /** Physical line of the first character held back. */
-  private line = 1;
-  private held = '';
-
-  constructor(delimiter: string) {
-    this.d = delimiter;
-  }
-
-  /** The next piece of the text; returns the decided text before it (possibly empty). */
-  push(piece: string): string {
-    return this.scan(this.held + piece, true);
-  }
-
-  /** The last piece (may be empty): returns the rest of the decided text. */
-  end(piece = ''): string {
-    return this.scan(this.held + piece, false);
-  }
-
-  private scan(text: string, more: boolean): string {
-    const q = checkQuotes(text, this.d, { firstLine: this.line, headerFields: this.headerFields, more });
-    for (const [line, v] of q.bad) this.bad.set(line, v);
-    this.continued += q.continued;
-    this.headerFields = q.headerFields;
-    for (let k = text.indexOf('\n'); k >= 0 && k < q.end; k = text.indexOf('\n', k + 1)) this.line++;
-    this.held = q.end < text.length ? text.slice(q.end) : '';
-    return q.text;
-  }
-}
-
 /** papaparse options in chunk mode (`chunk` is not in the synchronous `ParseConfig` type). */
 type ChunkConfig = Papa.ParseConfig<string[]> & {
   chunk: (results: Papa.ParseResult<string[]>, parser: Papa.Parser) => void;
@@ -1811,63 +1762,28 @@ function lfText(u: Buffer): string {
 }
 
 /**
- * Read a CSV from a Node readable stream, calling `onObservation` for each parsed row (memory stays flat).
- * The text goes through a QuoteScanner on its way to papaparse, so an unclosed quote rejects its line only
- * (`bad-quotes`), as in readCsvText (the scanner takes the option's delimiter, or papaparse's guess from the
- * first piece, as papaparse does).
+ * Read a CSV from a Node readable stream, calling `onObservation` for each parsed row (memory stays flat). The
+ * bytes go the way the command line reads a file: cut into blocks of whole lines (LineSplitter: encoding, BOM,
+ * line ends) and read by a CsvReader (quotes checked piece by piece, so an unclosed quote rejects its line only,
+ * `bad-quotes`; pieces without quotes scanned in place). Chunks may be Buffers or strings (a stream with an
+ * encoding set).
  * Resolves with the report when the stream ends; rejects on stream errors and on errors thrown by
  * `onObservation` (bad data never throws: it is counted in the report).
  */
-export function readCsvStream(
+export async function readCsvStream(
   stream: NodeJS.ReadableStream,
   file: string,
   opts: CsvOptions,
   onObservation: (o: Observation) => void,
 ): Promise<CsvResult> {
-  const core = new CsvCore(file, opts, onObservation);
-  const s = stream as NodeJS.ReadableStream & { setEncoding?: (e: BufferEncoding) => unknown };
-  if (typeof s.setEncoding === 'function') s.setEncoding('utf8');
-  const decoder = new StringDecoder('utf8');
-  let scanner: QuoteScanner | null = null;
-  let delimiter = opts.delimiter;
-  const checked = new Transform({
-    transform(chunk: Buffer | string, _enc, done) {
-      let piece = typeof chunk === 'string' ? chunk : decoder.write(chunk);
-      if (scanner === null) {
-        if (piece === '') return done();
-        if (piece.charCodeAt(0) === 0xfeff) piece = piece.slice(1);
-        delimiter ??= guessFormat(piece, opts).delimiter;
-        scanner = new QuoteScanner(delimiter);
-        core.useQuoteScanner(scanner);
-      }
-      done(null, scanner.push(piece));
-    },
-    flush(done) {
-      const rest = decoder.end();
-      done(null, scanner === null ? rest : scanner.end(rest));
-    },
-  });
-  return new Promise((resolve, reject) => {
-    let done = false;
-    const fail = (e: unknown) => {
-      if (!done) {
-        done = true;
-        reject(e);
-      }
-    };
-    stream.on('error', fail);
-    checked.on('error', fail);
-    checked.setEncoding('utf8');
-    stream.pipe(checked);
-    Papa.parse(checked as unknown as string, {
-      ...papaConfig(opts, core),
-      complete: () => {
-        if (done) return;
-        done = true;
-        resolve(core.finish());
-      },
-      // an error thrown while handling rows (e.g. by the caller's callback) reaches papaparse's error hook
-      error: fail,
-    } as unknown as Papa.ParseConfig<string[]>);
-  });
+  const splitter = new LineSplitter();
+  const reader = new CsvReader(file, opts, onObservation);
+  for await (const chunk of stream as AsyncIterable<Buffer | string>) {
+    const b = splitter.push(typeof chunk === 'string' ? Buffer.from(chunk, 'utf8') : chunk);
+    if (b) reader.block(b);
+  }
+  const e = splitter.end();
+  if (e) reader.block(e);
+  const r = reader.finish(splitter.notes());
+  return { report: r.report, stationsSeen: r.stationsSeen, valueCounts: r.valueCounts, units: r.units };
 }
