@@ -13,6 +13,7 @@ import { standardOffsetMinutes } from '../../src/ingest/time.js';
 import { utcOffsetLabel, zoneAtCoordinates } from '../../src/ingest/zones.js';
 import { loadPaths } from '../../src/pipeline.js';
 import { cli, put, tempDir } from '../cli/io.js';
+import { REALDATA_DIR, REALSKILL_DIR, realskillTest } from '../helpers/realdata.js';
 
 const iso = (ms: number) => new Date(ms).toISOString();
 
@@ -173,6 +174,19 @@ test('NCEI LCD file with a stations-file tz: local standard time all year, never
   const h = 'STATION,DATE,REPORT_TYPE,SOURCE,HourlyDryBulbTemperature,HourlyWindDirection,HourlyWindSpeed';
   const r = readCsvText(`${h}\n99999900003,2019-07-01T00:53:00,FM-15,7,84,200,9\n`, 'lcd.csv', { stationZone: () => 'America/Chicago' });
   assert.is(iso(r.observations[0]!.timeMs), '2019-07-01T06:53:00.000Z');
+});
+
+// Real LCD file reduced to a few columns (../shared/realskill/README.md: DATE local standard time all year, ORD
+// UTC−6), no coordinates in it: the stations file's KORD (alias ORD; ../shared/realdata/stations.csv) gives them
+realskillTest(test, 'ORD_2019_LCD_localstd.csv')('real reduced LCD file: zone from the stations file\'s coordinates = --utc-offset −360; --tz reads standard time', () => {
+  const f = REALSKILL_DIR + 'ORD_2019_LCD_localstd.csv';
+  const byCoordinates = loadPaths([f], { stationsFile: REALDATA_DIR + 'stations.csv' }).series.find((s) => s.station === 'KORD')!;
+  const byOffset = loadPaths([f], { offsetMinutes: -360 }).series[0]!;
+  assert.is(byCoordinates.length, byOffset.length);
+  assert.equal([...byCoordinates.timeMs], [...byOffset.timeMs]);
+  // --tz America/Chicago: CST all year too (no daylight time in July), the same instants
+  const byZone = loadPaths([f], { zone: 'America/Chicago' }).series[0]!;
+  assert.equal([...byZone.timeMs], [...byOffset.timeMs]);
 });
 
 test('inspect says which rule gave the zone, and the summary line names it', async () => {
