@@ -13,14 +13,13 @@ import { readCsvText } from '../../src/ingest/csv.js';
 import { ecccProvince, ecccWeatherFlags } from '../../src/ingest/eccc.js';
 import { WX } from '../../src/model/index.js';
 import { loadPaths } from '../../src/pipeline.js';
+import { ECCC_HEADER } from '../helpers/archives.js';
 import { REALSKILL_DIR, realskillTest } from '../helpers/realdata.js';
 
 const iso = (ms: number) => new Date(ms).toISOString();
 
 // ECCC "Hourly data" bulk CSV (climate.weather.gc.ca, the column list of its technical documentation, from memory):
 // every cell quoted, units in brackets, wind direction in tens of degrees, station pressure in kPa, time LST.
-const ECCC_HEADER =
-  '"Longitude (x)","Latitude (y)","Station Name","Climate ID","Date/Time (LST)","Year","Month","Day","Time (LST)","Temp (°C)","Temp Flag","Dew Point Temp (°C)","Dew Point Temp Flag","Rel Hum (%)","Rel Hum Flag","Precip. Amount (mm)","Precip. Amount Flag","Wind Dir (10s deg)","Wind Dir Flag","Wind Spd (km/h)","Wind Spd Flag","Visibility (km)","Visibility Flag","Stn Press (kPa)","Stn Press Flag","Hmdx","Hmdx Flag","Wind Chill","Wind Chill Flag","Weather"';
 const ecccRow = (dt: string, t: string, wd: string, ws: string, p: string) =>
   `"-75.72","45.38","OTTAWA CDA RCS","6105978","${dt}","${dt.slice(0, 4)}","${dt.slice(5, 7)}","${dt.slice(8, 10)}","${dt.slice(11)}","${t}","","-0.4","","94","","0.0","","${wd}","","${ws}","","","","${p}","","","","","","NA"`;
 

@@ -13,6 +13,7 @@ import { standardOffsetMinutes } from '../../src/ingest/time.js';
 import { utcOffsetLabel, zoneAtCoordinates } from '../../src/ingest/zones.js';
 import { loadPaths } from '../../src/pipeline.js';
 import { cli, put, tempDir } from '../cli/io.js';
+import { ECCC_HEADER } from '../helpers/archives.js';
 import { REALDATA_DIR, REALSKILL_DIR, realskillTest } from '../helpers/realdata.js';
 
 const iso = (ms: number) => new Date(ms).toISOString();
@@ -71,10 +72,7 @@ test('no zone where the lookup has only longitude to go by, nor for placeholder 
   assert.ok(!('error' in z) && z.near !== null, JSON.stringify(z));
 });
 
-// ECCC "Hourly data" bulk CSV (climate.weather.gc.ca; the column list of its technical documentation, from memory):
-// every cell quoted, coordinates first, `Date/Time (LST)` local standard time all year. Stations invented.
-const ECCC_HEADER =
-  '"Longitude (x)","Latitude (y)","Station Name","Climate ID","Date/Time (LST)","Year","Month","Day","Time (LST)","Temp (°C)","Temp Flag","Dew Point Temp (°C)","Dew Point Temp Flag","Rel Hum (%)","Rel Hum Flag","Precip. Amount (mm)","Precip. Amount Flag","Wind Dir (10s deg)","Wind Dir Flag","Wind Spd (km/h)","Wind Spd Flag","Visibility (km)","Visibility Flag","Stn Press (kPa)","Stn Press Flag","Hmdx","Hmdx Flag","Wind Chill","Wind Chill Flag","Weather"';
+// ECCC hourly CSV (test/helpers/archives.ts). Stations invented.
 const eccc = (lon: string, lat: string, name: string, id: string, dt: string) =>
   `"${lon}","${lat}","${name}","${id}","${dt}","${dt.slice(0, 4)}","${dt.slice(5, 7)}","${dt.slice(8, 10)}","${dt.slice(11)}","21.4","","12.1","","55","","0.0","","25","","17","","24.1","","99.12","","","","","","NA"`;
 const ecccFile = (...rows: string[]) => [ECCC_HEADER, ...rows].join('\n') + '\n';
