@@ -276,16 +276,22 @@ export function matchHeader(header: string): KnownName | null {
   return null;
 }
 
-/** True when the headers look like an NCEI Local Climatological Data export. */
+/**
+ * True when the headers look like an NCEI Local Climatological Data export: at least three `Hourly…` columns beside
+ * `REPORT_TYPE`, or beside `DATE` (a file reduced to a few LCD columns keeps their names; common practice, no source).
+ * @example isLcdHeaders(['DATE', 'HourlyDryBulbTemperature', 'HourlyWindDirection', 'HourlyWindSpeed']) // true
+ */
 export function isLcdHeaders(headers: readonly string[]): boolean {
   let hourly = 0;
   let reportType = false;
+  let date = false;
   for (const h of headers) {
-    const t = h.trim().toLowerCase();
+    const t = h.trim().replace(/^\uFEFF/, '').toLowerCase();
     if (t.startsWith('hourly')) hourly++;
     if (t === 'report_type') reportType = true;
+    if (t === 'date') date = true;
   }
-  return reportType && hourly >= 3;
+  return (reportType || date) && hourly >= 3;
 }
 
 /**

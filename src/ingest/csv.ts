@@ -45,8 +45,6 @@
  *   (noted). Ids are trimmed, case kept.
  */
 import Papa from 'papaparse';
-import { Transform } from 'node:stream';
-import { StringDecoder } from 'node:string_decoder';
 import { addIssue, emptyObservation, newFileReport, WX, type FileReport, type Observation } from '../model/index.js';
 import { FIELD_QUANTITY, isLcdHeaders, mapColumns, NUMERIC_FIELDS, TIME_PARTS, type ColumnMapping, type ColumnOverride, type NumericField, type UnitSource } from './columns.js';
 import { conversionOf, converter, inferUnit, unitQuantity, type UnitName } from './units.js';
@@ -54,10 +52,11 @@ import { assembleTimeText, makeTimeReader, parseOffsetMinutes, timeColumnIndices
 import { looksLikeStationsFile } from './stations.js';
 import { weatherFlags } from './metar/weather.js';
 import { ecccProvince, ecccWeatherFlags, isEcccHeaders } from './eccc.js';
+import { NEAR_KM, utcOffsetLabel, zoneAtCoordinates } from './zones.js';
 import { dewpointFromRelativeHumidity } from '../physics/dewpoint.js';
 import { MAGNUS_AERK1996 } from '../physics/vapor.js';
 import { lineEndsToLf, normalizeLineEnds, prepareText } from './text.js';
-import type { TextBlock } from './lines.js';
+import { LineSplitter, type TextBlock } from './lines.js';
 import { DEFAULT_TIME_WINDOW, outOfWindowMessage, type TimeWindow } from './plausible.js';
 
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
@@ -77,6 +76,8 @@ export interface CsvOptions {
   defaultStation?: string;
   /** The IANA zone of a station's naive local times (the stations file's `tz`), when neither zone nor offset is given. */
   stationZone?: (station: string) => string | undefined;
+  /** A station's coordinates (the stations file's), for the zone of local-standard-time files that give none (zones.ts). */
+  stationPosition?: (station: string) => { latDeg: number; lonDeg: number } | undefined;
   /** The station id a file without a station column takes from its name, and the rule that gave it (stations.ts). */
   stationFromFileName?: (file: string) => { id: string; rule: string };
   /** Force a delimiter (default: detect among comma, tab, semicolon, pipe). */
@@ -341,6 +342,12 @@ export class CsvCore {
   /** ECCC LST times without --tz/--utc-offset: each row's offset from its Climate ID (eccc.ts), per id. */
   private ecccZone = false;
   private ecccReaders = new Map<string, TimeReader | null>();
+  /** Local standard time with no zone from the rules before: the zone at the station's coordinates (zones.ts), per station. */
+  private coordZone = false;
+  private coordReaders = new Map<string, TimeReader | null>();
+  private coordMissing = new Set<string>();
+  /** Reads a naive time as if UTC: the year of a row, before its zone is known. */
+  private yearProbe: TimeReader | null = null;
   private lastTime = new Map<string, number>();
   private decimalComma = false;
   private aborted = false;
@@ -406,11 +413,6 @@ export class CsvCore {
   useTextChecks(q: QuoteCheck | null, hasNul: boolean): void {
     if (q) this.quoteBad = q.bad.size ? q.bad : null;
     this.checkNul = hasNul;
-  }
-
-  /** Take the lines a QuoteScanner rejects as it goes (a stream: its map fills before papaparse sees the lines). */
-  useQuoteScanner(scanner: QuoteScanner): void {
-    this.quoteBad = scanner.bad;
   }
 
   /**
@@ -689,28 +691,34 @@ export class CsvCore {
       );
     }
     let standardTime = this.opts.standardTime;
-    if (utcBecause === null && offsetMinutes !== undefined) this.assume(`naive times at UTC${offsetMinutes < 0 ? '−' : '+'}${Math.floor(Math.abs(offsetMinutes) / 60)}${Math.abs(offsetMinutes) % 60 ? ':' + String(Math.abs(offsetMinutes) % 60).padStart(2, '0') : ''} (given)`);
+    if (utcBecause === null && offsetMinutes !== undefined) this.assume(`naive times at ${utcOffsetLabel(offsetMinutes)} (given)`);
     else if (utcBecause === null && zone !== undefined) this.assume(`naive times in ${zone} (given)`);
     if (standardTime === undefined && /(^|[^a-z])lst([^a-z]|$)/.test(th)) {
       standardTime = true;
       this.assume('local standard time all year');
       report.notes.push('times read as local standard time all year (the time column says LST, as in Environment and Climate Change Canada files)');
     }
+    if (standardTime === undefined && isLcdHeaders(fields)) {
+      standardTime = true;
+      this.assume('local standard time all year');
+      report.notes.push('times read as local standard time all year (NCEI LCD convention)');
+    }
     this.fileStandardTime = !!standardTime;
-    if (utcBecause === null && zone === undefined && offsetMinutes === undefined && this.opts.stationZone !== undefined && !epoch) this.zoneByStation = true;
+    const noZoneGiven = utcBecause === null && zone === undefined && offsetMinutes === undefined && !epoch;
+    if (noZoneGiven && this.opts.stationZone !== undefined) this.zoneByStation = true;
+    // local standard time and nothing else names the zone: the zone at the station's coordinates (never for
+    // times UTC by convention, nor for naive times that may keep daylight saving)
+    const latLon = mapping.lat && mapping.lon ? `the file's ${mapping.lat.header.trim()} and ${mapping.lon.header.trim()} columns` : null;
+    if (noZoneGiven && this.fileStandardTime && this.offsetCol === NO_COL && (latLon !== null || this.opts.stationPosition !== undefined)) this.coordZone = true;
+    const byCoordinates = this.coordZone ? ` take the standard time of the zone at the station's coordinates (${latLon ?? 'the stations file'}), else they` : '';
     if (isEcccHeaders(fields)) {
       this.ecccWords = this.wxCol !== NO_COL;
       if (utcBecause === null && zone === undefined && offsetMinutes === undefined && this.stationCol !== NO_COL && /(^|[^a-z])lst([^a-z]|$)/.test(th)) {
         this.ecccZone = true;
         report.notes.push(
-          'no --tz or --utc-offset: the standard time of each row is taken from the province its Climate ID names, where the province keeps one (AB, MB, NB, NS, PE, NT); rows of other provinces need --utc-offset (e.g. -300 for Eastern Standard Time) or --tz',
+          `no --tz or --utc-offset: the standard time of each row is taken from the province its Climate ID names, where the province keeps one (AB, MB, NB, NS, PE, NT); rows of other provinces${byCoordinates} need --utc-offset (e.g. -300 for Eastern Standard Time) or --tz`,
         );
       }
-    }
-    if (standardTime === undefined && isLcdHeaders(fields)) {
-      standardTime = true;
-      this.assume('local standard time all year');
-      report.notes.push('times read as local standard time all year (NCEI LCD convention)');
     }
     this.timeParser = makeTimeReader({
       ...(zone !== undefined ? { zone } : {}),
@@ -879,7 +887,7 @@ export class CsvCore {
 
   private timeOf(line: number): number {
     if (this.timeColumns !== null) return this.assembledTimeOf(line, this.timeColumns);
-    if (this.rowFields === null && this.offsetCol === NO_COL && !this.ecccZone && !this.zoneByStation) {
+    if (this.rowFields === null && this.offsetCol === NO_COL && !this.ecccZone && !this.zoneByStation && !this.coordZone) {
       // line mode: the common ISO form straight from the bytes
       const ms = this.timeParser!.readQuickBytes(this.rowBytes, this.cellStart[this.timeCol]!, this.cellEnd[this.timeCol]!);
       if (ms === ms) return ms;
@@ -915,9 +923,13 @@ export class CsvCore {
   /** A time text read with the file's reader, or the reader for the row's UTC-offset cell. */
   private readTime(line: number, raw: string): number {
     let parser = this.timeParser!;
-    // a zone the stations file gives for the row's station, else (ECCC) the Climate ID's province
-    if (this.zoneByStation) parser = this.stationZoneReader() ?? (this.ecccZone ? this.ecccReader() : null) ?? parser;
-    else if (this.ecccZone) parser = this.ecccReader() ?? parser;
+    // a zone the stations file gives for the row's station, else (ECCC) the Climate ID's province, else (local
+    // standard time) the zone at the station's coordinates
+    let r: TimeReader | null = null;
+    if (this.zoneByStation) r = this.stationZoneReader();
+    if (r === null && this.ecccZone) r = this.ecccReader();
+    if (r === null && this.coordZone) r = this.coordinateReader(raw);
+    if (r !== null) parser = r;
     if (this.offsetCol !== NO_COL) {
       const off = parseOffsetMinutes(this.offsetCol < this.cells() ? this.cell(this.offsetCol) : '');
       if (Number.isFinite(off) && Math.abs(off) <= 18 * 60) {
@@ -933,7 +945,7 @@ export class CsvCore {
 
   /** The time reader in the stations file's zone of the current row's station, or null (none listed). */
   private stationZoneReader(): TimeReader | null {
-    const id = this.stationCol === NO_COL ? this.defaultStation : this.stationCol < this.cells() ? this.cell(this.stationCol).trim() : '';
+    const id = this.rowStation();
     let r = this.stationReaders.get(id);
     if (r === undefined) {
       const zone = id === '' ? undefined : this.opts.stationZone!(id);
@@ -958,13 +970,85 @@ export class CsvCore {
       if (this.ecccReaders.size < 10000) this.ecccReaders.set(id, r);
       if (off !== null) {
         this.assume('standard time from the ECCC Climate ID province');
-        this.report.notes.push(`Climate ID ${id}: ${p!.name}, LST read as UTC${off < 0 ? '−' : '+'}${Math.abs(off) / 60}`);
-      } else if (id !== '') {
+        this.report.notes.push(`Climate ID ${id}: ${p!.name}, LST read as ${utcOffsetLabel(off)}`);
+      } else if (id !== '' && !this.coordZone) {
         this.report.notes.push(
           `Climate ID ${id}: ${p ? `${p.name} keeps more than one standard time` : 'names no known province'}; its rows need --utc-offset MINUTES or --tz ZONE`,
         );
       }
     }
+    return r;
+  }
+
+  /** The current row's station id (the station column, else the file's default). */
+  private rowStation(): string {
+    return this.stationCol === NO_COL ? this.defaultStation : this.stationCol < this.cells() ? this.cell(this.stationCol).trim() : '';
+  }
+
+  /**
+   * The time reader in the standard time of the zone at the current row's station (zones.ts), or null: no
+   * coordinates (the row's lat/lon cells, else the stations file's), none that give a civil zone, or (ECCC) a zone
+   * whose standard time is none of the province's. Decided once per station, on its first row with coordinates.
+   */
+  private coordinateReader(raw: string): TimeReader | null {
+    const id = this.rowStation();
+    const known = this.coordReaders.get(id);
+    if (known !== undefined) return known;
+    const latCol = this.mapping.lat?.index ?? NO_COL;
+    const lonCol = this.mapping.lon?.index ?? NO_COL;
+    let latDeg = NaN;
+    let lonDeg = NaN;
+    let from = '';
+    if (latCol !== NO_COL && lonCol !== NO_COL && latCol < this.cells() && lonCol < this.cells()) {
+      latDeg = plainNumber(this.cell(latCol).trim());
+      lonDeg = plainNumber(this.cell(lonCol).trim());
+      from = "the station's coordinates";
+    }
+    if (!(latDeg === latDeg && lonDeg === lonDeg)) {
+      const p = id === '' ? undefined : this.opts.stationPosition?.(id);
+      if (p && p.latDeg === p.latDeg && p.lonDeg === p.lonDeg) {
+        latDeg = p.latDeg;
+        lonDeg = p.lonDeg;
+        from = "the station's coordinates in the stations file";
+      } else {
+        // the row has no coordinates: a later row of the station may (none will when the file has no such columns)
+        const why = `station ${id}: no coordinates for the zone (${latCol === NO_COL || lonCol === NO_COL ? 'none in the file' : 'empty or unreadable cells'}, none in a stations file); its rows without them need --utc-offset MINUTES or --tz ZONE`;
+        if (latCol === NO_COL || lonCol === NO_COL) this.keepCoordReader(id, null, why);
+        else if (!this.coordMissing.has(id) && this.coordMissing.size < 100) {
+          this.coordMissing.add(id);
+          this.report.notes.push(why);
+        }
+        return null;
+      }
+    }
+    this.yearProbe ??= makeTimeReader({ offsetMinutes: 0 });
+    const probe = this.yearProbe.read(raw);
+    if (probe !== probe) return null; // not a time: rejected by the file's reader, with its reason
+    const year = new Date(probe).getUTCFullYear();
+    const at = `${latDeg}, ${lonDeg}`;
+    const z = zoneAtCoordinates(latDeg, lonDeg, year);
+    if ('error' in z) {
+      this.keepCoordReader(id, null, `station ${id}: no zone from its coordinates (${at}): ${z.error}; its rows need --utc-offset MINUTES or --tz ZONE`);
+      return null;
+    }
+    const zoneText = `zone ${utcOffsetLabel(z.standardOffsetMinutes)} (standard time of ${z.zone}, from ${from})`;
+    const province = this.ecccZone ? ecccProvince(id) : null;
+    if (province && !province.standardOffsetsMinutes.includes(z.standardOffsetMinutes)) {
+      this.keepCoordReader(
+        id,
+        null,
+        `station ${id}: ${zoneText} refused: ${province.name} keeps ${province.standardOffsetsMinutes.map(utcOffsetLabel).join(' and ')} (check the sign of the longitude, ${at}); its rows need --utc-offset MINUTES or --tz ZONE`,
+      );
+      return null;
+    }
+    const near = z.near ? `; within about ${NEAR_KM} km of ${z.near.zone} (${utcOffsetLabel(z.near.standardOffsetMinutes)}): check it, a tz in the stations file wins` : '';
+    this.assume(`zone from the station's coordinates (${utcOffsetLabel(z.standardOffsetMinutes)}, ${z.zone}${z.near ? ', near a zone boundary' : ''})`);
+    return this.keepCoordReader(id, makeTimeReader({ zone: z.zone, standardTime: true }), `station ${id}: ${zoneText}, ${at}${near}`);
+  }
+
+  private keepCoordReader(id: string, r: TimeReader | null, note: string): TimeReader | null {
+    if (this.coordReaders.size < 10000) this.coordReaders.set(id, r);
+    if (this.coordReaders.size <= 100) this.report.notes.push(note);
     return r;
   }
 
@@ -1384,48 +1468,6 @@ export function checkQuotes(text: string, delimiter: string, at: QuoteCheckAt = 
   return { text: out, bad, continued, end, headerFields };
 }
 
-/**
- * checkQuotes on a text that arrives in pieces (a Node stream, readCsvStream): `push` takes the next piece and
- * gives back the text whose records are decided (unclosed quotes blanked, line ends kept), holding back what
- * the next piece may still change (checkQuotes with `more`); `end` gives the rest. The pieces given back,
- * joined, are what checkQuotes gives for the whole text, and `bad` fills as they are given.
- */
-export class QuoteScanner {
-  /** Physical line (1-based) → reason and message, as QuoteCheck.bad; filled as records are decided. */
-  readonly bad = new Map<number, { reason: string; message: string }>();
-  /** Physical lines that continue a multi-line record. */
-  continued = 0;
-  private readonly d: string;
-  private headerFields = -1;
-  /** Physical line of the first character held back. */
-  private line = 1;
-  private held = '';
-
-  constructor(delimiter: string) {
-    this.d = delimiter;
-  }
-
-  /** The next piece of the text; returns the decided text before it (possibly empty). */
-  push(piece: string): string {
-    return this.scan(this.held + piece, true);
-  }
-
-  /** The last piece (may be empty): returns the rest of the decided text. */
-  end(piece = ''): string {
-    return this.scan(this.held + piece, false);
-  }
-
-  private scan(text: string, more: boolean): string {
-    const q = checkQuotes(text, this.d, { firstLine: this.line, headerFields: this.headerFields, more });
-    for (const [line, v] of q.bad) this.bad.set(line, v);
-    this.continued += q.continued;
-    this.headerFields = q.headerFields;
-    for (let k = text.indexOf('\n'); k >= 0 && k < q.end; k = text.indexOf('\n', k + 1)) this.line++;
-    this.held = q.end < text.length ? text.slice(q.end) : '';
-    return q.text;
-  }
-}
-
 /** papaparse options in chunk mode (`chunk` is not in the synchronous `ParseConfig` type). */
 type ChunkConfig = Papa.ParseConfig<string[]> & {
   chunk: (results: Papa.ParseResult<string[]>, parser: Papa.Parser) => void;
@@ -1720,63 +1762,28 @@ function lfText(u: Buffer): string {
 }
 
 /**
- * Read a CSV from a Node readable stream, calling `onObservation` for each parsed row (memory stays flat).
- * The text goes through a QuoteScanner on its way to papaparse, so an unclosed quote rejects its line only
- * (`bad-quotes`), as in readCsvText (the scanner takes the option's delimiter, or papaparse's guess from the
- * first piece, as papaparse does).
+ * Read a CSV from a Node readable stream, calling `onObservation` for each parsed row (memory stays flat). The
+ * bytes go the way the command line reads a file: cut into blocks of whole lines (LineSplitter: encoding, BOM,
+ * line ends) and read by a CsvReader (quotes checked piece by piece, so an unclosed quote rejects its line only,
+ * `bad-quotes`; pieces without quotes scanned in place). Chunks may be Buffers or strings (a stream with an
+ * encoding set).
  * Resolves with the report when the stream ends; rejects on stream errors and on errors thrown by
  * `onObservation` (bad data never throws: it is counted in the report).
  */
-export function readCsvStream(
+export async function readCsvStream(
   stream: NodeJS.ReadableStream,
   file: string,
   opts: CsvOptions,
   onObservation: (o: Observation) => void,
 ): Promise<CsvResult> {
-  const core = new CsvCore(file, opts, onObservation);
-  const s = stream as NodeJS.ReadableStream & { setEncoding?: (e: BufferEncoding) => unknown };
-  if (typeof s.setEncoding === 'function') s.setEncoding('utf8');
-  const decoder = new StringDecoder('utf8');
-  let scanner: QuoteScanner | null = null;
-  let delimiter = opts.delimiter;
-  const checked = new Transform({
-    transform(chunk: Buffer | string, _enc, done) {
-      let piece = typeof chunk === 'string' ? chunk : decoder.write(chunk);
-      if (scanner === null) {
-        if (piece === '') return done();
-        if (piece.charCodeAt(0) === 0xfeff) piece = piece.slice(1);
-        delimiter ??= guessFormat(piece, opts).delimiter;
-        scanner = new QuoteScanner(delimiter);
-        core.useQuoteScanner(scanner);
-      }
-      done(null, scanner.push(piece));
-    },
-    flush(done) {
-      const rest = decoder.end();
-      done(null, scanner === null ? rest : scanner.end(rest));
-    },
-  });
-  return new Promise((resolve, reject) => {
-    let done = false;
-    const fail = (e: unknown) => {
-      if (!done) {
-        done = true;
-        reject(e);
-      }
-    };
-    stream.on('error', fail);
-    checked.on('error', fail);
-    checked.setEncoding('utf8');
-    stream.pipe(checked);
-    Papa.parse(checked as unknown as string, {
-      ...papaConfig(opts, core),
-      complete: () => {
-        if (done) return;
-        done = true;
-        resolve(core.finish());
-      },
-      // an error thrown while handling rows (e.g. by the caller's callback) reaches papaparse's error hook
-      error: fail,
-    } as unknown as Papa.ParseConfig<string[]>);
-  });
+  const splitter = new LineSplitter();
+  const reader = new CsvReader(file, opts, onObservation);
+  for await (const chunk of stream as AsyncIterable<Buffer | string>) {
+    const b = splitter.push(typeof chunk === 'string' ? Buffer.from(chunk, 'utf8') : chunk);
+    if (b) reader.block(b);
+  }
+  const e = splitter.end();
+  if (e) reader.block(e);
+  const r = reader.finish(splitter.notes());
+  return { report: r.report, stationsSeen: r.stationsSeen, valueCounts: r.valueCounts, units: r.units };
 }

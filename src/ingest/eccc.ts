@@ -6,7 +6,9 @@
  *   province or territory (from memory of the ECCC station inventory; not re-checked against a printed
  *   source). A province gives the UTC offset only where all of it keeps one standard time; the others
  *   (British Columbia, Saskatchewan's Lloydminster area, Ontario, Quebec, Newfoundland and Labrador, Yukon,
- *   Nunavut) still need `--tz` or `--utc-offset`. Longitude is never used as a zone.
+ *   Nunavut) take the zone at the station's coordinates (zones.ts), and a zone found there whose standard time
+ *   is none of the province's is refused (a longitude whose sign was lost, say); without coordinates they need
+ *   `--tz` or `--utc-offset`. Longitude alone is never used as a zone.
  * - `Weather` holds words ("Rain", "Snow Showers", "Freezing Rain,Fog"), read here into the WX flags the
  *   METAR decoder gives the matching WMO-No. 306 code table 4678 groups (words and their meaning from
  *   memory of the ECCC historical climate data glossary, "Weather").
@@ -21,34 +23,43 @@ export interface EcccProvince {
   name: string;
   /** Its one standard time as minutes east of UTC, or null when it keeps more than one. */
   standardOffsetMinutes: number | null;
+  /** Every standard time its zones keep (minutes east of UTC). */
+  standardOffsetsMinutes: readonly number[];
 }
 
 /**
  * Leading characters of a climate identifier → province (from memory, see the module comment). Standard
  * offsets: Mountain −7 h, Central −6 h, Atlantic −4 h (IANA tz database: America/Edmonton, America/Winnipeg,
- * America/Halifax, America/Moncton, America/Yellowknife).
+ * America/Halifax, America/Moncton, America/Yellowknife). The standard times of the provinces with several are
+ * those of the zones the IANA tz database's zone.tab names for them in its comments: BC Pacific and Mountain
+ * (America/Vancouver; America/Edmonton "BC(E)", Creston, Dawson_Creek, Fort_Nelson MST), Yukon Pacific until 2020
+ * and MST since (America/Whitehorse, America/Dawson), Nunavut Eastern, Central and Mountain (Iqaluit, Atikokan
+ * "NU (Coral H)", Rankin_Inlet, Resolute, Cambridge_Bay), Saskatchewan Central and Mountain (Regina,
+ * Swift_Current; America/Edmonton "SK(W)"), Ontario Eastern and Central (Toronto, Atikokan; America/Winnipeg
+ * "ON (west)"), Quebec Eastern and Atlantic (Toronto; Blanc-Sablon "QC (Lower North Shore)"), Newfoundland and
+ * Labrador Newfoundland and Atlantic time (St_Johns; Goose_Bay).
  */
 const PROVINCES: readonly [prefix: string, p: EcccProvince][] = [
-  ['1', { code: 'BC', name: 'British Columbia', standardOffsetMinutes: null }],
-  ['21', { code: 'YT', name: 'Yukon', standardOffsetMinutes: null }],
-  ['22', { code: 'NT', name: 'Northwest Territories', standardOffsetMinutes: -420 }],
-  ['23', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null }],
-  ['24', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null }],
-  ['25', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null }],
-  ['3', { code: 'AB', name: 'Alberta', standardOffsetMinutes: -420 }],
-  ['4', { code: 'SK', name: 'Saskatchewan', standardOffsetMinutes: null }],
-  ['5', { code: 'MB', name: 'Manitoba', standardOffsetMinutes: -360 }],
-  ['6', { code: 'ON', name: 'Ontario', standardOffsetMinutes: null }],
-  ['7', { code: 'QC', name: 'Quebec', standardOffsetMinutes: null }],
-  ['81', { code: 'NB', name: 'New Brunswick', standardOffsetMinutes: -240 }],
-  ['82', { code: 'NS', name: 'Nova Scotia', standardOffsetMinutes: -240 }],
-  ['83', { code: 'PE', name: 'Prince Edward Island', standardOffsetMinutes: -240 }],
-  ['84', { code: 'NL', name: 'Newfoundland and Labrador', standardOffsetMinutes: null }],
+  ['1', { code: 'BC', name: 'British Columbia', standardOffsetMinutes: null, standardOffsetsMinutes: [-480, -420] }],
+  ['21', { code: 'YT', name: 'Yukon', standardOffsetMinutes: null, standardOffsetsMinutes: [-480, -420] }],
+  ['22', { code: 'NT', name: 'Northwest Territories', standardOffsetMinutes: -420, standardOffsetsMinutes: [-420] }],
+  ['23', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -360, -420] }],
+  ['24', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -360, -420] }],
+  ['25', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -360, -420] }],
+  ['3', { code: 'AB', name: 'Alberta', standardOffsetMinutes: -420, standardOffsetsMinutes: [-420] }],
+  ['4', { code: 'SK', name: 'Saskatchewan', standardOffsetMinutes: null, standardOffsetsMinutes: [-360, -420] }],
+  ['5', { code: 'MB', name: 'Manitoba', standardOffsetMinutes: -360, standardOffsetsMinutes: [-360] }],
+  ['6', { code: 'ON', name: 'Ontario', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -360] }],
+  ['7', { code: 'QC', name: 'Quebec', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -240] }],
+  ['81', { code: 'NB', name: 'New Brunswick', standardOffsetMinutes: -240, standardOffsetsMinutes: [-240] }],
+  ['82', { code: 'NS', name: 'Nova Scotia', standardOffsetMinutes: -240, standardOffsetsMinutes: [-240] }],
+  ['83', { code: 'PE', name: 'Prince Edward Island', standardOffsetMinutes: -240, standardOffsetsMinutes: [-240] }],
+  ['84', { code: 'NL', name: 'Newfoundland and Labrador', standardOffsetMinutes: null, standardOffsetsMinutes: [-210, -240] }],
 ];
 
 /**
  * The province or territory an ECCC climate identifier names (seven characters, the first a digit), or null.
- * @example ecccProvince('8202250') // { code: 'NS', name: 'Nova Scotia', standardOffsetMinutes: -240 }
+ * @example ecccProvince('8202250') // { code: 'NS', name: 'Nova Scotia', standardOffsetMinutes: -240, standardOffsetsMinutes: [-240] }
  */
 export function ecccProvince(climateId: string): EcccProvince | null {
   const id = climateId.trim().toUpperCase();

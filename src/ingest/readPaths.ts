@@ -510,6 +510,8 @@ export function readDataFiles(
   };
   // the stations file's zones, for CSV times that give none (only when it lists any)
   if (index !== undefined && [...index.byId.values()].some((m) => m.timeZone !== undefined)) csvOpts.stationZone = (id) => resolveStation(index, id).meta?.timeZone;
+  // and their coordinates, for local-standard-time files that name no zone (the zone at the station)
+  if (index !== undefined && [...index.byId.values()].some((m) => Number.isFinite(m.latDeg) && Number.isFinite(m.lonDeg))) csvOpts.stationPosition = (id) => resolveStation(index, id).meta;
   const csvSinkOpts: CsvOptions = { ...csvOpts, reuseObservation: true };
   for (const f of dataFiles) {
     if (f.format === 'metar') {

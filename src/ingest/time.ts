@@ -269,6 +269,16 @@ class ZoneOffsets {
   }
 }
 
+/**
+ * The standard (non-DST) offset of an IANA zone in `year`, minutes east of UTC: the smaller of its 1 January and
+ * 1 July offsets (module comment), the offset `standardTime: true` reads naive times with.
+ * @example standardOffsetMinutes('Australia/Sydney', 2023) // 600 (AEST; the January offset +660 is daylight time)
+ */
+export function standardOffsetMinutes(zone: string, year: number): number {
+  if (!IANAZone.isValidZone(zone)) throw new RangeError(`unknown time zone "${zone}"`);
+  return new ZoneOffsets(zone).standard(year);
+}
+
 function fmtOffset(min: number): string {
   const s = min < 0 ? '-' : '+';
   const a = Math.abs(min);

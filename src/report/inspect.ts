@@ -205,7 +205,7 @@ export function summaryLine(files: readonly InspectFile[]): string {
   const conflicts = [...stations.values()].reduce((a, d) => a + d.conflicts.length, 0);
   let line = `${files.length} file(s), ${parsed} line(s) parsed, ${rejected} rejected${rejected > 0 ? ` (${counts(reasons)})` : ''}, ${stations.size} station(s)`;
   const zoneless = reasons['needs-zone'] ?? 0;
-  if (zoneless > 0) line += `; ${zoneless} line(s) have local times and no zone: give --tz ZONE or --utc-offset MINUTES`;
+  if (zoneless > 0) line += `; ${zoneless} line(s) have local times and no zone: give --tz ZONE or --utc-offset MINUTES, or a stations file with the station's tz (for local standard time, its lat and lon will do)`;
   if (assumed.size) line += `; assumed: ${[...assumed].map(([a, n]) => `${a} (${n} file${n === 1 ? '' : 's'})`).join(', ')}`;
   if (dups > 0) line += `; ${dups} duplicate time(s)${conflicts > 0 ? ` (${conflicts} with differing values, resolved by rule: inspect lists them)` : ''}`;
   return line;

@@ -13,14 +13,13 @@ import { readCsvText } from '../../src/ingest/csv.js';
 import { ecccProvince, ecccWeatherFlags } from '../../src/ingest/eccc.js';
 import { WX } from '../../src/model/index.js';
 import { loadPaths } from '../../src/pipeline.js';
+import { ECCC_HEADER } from '../helpers/archives.js';
 import { REALSKILL_DIR, realskillTest } from '../helpers/realdata.js';
 
 const iso = (ms: number) => new Date(ms).toISOString();
 
 // ECCC "Hourly data" bulk CSV (climate.weather.gc.ca, the column list of its technical documentation, from memory):
 // every cell quoted, units in brackets, wind direction in tens of degrees, station pressure in kPa, time LST.
-const ECCC_HEADER =
-  '"Longitude (x)","Latitude (y)","Station Name","Climate ID","Date/Time (LST)","Year","Month","Day","Time (LST)","Temp (°C)","Temp Flag","Dew Point Temp (°C)","Dew Point Temp Flag","Rel Hum (%)","Rel Hum Flag","Precip. Amount (mm)","Precip. Amount Flag","Wind Dir (10s deg)","Wind Dir Flag","Wind Spd (km/h)","Wind Spd Flag","Visibility (km)","Visibility Flag","Stn Press (kPa)","Stn Press Flag","Hmdx","Hmdx Flag","Wind Chill","Wind Chill Flag","Weather"';
 const ecccRow = (dt: string, t: string, wd: string, ws: string, p: string) =>
   `"-75.72","45.38","OTTAWA CDA RCS","6105978","${dt}","${dt.slice(0, 4)}","${dt.slice(5, 7)}","${dt.slice(8, 10)}","${dt.slice(11)}","${t}","","-0.4","","94","","0.0","","${wd}","","${ws}","","","","${p}","","","","","","NA"`;
 
@@ -39,9 +38,14 @@ test('ECCC hourly CSV: bracketed units, tens of degrees, kPa, LST as standard ti
   assert.is(o.latDeg, 45.38);
   assert.ok(Number.isNaN(r.observations[1]!.temperatureC)); // empty = missing
   assert.ok(r.report.notes.some((n) => n.includes('local standard time all year')));
-  // without a zone the LST rows are counted as needing one, never dropped
+  // without a zone the LST rows take the standard time of the zone at the station's coordinates (Ottawa:
+  // America/Toronto, UTC−5 standard, IANA tz database) ...
   const z = readCsvText(text, 'e.csv', {});
-  assert.equal(z.report.rejectedByReason, { 'needs-zone': 2 });
+  assert.equal(z.report.rejectedByReason, {});
+  assert.is(iso(z.observations[0]!.timeMs), '2023-07-01T05:00:00.000Z');
+  // ... and without coordinates either they are counted as needing one, never dropped
+  const noPos = readCsvText(text.replaceAll('"-75.72","45.38"', '"",""'), 'e.csv', {});
+  assert.equal(noPos.report.rejectedByReason, { 'needs-zone': 2 });
 });
 
 const ecccRowAt = (id: string, dt: string, weather: string) =>
@@ -58,10 +62,16 @@ test('ECCC hourly CSV without --tz: LST offset from the Climate ID province wher
   assert.ok(r.report.notes.some((n) => n === 'Climate ID 8202250: Nova Scotia, LST read as UTC−4'), r.report.notes.join('\n'));
   // an offset given wins over the province (UTC−5 given: 05:00 UTC)
   assert.is(iso(readCsvText(text, 'e.csv', { offsetMinutes: -300 }).observations[0]!.timeMs), '2023-07-01T05:00:00.000Z');
-  // Ontario (prefix 6) keeps Eastern and Central standard time: its rows still need a zone, and the note says why
+  // Ontario (prefix 6) keeps Eastern and Central standard time: the zone comes from the coordinates, and these
+  // (Nova Scotia's: America/Halifax, UTC−4) give none of Ontario's standard times, so its rows still need a zone
   const on = readCsvText([ECCC_HEADER, ecccRowAt('6105978', '2023-07-01 00:00', '')].join('\n') + '\n', 'e.csv', {});
   assert.equal(on.report.rejectedByReason, { 'needs-zone': 1 });
-  assert.ok(on.report.notes.some((n) => n.startsWith('Climate ID 6105978: Ontario keeps more than one standard time; its rows need --utc-offset')));
+  assert.ok(
+    on.report.notes.includes(
+      "station 6105978: zone UTC−4 (standard time of America/Halifax, from the station's coordinates) refused: Ontario keeps UTC−5 and UTC−6 (check the sign of the longitude, 44.88, -63.51); its rows need --utc-offset MINUTES or --tz ZONE",
+    ),
+    on.report.notes.join('\n'),
+  );
 });
 
 test('loadPaths: naive CSV times take the zone the stations file gives the station (tz), before the Climate ID rule', () => {
@@ -110,7 +120,10 @@ test('ECCC Weather words give the WX flags of the matching METAR groups (code ta
 
 test('ecccProvince(id): the province a climate identifier names, its one standard offset or null', () => {
   // prefixes from memory of the ECCC station inventory (module comment of src/ingest/eccc.ts)
-  assert.equal(ecccProvince('3031093'), { code: 'AB', name: 'Alberta', standardOffsetMinutes: -420 });
+  assert.equal(ecccProvince('3031093'), { code: 'AB', name: 'Alberta', standardOffsetMinutes: -420, standardOffsetsMinutes: [-420] });
+  // the standard times of a province with several (IANA tz database zone.tab comments: Pacific "BC (most areas)",
+  // Mountain "BC(E)" and MST Creston, Dawson Creek, Fort Nelson)
+  assert.equal(ecccProvince('1108447')?.standardOffsetsMinutes, [-480, -420]);
   assert.equal(ecccProvince('8300300')?.code, 'PE');
   assert.is(ecccProvince('1108447')?.standardOffsetMinutes, null); // British Columbia: Pacific and Mountain
   assert.is(ecccProvince('9999999'), null);
