@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Argv } from 'yargs';
-import { loadMappingFile, parseColumnOverride, UsageError, writeFilesSafely, type LoadOptions, type SafeWriteOptions, buildInspect, summaryLine, type LoadResult } from '../src/index.js';
+import { loadMappingFile, parseColumnOverride, UsageError, writeFilesSafely, type LoadOptions, type SafeWriteOptions, buildInspect, inspectFiles, summaryLine, type LoadResult, type StreamedLoad } from '../src/index.js';
 
 /** Standard streams of one CLI run, injectable for in-process tests. */
 export interface CliIo {
@@ -159,7 +159,8 @@ export function inputFiles(reports: readonly { file: string }[], extra: readonly
 }
 
 /** The one-line summary of what was read, rejected and assumed (the line `inspect` ends with), on standard error unless --quiet. */
-export function printLoadSummary(result: LoadResult, quiet: boolean, io: CliIo): void {
+export function printLoadSummary(result: LoadResult | StreamedLoad, quiet: boolean, io: CliIo): void {
   if (quiet) return;
-  io.stderr(`fropa: ${summaryLine(buildInspect(result.reports, result.series, result.qc))}\n`);
+  const files = 'series' in result ? buildInspect(result.reports, result.series, result.qc) : inspectFiles(result.reports, result.details);
+  io.stderr(`fropa: ${summaryLine(files)}\n`);
 }

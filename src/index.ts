@@ -28,7 +28,7 @@ export type {
 // The pipeline: read → series → station pressure → QC (loadPaths); detect → track → frontogenesis (analyseSeries).
 export { analyseSeries, analyseSeriesParallel, loadPaths, sortEvents, type ParallelAnalyseOptions, type StationFailure } from './pipeline.js';
 export { defaultJobs } from './parallel/detectPool.js';
-export { analyseShard, mergeShards } from './pipeline.js';
+export { analyseShard, detectPaths, mergeShards, type StreamOptions, type StreamedLoad } from './pipeline.js';
 export { fnv1a32, inShard, parseShard, shardFromNdjson, type ShardContent, type ShardSpec } from './parallel/shard.js';
 export type { AnalyseOptions, Analysis, LoadOptions, LoadResult } from './pipeline.js';
 
@@ -72,7 +72,7 @@ export { eventsInPeriod, parsePeriodTime, periodOutsideData, selectStations } fr
 export { reportHtml } from './report/html/reportHtml.js';
 export { loadGeography, type Geography } from './report/html/geography.js';
 export type { ReportFile, ReportInput } from './report/html/reportHtml.js';
-export { buildInspect, inspectToTable, issueLine, noDataMessage, summaryLine } from './report/inspect.js';
+export { buildInspect, inspectFiles, inspectToTable, issueLine, noDataMessage, summaryLine } from './report/inspect.js';
 export type { InspectFile, InspectStation } from './report/inspect.js';
 export { VERIFY_COLUMNS, verificationRecords, verificationToCsv, verificationToJson, verificationToTable } from './verify/format.js';
 export type { VerifyColumn, VerifyRecord, VerifyTableContext } from './verify/format.js';
