@@ -12,7 +12,8 @@ import type { QcSummary } from './qc/qc.js';
 import type { DetectOptions } from './detect/types.js';
 import { checkDetectOptions, DEFAULT_MIN_CONFIDENCE } from './detect/detect.js';
 import { trackFronts, withTrackSpeeds } from './network/track.js';
-import { withFrontogenesisFields, type StationFields } from './network/frontogenesis.js';
+import { withFrontogenesisFields, type StationFields, type StationFieldsRef } from './network/frontogenesis.js';
+import { FieldSpill } from './parallel/fieldSpill.js';
 import { withNetworkCoherence } from './network/coherence.js';
 import { defaultJobs, detectInPool, WorkerPool, type PoolResult, type PoolTask, type StationOutcome } from './parallel/detectPool.js';
 import { censusFile, detectOutcome, fileForWorker, networkStation, prepareContext, readableByPath, stationSeries, stationWork, type FileCensus, type PreparedContext, type RunContext, type StationPart, type StationResult, type StationTask } from './parallel/stationWork.js';
@@ -167,7 +168,13 @@ function networkStage(series: readonly StationSeries[], outcomes: readonly Stati
  * Tracking, network coherence, frontogenesis and track speeds over the stations that were detected
  * (`events`: their passages at the detection floor, in station order). Failed stations take no part.
  */
-function finishAnalysis(stations: readonly ShardStation[], events: PassageEvent[], opts: AnalyseOptions, plan: { network: boolean; minConfidence: number }): Analysis {
+function finishAnalysis(
+  stations: readonly ShardStation[],
+  events: PassageEvent[],
+  opts: AnalyseOptions,
+  plan: { network: boolean; minConfidence: number },
+  fields: readonly (StationFields | StationFieldsRef)[] = stations.filter((s) => s.failure === undefined && s.fields !== undefined).map((s) => s.fields!),
+): Analysis {
   const failures: StationFailure[] = stations.filter((s) => s.failure !== undefined).map((s) => ({ station: s.station, reason: s.failure! }));
   const ok = stations.filter((s) => s.failure === undefined);
   let all = events;
@@ -182,7 +189,7 @@ function finishAnalysis(stations: readonly ShardStation[], events: PassageEvent[
     // Tracks are refitted on the passages that remain.
     allTracks = trackFronts(all, metas, { spans });
   } else if (plan.network) all = all.filter((e) => e.confidence >= plan.minConfidence);
-  allTracks = opts.network === false ? [] : withFrontogenesisFields(allTracks, ok.map((s) => s.fields).filter((f): f is StationFields => f !== undefined));
+  allTracks = opts.network === false ? [] : withFrontogenesisFields(allTracks, fields);
   // The fitted speed is the speed normal to the front; an explicit --front-speed wins.
   if (opts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
   const kinds = opts.kinds;
@@ -313,6 +320,7 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
   // workers get the files they may read by path (the others are read here)
   const byPath = files.map(readableByPath);
   const pool = jobs > 1 && files.length > 0 ? new WorkerPool(jobs, { ...ctx, files: files.map(fileForWorker) }) : null;
+  let spill: FieldSpill | null = null;
   try {
     // 1. Every file once: its stations, report, notes, positions (and the rows of files read only once).
     const census: FileCensus[] = new Array(files.length);
@@ -367,14 +375,22 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
     const rowsToDetect = tasks.reduce((a, t) => a + (t.detect ? rowsOf.get(t.station)! : 0), 0);
     onPlan?.(detected, rowsToDetect, reports.length);
     let done = 0;
-    const progress = (t: StationTask) => {
+    // The frontogenesis fields of a whole run go to a temporary file as each station is done (not in a shard: its output holds them).
+    spill = shard ? null : new FieldSpill();
+    const progress = (i: number, t: StationTask, r: PoolResult<StationResult>) => {
+      const st = 'value' in r ? r.value.network : undefined;
+      if (spill && st?.fields) {
+        fieldsKept[i] = spill.keep(st.fields);
+        delete st.fields;
+      }
       if (t.detect) onStation?.(++done, detected, rowsOf.get(t.station)!);
     };
+    const fieldsKept: (StationFields | StationFieldsRef | undefined)[] = new Array(tasks.length);
     let results: PoolResult<StationResult>[];
     if (pool) {
       // longest first (see detectInPool), stations only read for their details last
       const order = tasks.map((_, i) => i).sort((a, b) => Number(!tasks[a]!.detect) - Number(!tasks[b]!.detect) || rowsOf.get(tasks[b]!.station)! - rowsOf.get(tasks[a]!.station)! || a - b);
-      results = await pool.run<StationResult>(tasks.map((task): PoolTask => ({ kind: 'station', task })), { order, transfer: true, onDone: (_d, i) => progress(tasks[i]!) });
+      results = await pool.run<StationResult>(tasks.map((task): PoolTask => ({ kind: 'station', task })), { order, transfer: true, onDone: (_d, i, r) => progress(i, tasks[i]!, r) });
     } else {
       results = tasks.map((t, i) => {
         let r: PoolResult<StationResult>;
@@ -384,12 +400,15 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
           r = { error: e instanceof Error ? e.message : String(e) };
         }
         tasks[i] = { station: t.station, parts: [] };
-        progress(t);
+        progress(i, t, r);
         return r;
       });
     }
+    // the workers' memory is given back before tracking
+    await pool?.close();
     const stations: ShardStation[] = [];
     const events: PassageEvent[] = [];
+    const fields: (StationFields | StationFieldsRef)[] = [];
     results.forEach((r, i) => {
       const t = tasks[i]!;
       if ('value' in r) load.details.push(r.value.details);
@@ -403,13 +422,16 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
         return;
       }
       stations.push(r.value.network!);
+      const f = fieldsKept[i] ?? r.value.network!.fields;
+      if (f && r.value.network!.failure === undefined) fields.push(f);
       const o = r.value.outcome!;
       if (!('error' in o)) for (const e of o.events) events.push(e);
     });
     if (shard) return { load, shard: shardOutput(shard, plan, ids.length, rest, stations, events) };
-    return { load, analysis: finishAnalysis(stations, events, rest, plan) };
+    return { load, analysis: finishAnalysis(stations, events, rest, plan, fields) };
   } finally {
     await pool?.close();
+    spill?.close();
   }
 }
 

@@ -137,6 +137,13 @@ export class WorkerPool {
   private spawn(): Worker {
     const w = newWorker(this.context);
     this.all.add(w);
+    // an idle worker that stops is dropped (a busy one is handled by its task)
+    w.on('error', () => {});
+    w.on('exit', () => {
+      this.all.delete(w);
+      const i = this.idle.indexOf(w);
+      if (i >= 0) this.idle.splice(i, 1);
+    });
     return w;
   }
 
