@@ -144,10 +144,11 @@ export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<Lo
  * input file, and over an existing file only with `safe.force` (UsageError, exit 2). A write failure is a runtime
  * error (exit 1).
  */
-export async function writeOutput(text: string, out: string | undefined, io: CliIo, safe: SafeWriteOptions = {}): Promise<void> {
+export async function writeOutput(text: string | Iterable<string>, out: string | undefined, io: CliIo, safe: SafeWriteOptions = {}): Promise<void> {
   // runCli carries every lone `-` as STDIN_TOKEN; after --out it means standard output.
   if (out === undefined || out === '-' || out === STDIN_TOKEN) {
-    io.stdout(text);
+    if (typeof text === 'string') io.stdout(text);
+    else for (const piece of text) io.stdout(piece);
     return;
   }
   writeFilesSafely([{ path: out, text }], safe);

@@ -58,7 +58,7 @@ export type { VerifyOptions, VerifyResult } from './verify/verify.js';
 export { csi, far, frequencyBias, pod, proportionCorrect, type Contingency } from './verify/contingency.js';
 
 // Writers: records, CSV, JSON, NDJSON, tables, the output folder, the HTML report, inspect, verification.
-export { EVENT_COLUMNS, WIND_UNITS, eventToRecord, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, recordColumns, summaryLines } from './report/format.js';
+export { EVENT_COLUMNS, WIND_UNITS, eventToRecord, eventsToCsv, eventsToJson, eventsToNdjson, eventsToNdjsonPieces, eventsToTable, recordColumns, summaryLines } from './report/format.js';
 export type { EventColumn, EventRecord, RecordOptions, RecordValue, TableOptions, WindUnit } from './report/format.js';
 export { operatorFields, parseRunways, precipIntensityOf, precipTypesOf, pressureSource, windOnRunway, withOperatorFields, type RunwayHeading } from './report/operatorFields.js';
 export { FRONT_COLUMNS, eventsAndTracksToJson, passagesToTable, trackToRecord, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable } from './report/fronts.js';

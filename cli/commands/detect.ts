@@ -1,5 +1,5 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, CAUTION, parsePoint, parsePointsFile, toGeoJson, type PointOfInterest, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, detectPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage, parseShard } from '../../src/index.js';
+import { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, CAUTION, parsePoint, parsePointsFile, toGeoJson, type PointOfInterest, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjsonPieces, eventsToTable, detectPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage, parseShard } from '../../src/index.js';
 import { inputArgs, inputFiles, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
 import { analysisStatus, parseJobs, progressBar, reportFailures } from '../analysis.js';
 
@@ -146,7 +146,11 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     text = toGeoJson({ events: what === 'fronts' || what === 'arrivals' ? [] : events, tracks: what === 'events' || what === 'arrivals' ? [] : tracks, stations: metas, arrivals });
   } else if (format === 'csv') text = what === 'fronts' ? tracksToCsv(tracks) : eventsToCsv(events, { windUnit });
   else if (format === 'json') text = what === 'fronts' ? tracksToJson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks) : eventsToJson(events);
-  else if (format === 'ndjson') text = what === 'fronts' ? tracksToNdjson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks, true) : eventsToNdjson(events);
+  else if (format === 'ndjson' && what === 'events') {
+    // written piece by piece: a whole archive's passages are never held as one text
+    await writeOutput(eventsToNdjsonPieces(events), args.out, io, safe);
+    return analysisStatus(analysis, result.ids.length, io);
+  } else if (format === 'ndjson') text = what === 'fronts' ? tracksToNdjson(tracks) : eventsAndTracksToJson(events, tracks, true);
   else {
     text = what === 'fronts' ? tracksToTable(tracks) || 'no fronts tracked\n' : what === 'events' ? eventsToTable(events, tableOpts) : what === 'arrivals' ? '' : passagesToTable(events, tracks, tableOpts);
     if (points.length && (what === 'all' || what === 'arrivals')) {
