@@ -345,6 +345,8 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
         list.push(c.held ? { file: i, rows: c.held[k]! } : { file: i });
         rowsOf.set(id, (rowsOf.get(id) ?? 0) + c.rows[k]!);
       });
+      // the rows now belong to their stations' tasks only
+      delete c.held;
     });
     const ids = [...parts.keys()].sort();
     const metaOf = new Map<string, StationMeta>();
@@ -390,7 +392,13 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
     if (pool) {
       // longest first (see detectInPool), stations only read for their details last
       const order = tasks.map((_, i) => i).sort((a, b) => Number(!tasks[a]!.detect) - Number(!tasks[b]!.detect) || rowsOf.get(tasks[b]!.station)! - rowsOf.get(tasks[a]!.station)! || a - b);
-      results = await pool.run<StationResult>(tasks.map((task): PoolTask => ({ kind: 'station', task })), { order, transfer: true, onDone: (_d, i, r) => progress(i, tasks[i]!, r) });
+      // Memory bounded by the largest station: stations run side by side only while their rows stay within the
+      // largest station's plus a median station's per other worker (two of the largest of a mixed archive never run
+      // at once, the smaller ones fill the other workers; stations of one size all run side by side).
+      const weights = tasks.map((t) => rowsOf.get(t.station)!);
+      const sorted = [...weights].sort((a, b) => a - b);
+      const budget = sorted[sorted.length - 1]! + (jobs - 1) * sorted[sorted.length >> 1]!;
+      results = await pool.run<StationResult>(tasks.map((task): PoolTask => ({ kind: 'station', task })), { order, weights, budget, transfer: true, onDone: (_d, i, r) => progress(i, tasks[i]!, r) });
     } else {
       results = tasks.map((t, i) => {
         let r: PoolResult<StationResult>;

@@ -73,12 +73,29 @@ export class WorkerPool {
    * Run the tasks (in the order given by `order`, default task order; `transfer` says whether the typed
    * arrays of a task are handed over rather than copied) and resolve to one result per task, in task order.
    */
-  async run<R>(tasks: readonly PoolTask[], opts: { order?: readonly number[]; transfer?: boolean; onDone?: (done: number, index: number, r: PoolResult<R>) => void } = {}): Promise<PoolResult<R>[]> {
+  async run<R>(
+    tasks: readonly PoolTask[],
+    opts: { order?: readonly number[]; transfer?: boolean; weights?: readonly number[]; budget?: number; onDone?: (done: number, index: number, r: PoolResult<R>) => void } = {},
+  ): Promise<PoolResult<R>[]> {
     const out: (PoolResult<R> | undefined)[] = new Array(tasks.length);
     if (tasks.length === 0) return [];
-    const order = opts.order ?? tasks.map((_, i) => i);
+    const pending = [...(opts.order ?? tasks.map((_, i) => i))];
+    const total = pending.length;
     let next = 0;
     let done = 0;
+    // With weights and a budget, a worker takes the first pending task (in order) that keeps the weight of the
+    // running tasks within the budget, or waits; with nothing running it takes the first one.
+    const weights = opts.weights;
+    const budget = opts.budget ?? Infinity;
+    let running = 0;
+    const waiting: Worker[] = [];
+    const take = (): number | undefined => {
+      let k = 0;
+      if (weights) while (k < pending.length && running > 0 && running + weights[pending[k]!]! > budget) k++;
+      if (k >= pending.length) return undefined;
+      next++;
+      return pending.splice(k, 1)[0]!;
+    };
     await new Promise<void>((resolve) => {
       let busy = 0;
       const finish = (index: number, r: PoolResult<R>) => {
@@ -88,12 +105,18 @@ export class WorkerPool {
         opts.onDone?.(done, index, r);
       };
       const feed = (w: Worker) => {
-        if (next >= order.length) {
+        if (next >= total) {
           this.idle.push(w);
           if (busy === 0) resolve();
           return;
         }
-        const index = order[next++]!;
+        const index = take();
+        if (index === undefined) {
+          waiting.push(w);
+          return;
+        }
+        const weight = weights?.[index] ?? 0;
+        running += weight;
         busy++;
         let settled = false;
         const settle = (r: PoolResult<R>) => {
@@ -103,7 +126,10 @@ export class WorkerPool {
           w.off('error', onError);
           w.off('exit', onExit);
           busy--;
+          running -= weight;
           finish(index, r);
+          // a task ended: the workers that waited for room try again
+          for (const x of waiting.splice(0)) feed(x);
         };
         const onMessage = (m: PoolReply) => {
           settle('error' in m ? { error: m.error } : { value: m.value as R });
@@ -115,7 +141,7 @@ export class WorkerPool {
           this.all.delete(w);
           void w.terminate();
           settle({ error: reason });
-          if (next < order.length) feed(this.spawn());
+          if (next < total) feed(this.spawn());
           else if (busy === 0) resolve();
         };
         const onError = (e: Error) => dead(`worker stopped: ${e.message}`);
@@ -126,7 +152,7 @@ export class WorkerPool {
         const task = tasks[index]!;
         w.postMessage({ index, task }, opts.transfer ? transferables(task) : []);
       };
-      const start = Math.min(this.size, order.length);
+      const start = Math.min(this.size, total);
       const ready = this.idle.splice(0, start);
       while (ready.length < start) ready.push(this.spawn());
       for (const w of ready) feed(w);

@@ -83,7 +83,8 @@ export function censusFile(p: PreparedContext, at: number, f: DataFile = p.ctx.f
   const read = readDataFiles([restoreBytes(f)], { ...p.ctx.read, onNote: (m) => notes.push(m) }, (o) => builder.add(o), p.index);
   const stations = builder.stations();
   const c: FileCensus = { reports: read.reports, positions: [...read.positions], notes, stations, rows: stations.map((id) => builder.columns(id)!.length) };
-  if (stations.length > 1 || !readableByPath(f)) c.held = stations.map((id) => builder.columns(id)!.exportRows());
+  // each station's rows are forgotten by the builder as they are handed over (not two copies of a large file at once)
+  if (stations.length > 1 || !readableByPath(f)) c.held = stations.map((id) => builder.take(id));
   return c;
 }
 

@@ -295,6 +295,20 @@ export class SeriesBuilder {
     c.appendRows(rows);
   }
 
+  /** A station's rows handed over (exportRows), then forgotten here so that their memory can be given back. */
+  take(station: string): StationRows {
+    const c = this.byStation.get(station);
+    if (c === undefined) return { length: 0, records: new Float64Array(0), remarkRows: [], remarkLists: [] };
+    const rows = c.exportRows();
+    this.byStation.delete(station);
+    for (const [raw, col] of this.byRawId) if (col === c) this.byRawId.delete(raw);
+    if (this.lastColumns === c) {
+      this.lastRawId = null;
+      this.lastColumns = null;
+    }
+    return rows;
+  }
+
   /** Resolved station ids, in order of first appearance. */
   stations(): string[] {
     return [...this.byStation.keys()];
