@@ -15,7 +15,7 @@ import { trackFronts, withTrackSpeeds } from './network/track.js';
 import { withFrontogenesisFields, type StationFields, type StationFieldsRef } from './network/frontogenesis.js';
 import { FieldSpill } from './parallel/fieldSpill.js';
 import { withNetworkCoherence } from './network/coherence.js';
-import { defaultJobs, detectInPool, WorkerPool, type PoolResult, type PoolTask, type StationOutcome } from './parallel/detectPool.js';
+import { defaultJobs, detectInPool, MEMORY_LIMIT, WorkerPool, type PoolResult, type PoolTask, type StationOutcome } from './parallel/detectPool.js';
 import { censusFile, detectOutcome, fileForWorker, networkStation, prepareContext, readableByPath, stationSeries, stationWork, type FileCensus, type PreparedContext, type RunContext, type StationPart, type StationResult, type StationTask } from './parallel/stationWork.js';
 import type { InspectStation } from './report/inspect.js';
 import { inShard, shardToNdjson, type ShardContent, type ShardHeader, type ShardSpec, type ShardStation } from './parallel/shard.js';
@@ -319,7 +319,8 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
   const prep = prepareContext(ctx);
   // workers get the files they may read by path (the others are read here)
   const byPath = files.map(readableByPath);
-  const pool = jobs > 1 && files.length > 0 ? new WorkerPool(jobs, { ...ctx, files: files.map(fileForWorker) }) : null;
+  const workerCtx: RunContext = { ...ctx, files: files.map(fileForWorker) };
+  let pool = jobs > 1 && files.length > 0 ? new WorkerPool(jobs, workerCtx) : null;
   let spill: FieldSpill | null = null;
   try {
     // 1. Every file once: its stations, report, notes, positions (and the rows of files read only once).
@@ -388,6 +389,18 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
       if (t.detect) onStation?.(++done, detected, rowsOf.get(t.station)!);
     };
     const fieldsKept: (StationFields | StationFieldsRef | undefined)[] = new Array(tasks.length);
+    /** One station in this thread; its rows are dropped once done. */
+    const inline = (i: number, t: StationTask): PoolResult<StationResult> => {
+      let r: PoolResult<StationResult>;
+      try {
+        r = { value: stationWork(prep, t) };
+      } catch (e) {
+        r = { error: e instanceof Error ? e.message : String(e) };
+      }
+      tasks[i] = { ...t, parts: [] };
+      progress(i, t, r);
+      return r;
+    };
     let results: PoolResult<StationResult>[];
     if (pool) {
       // longest first (see detectInPool), stations only read for their details last
@@ -397,20 +410,32 @@ export async function detectPaths(paths: readonly string[], loadOpts: LoadOption
       // at once, the smaller ones fill the other workers; stations of one size all run side by side).
       const weights = tasks.map((t) => rowsOf.get(t.station)!);
       const sorted = [...weights].sort((a, b) => a - b);
-      const budget = sorted[sorted.length - 1]! + (jobs - 1) * sorted[sorted.length >> 1]!;
-      results = await pool.run<StationResult>(tasks.map((task): PoolTask => ({ kind: 'station', task })), { order, weights, budget, transfer: true, onDone: (_d, i, r) => progress(i, tasks[i]!, r) });
-    } else {
-      results = tasks.map((t, i) => {
-        let r: PoolResult<StationResult>;
-        try {
-          r = { value: stationWork(prep, t) };
-        } catch (e) {
-          r = { error: e instanceof Error ? e.message : String(e) };
-        }
-        tasks[i] = { station: t.station, parts: [] };
-        progress(i, t, r);
-        return r;
+      const largest = sorted[sorted.length - 1]!;
+      const budget = largest + (jobs - 1) * sorted[sorted.length >> 1]!;
+      // The station workers' heaps are bounded too (V8 otherwise lets garbage grow far beyond what a station keeps
+      // alive): 128 MB, or 1.5 kB per row of the largest station; a station that needs more is done again here.
+      await pool.close();
+      pool = new WorkerPool(jobs, workerCtx, { maxOldGenerationSizeMb: Math.max(128, Math.ceil((largest * 1536) / 2 ** 20)) });
+      const poolTasks = tasks.map((task): PoolTask => ({ kind: 'station', task }));
+      results = await pool.run<StationResult>(poolTasks, {
+        order,
+        weights,
+        budget,
+        onDone: (_d, i, r) => {
+          if ('error' in r && r.error.includes(MEMORY_LIMIT)) return;
+          progress(i, tasks[i]!, r);
+          // its rows are not needed any more
+          tasks[i] = { ...tasks[i]!, parts: [] };
+          poolTasks[i] = { kind: 'station', task: tasks[i]! };
+        },
       });
+      await pool.close();
+      results.forEach((r, i) => {
+        if (!('error' in r && r.error.includes(MEMORY_LIMIT))) return;
+        results[i] = inline(i, tasks[i]!);
+      });
+    } else {
+      results = tasks.map((t, i) => inline(i, t));
     }
     // the workers' memory is given back before tracking
     await pool?.close();

@@ -6,7 +6,7 @@
  * in task order, so the output is the same for every number of workers and every completion order. A task
  * that throws, or whose worker dies, gets its reason as its result; the others go on.
  */
-import { Worker } from 'node:worker_threads';
+import { Worker, type ResourceLimits } from 'node:worker_threads';
 import { availableParallelism } from 'node:os';
 import { existsSync } from 'node:fs';
 import { fileURLToPath } from 'node:url';
@@ -28,6 +28,9 @@ export type PoolReply = { index: number; value: unknown } | { index: number; err
 /** A task's result: its value, or why it failed. */
 export type PoolResult<R> = { value: R } | { error: string };
 
+/** Said in the reason of a task whose worker reached the pool's memory limits. */
+export const MEMORY_LIMIT = 'worker memory limit';
+
 /** Default number of workers: the cores this process may use. */
 export function defaultJobs(): number {
   return Math.max(1, availableParallelism());
@@ -38,12 +41,13 @@ export function defaultJobs(): number {
  * benchmarks through tsx), the `.ts` source loaded after registering tsx in the worker (a worker thread does
  * not inherit the parent's module hooks). `context` reaches it as its workerData.
  */
-function newWorker(context: RunContext | undefined): Worker {
+function newWorker(context: RunContext | undefined, resourceLimits: ResourceLimits | undefined): Worker {
   const js = new URL('./detectWorker.js', import.meta.url);
-  if (existsSync(fileURLToPath(js))) return new Worker(js, { workerData: context });
+  const limits = resourceLimits ? { resourceLimits } : {};
+  if (existsSync(fileURLToPath(js))) return new Worker(js, { workerData: context, ...limits });
   const ts = new URL('./detectWorker.ts', import.meta.url).href;
   const api = import.meta.resolve('tsx/esm/api');
-  return new Worker(`import(${JSON.stringify(api)}).then((m) => { m.register(); return import(${JSON.stringify(ts)}); });`, { eval: true, workerData: context });
+  return new Worker(`import(${JSON.stringify(api)}).then((m) => { m.register(); return import(${JSON.stringify(ts)}); });`, { eval: true, workerData: context, ...limits });
 }
 
 /** The buffers of the typed arrays inside a value (each once), handed over instead of copied. */
@@ -63,10 +67,13 @@ export class WorkerPool {
   private readonly all = new Set<Worker>();
   private readonly size: number;
   private readonly context: RunContext | undefined;
+  private readonly limits: ResourceLimits | undefined;
 
-  constructor(size: number, context?: RunContext) {
+  /** `limits` bound each worker's heap (a worker that reaches them stops: its task fails with `MEMORY_LIMIT` in its reason). */
+  constructor(size: number, context?: RunContext, limits?: ResourceLimits) {
     this.size = Math.max(1, Math.floor(size));
     this.context = context;
+    this.limits = limits;
   }
 
   /**
@@ -144,7 +151,7 @@ export class WorkerPool {
           if (next < total) feed(this.spawn());
           else if (busy === 0) resolve();
         };
-        const onError = (e: Error) => dead(`worker stopped: ${e.message}`);
+        const onError = (e: Error & { code?: string }) => dead(`worker stopped: ${e.message}${e.code === 'ERR_WORKER_OUT_OF_MEMORY' ? ` (${MEMORY_LIMIT})` : ''}`);
         const onExit = () => dead('worker stopped');
         w.on('message', onMessage);
         w.on('error', onError);
@@ -161,7 +168,7 @@ export class WorkerPool {
   }
 
   private spawn(): Worker {
-    const w = newWorker(this.context);
+    const w = newWorker(this.context, this.limits);
     this.all.add(w);
     // an idle worker that stops is dropped (a busy one is handled by its task)
     w.on('error', () => {});
