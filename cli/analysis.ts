@@ -18,47 +18,63 @@ export function parseJobs(v: unknown): number {
   return x;
 }
 
+/** A progress bar of detection: `start` once the stations and rows are known, then one `onStation` per station. */
+export interface ProgressBar {
+  start: (stations: number, rows: number, files: number) => void;
+  onStation: (done: number, total: number, rows: number) => void;
+  stop: () => void;
+}
+
 /**
  * A progress bar of detection on `io.progress` (a terminal; cli-progress): stations done, rows, rate and time
  * left. Null (silent) when there is no terminal, under --quiet or CI.
  */
-export async function progressBar(series: readonly StationSeries[], files: number, io: CliIo, quiet: boolean): Promise<{ onStation: (done: number, total: number, s: StationSeries) => void; stop: () => void } | null> {
+export async function progressBar(io: CliIo, quiet: boolean): Promise<ProgressBar | null> {
   if (!io.progress || quiet || process.env.CI) return null;
   const { SingleBar } = (await import('cli-progress')).default;
-  const totalRows = series.reduce((a, s) => a + s.length, 0);
-  const bar = new SingleBar({
-    stream: io.progress,
-    format: `detect {bar} {value}/{total} stations | {rowsDone}/${totalRows.toLocaleString('en-US')} rows of ${files} files | {rate} rows/s | {eta_formatted} left`,
-    barCompleteChar: '#',
-    barIncompleteChar: '.',
-    hideCursor: true,
-    clearOnComplete: true,
-    etaBuffer: 50,
-  });
-  const t0 = Date.now();
+  let bar: InstanceType<typeof SingleBar> | null = null;
+  let t0 = Date.now();
   let rows = 0;
-  bar.start(series.length, 0, { rowsDone: '0', rate: '-' });
   return {
-    onStation: (done, _total, s) => {
-      rows += s.length;
-      const sec = (Date.now() - t0) / 1000;
-      bar.update(done, { rowsDone: rows.toLocaleString('en-US'), rate: sec > 0 ? Math.round(rows / sec).toLocaleString('en-US') : '-' });
+    start: (stations, totalRows, files) => {
+      bar = new SingleBar({
+        stream: io.progress,
+        format: `detect {bar} {value}/{total} stations | {rowsDone}/${totalRows.toLocaleString('en-US')} rows of ${files} files | {rate} rows/s | {eta_formatted} left`,
+        barCompleteChar: '#',
+        barIncompleteChar: '.',
+        hideCursor: true,
+        clearOnComplete: true,
+        etaBuffer: 50,
+      });
+      t0 = Date.now();
+      bar.start(stations, 0, { rowsDone: '0', rate: '-' });
     },
-    stop: () => bar.stop(),
+    onStation: (done, _total, n) => {
+      rows += n;
+      const sec = (Date.now() - t0) / 1000;
+      bar?.update(done, { rowsDone: rows.toLocaleString('en-US'), rate: sec > 0 ? Math.round(rows / sec).toLocaleString('en-US') : '-' });
+    },
+    stop: () => bar?.stop(),
   };
 }
 
 /** Run the analysis (with a progress bar on a terminal); station failures are written to standard error (always, also under --quiet). */
 export async function runAnalysis(series: readonly StationSeries[], opts: ParallelAnalyseOptions, io: CliIo, progress?: { files: number; quiet: boolean }): Promise<Analysis> {
-  const bar = progress ? await progressBar(series, progress.files, io, progress.quiet) : null;
+  const bar = progress ? await progressBar(io, progress.quiet) : null;
+  bar?.start(series.length, series.reduce((a, s) => a + s.length, 0), progress!.files);
   let a: Analysis;
   try {
     a = await analyseSeriesParallel(series, bar ? { ...opts, onStation: bar.onStation } : opts);
   } finally {
     bar?.stop();
   }
-  for (const f of a.failures) io.stderr(`fropa: station ${f.station} skipped: ${f.reason}\n`);
+  reportFailures(a.failures, io);
   return a;
+}
+
+/** Each failed station on standard error (always, also under --quiet). */
+export function reportFailures(failures: readonly StationFailure[], io: CliIo): void {
+  for (const f of failures) io.stderr(`fropa: station ${f.station} skipped: ${f.reason}\n`);
 }
 
 /** One line summing up the failures (empty string when none). */

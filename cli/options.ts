@@ -4,7 +4,7 @@
  */
 import { readFileSync } from 'node:fs';
 import type { Argv } from 'yargs';
-import { loadMappingFile, parseColumnOverride, UsageError, writeFilesSafely, type LoadOptions, type SafeWriteOptions, buildInspect, summaryLine, type LoadResult } from '../src/index.js';
+import { loadMappingFile, parseColumnOverride, UsageError, writeFilesSafely, type LoadOptions, type SafeWriteOptions, buildInspect, inspectFiles, summaryLine, type LoadResult, type StreamedLoad } from '../src/index.js';
 
 /** Standard streams of one CLI run, injectable for in-process tests. */
 export interface CliIo {
@@ -144,10 +144,11 @@ export async function resolveLoadOptions(args: InputArgs, io: CliIo): Promise<Lo
  * input file, and over an existing file only with `safe.force` (UsageError, exit 2). A write failure is a runtime
  * error (exit 1).
  */
-export async function writeOutput(text: string, out: string | undefined, io: CliIo, safe: SafeWriteOptions = {}): Promise<void> {
+export async function writeOutput(text: string | Iterable<string>, out: string | undefined, io: CliIo, safe: SafeWriteOptions = {}): Promise<void> {
   // runCli carries every lone `-` as STDIN_TOKEN; after --out it means standard output.
   if (out === undefined || out === '-' || out === STDIN_TOKEN) {
-    io.stdout(text);
+    if (typeof text === 'string') io.stdout(text);
+    else for (const piece of text) io.stdout(piece);
     return;
   }
   writeFilesSafely([{ path: out, text }], safe);
@@ -159,7 +160,8 @@ export function inputFiles(reports: readonly { file: string }[], extra: readonly
 }
 
 /** The one-line summary of what was read, rejected and assumed (the line `inspect` ends with), on standard error unless --quiet. */
-export function printLoadSummary(result: LoadResult, quiet: boolean, io: CliIo): void {
+export function printLoadSummary(result: LoadResult | StreamedLoad, quiet: boolean, io: CliIo): void {
   if (quiet) return;
-  io.stderr(`fropa: ${summaryLine(buildInspect(result.reports, result.series, result.qc))}\n`);
+  const files = 'series' in result ? buildInspect(result.reports, result.series, result.qc) : inspectFiles(result.reports, result.details);
+  io.stderr(`fropa: ${summaryLine(files)}\n`);
 }

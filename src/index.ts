@@ -28,7 +28,7 @@ export type {
 // The pipeline: read → series → station pressure → QC (loadPaths); detect → track → frontogenesis (analyseSeries).
 export { analyseSeries, analyseSeriesParallel, loadPaths, sortEvents, type ParallelAnalyseOptions, type StationFailure } from './pipeline.js';
 export { defaultJobs } from './parallel/detectPool.js';
-export { analyseShard, mergeShards } from './pipeline.js';
+export { analyseShard, detectPaths, mergeShards, type StreamOptions, type StreamedLoad } from './pipeline.js';
 export { fnv1a32, inShard, parseShard, shardFromNdjson, type ShardContent, type ShardSpec } from './parallel/shard.js';
 export type { AnalyseOptions, Analysis, LoadOptions, LoadResult } from './pipeline.js';
 
@@ -58,7 +58,7 @@ export type { VerifyOptions, VerifyResult } from './verify/verify.js';
 export { csi, far, frequencyBias, pod, proportionCorrect, type Contingency } from './verify/contingency.js';
 
 // Writers: records, CSV, JSON, NDJSON, tables, the output folder, the HTML report, inspect, verification.
-export { EVENT_COLUMNS, WIND_UNITS, eventToRecord, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, recordColumns, summaryLines } from './report/format.js';
+export { EVENT_COLUMNS, WIND_UNITS, eventToRecord, eventsToCsv, eventsToJson, eventsToNdjson, eventsToNdjsonPieces, eventsToTable, recordColumns, summaryLines } from './report/format.js';
 export type { EventColumn, EventRecord, RecordOptions, RecordValue, TableOptions, WindUnit } from './report/format.js';
 export { operatorFields, parseRunways, precipIntensityOf, precipTypesOf, pressureSource, windOnRunway, withOperatorFields, type RunwayHeading } from './report/operatorFields.js';
 export { FRONT_COLUMNS, eventsAndTracksToJson, passagesToTable, trackToRecord, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable } from './report/fronts.js';
@@ -72,7 +72,7 @@ export { eventsInPeriod, parsePeriodTime, periodOutsideData, selectStations } fr
 export { reportHtml } from './report/html/reportHtml.js';
 export { loadGeography, type Geography } from './report/html/geography.js';
 export type { ReportFile, ReportInput } from './report/html/reportHtml.js';
-export { buildInspect, inspectToTable, issueLine, noDataMessage, summaryLine } from './report/inspect.js';
+export { buildInspect, inspectFiles, inspectToTable, issueLine, noDataMessage, summaryLine } from './report/inspect.js';
 export type { InspectFile, InspectStation } from './report/inspect.js';
 export { VERIFY_COLUMNS, verificationRecords, verificationToCsv, verificationToJson, verificationToTable } from './verify/format.js';
 export type { VerifyColumn, VerifyRecord, VerifyTableContext } from './verify/format.js';

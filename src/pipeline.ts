@@ -5,20 +5,22 @@
  * and library callers share both. Writers (CSV/JSON/tables/HTML) turn the results into outputs.
  */
 import type { BoundaryKind, FileReport, FrontTrack, PassageEvent, StationMeta, StationSeries } from './model/index.js';
-import { readDataFiles, scanPaths, type ReadOptions, type StationPositions } from './ingest/readPaths.js';
+import { readDataFiles, scanPaths, type DataFile, type ReadOptions, type StationPositions } from './ingest/readPaths.js';
 import { buildStationIndex, resolveStation, type StationIndex } from './ingest/stations.js';
 import { SeriesBuilder } from './series/seriesBuilder.js';
-import { deriveStationPressure } from './series/deriveStationPressure.js';
-import { applyQc, type QcSummary } from './qc/qc.js';
+import type { QcSummary } from './qc/qc.js';
 import type { DetectOptions } from './detect/types.js';
-import { checkDetectOptions, DEFAULT_MIN_CONFIDENCE, detectStation } from './detect/detect.js';
+import { checkDetectOptions, DEFAULT_MIN_CONFIDENCE } from './detect/detect.js';
 import { trackFronts, withTrackSpeeds } from './network/track.js';
-import { fieldsOf, withFrontogenesisFields, type StationFields } from './network/frontogenesis.js';
+import { withFrontogenesisFields, type StationFields, type StationFieldsRef } from './network/frontogenesis.js';
+import { FieldSpill } from './parallel/fieldSpill.js';
 import { withNetworkCoherence } from './network/coherence.js';
-import { defaultJobs, detectInPool, type StationOutcome } from './parallel/detectPool.js';
+import { defaultJobs, detectInPool, MEMORY_LIMIT, WorkerPool, type PoolResult, type PoolTask, type StationOutcome } from './parallel/detectPool.js';
+import { censusFile, detectOutcome, fileForWorker, networkStation, prepareContext, readableByPath, stationSeries, stationWork, type FileCensus, type PreparedContext, type RunContext, type StationPart, type StationResult, type StationTask } from './parallel/stationWork.js';
+import type { InspectStation } from './report/inspect.js';
 import { inShard, shardToNdjson, type ShardContent, type ShardHeader, type ShardSpec, type ShardStation } from './parallel/shard.js';
-import { UsageError } from './model/index.js';
-import { detectWithOperatorFields, type RunwayHeading } from './report/operatorFields.js';
+import { newFileReport, UsageError } from './model/index.js';
+import type { RunwayHeading } from './report/operatorFields.js';
 
 /** How to read the inputs (time zone, column mapping, stations file, …). */
 export type LoadOptions = ReadOptions;
@@ -59,10 +61,9 @@ function seriesFromBuilder(builder: SeriesBuilder, index: StationIndex, position
       const pos = positions.get(id);
       if (pos && !Number.isNaN(pos.latDeg)) meta = { id, aliases: [], ...pos };
     }
-    const s = builder.build(id, meta);
-    deriveStationPressure(s);
-    qc.set(id, applyQc(s));
-    series.push(s);
+    const r = stationSeries(builder, id, meta);
+    qc.set(id, r.qc);
+    series.push(r.series);
   }
   return { series, qc };
 }
@@ -79,8 +80,8 @@ export interface AnalyseOptions extends DetectOptions {
 export interface ParallelAnalyseOptions extends AnalyseOptions {
   /** Worker threads for detection (default: the number of cores; 1 runs in this thread). */
   jobs?: number;
-  /** Called after each station's detection (for progress). */
-  onStation?: (done: number, total: number, s: StationSeries) => void;
+  /** Called after each station's detection (for progress) with the station's rows. */
+  onStation?: (done: number, total: number, rows: number) => void;
 }
 
 /** A station whose detection failed: skipped, the run goes on. */
@@ -104,9 +105,13 @@ export function sortEvents(events: PassageEvent[]): PassageEvent[] {
 
 /** Whether tracking runs, and the confidence detection keeps (with a network, weaker passages too: coherence can keep them, network/coherence.ts). */
 function detectionPlan(series: readonly StationSeries[], opts: AnalyseOptions): { network: boolean; floor: number; minConfidence: number } {
+  return planFor(series.filter((s) => s.meta !== undefined).length, opts);
+}
+
+/** {@link detectionPlan} from the number of stations with metadata. */
+function planFor(located: number, opts: AnalyseOptions): { network: boolean; floor: number; minConfidence: number } {
   checkDetectOptions(opts);
   const minConfidence = opts.minConfidence ?? DEFAULT_MIN_CONFIDENCE;
-  const located = series.filter((s) => s.meta !== undefined).length;
   const network = opts.network !== false && located >= 3;
   return { network, floor: network ? minConfidence * 0.7 : minConfidence, minConfidence };
 }
@@ -128,13 +133,7 @@ function stationOptions(opts: AnalyseOptions, floor: number): DetectOptions & { 
 export function analyseSeries(series: readonly StationSeries[], opts: AnalyseOptions = {}): Analysis {
   const plan = detectionPlan(series, opts);
   const dopts = { ...opts, ...stationOptions(opts, plan.floor) };
-  const outcomes: StationOutcome[] = series.map((s) => {
-    try {
-      return { events: detectWithOperatorFields(s, dopts) };
-    } catch (e) {
-      return { error: (e as Error).message };
-    }
-  });
+  const outcomes: StationOutcome[] = series.map((s) => detectOutcome(s, dopts));
   return networkStage(series, outcomes, opts, plan);
 }
 
@@ -149,22 +148,12 @@ export async function analyseSeriesParallel(series: readonly StationSeries[], op
   const { jobs: _jobs, onStation, ...rest } = opts;
   if (jobs === 1 || series.length < 2) {
     const r = analyseSeries(series, rest);
-    series.forEach((s, i) => onStation?.(i + 1, series.length, s));
+    series.forEach((s, i) => onStation?.(i + 1, series.length, s.length));
     return r;
   }
   const plan = detectionPlan(series, rest);
-  const outcomes = await detectInPool(series, stationOptions(rest, plan.floor), jobs, (done, s) => onStation?.(done, series.length, s));
+  const outcomes = await detectInPool(series, stationOptions(rest, plan.floor), jobs, (done, s) => onStation?.(done, series.length, s.length));
   return networkStage(series, outcomes, rest, plan);
-}
-
-/** What the network stage needs of each station: from its series in one run, from a shard output in a merge. */
-function networkStation(s: StationSeries, outcome: StationOutcome): ShardStation {
-  const st: ShardStation = { station: s.station };
-  if (s.meta) st.meta = s.meta;
-  if (s.length > 0) st.span = { startMs: s.timeMs[0]!, endMs: s.timeMs[s.length - 1]! };
-  if ('error' in outcome) st.failure = `detection failed: ${outcome.error}`;
-  else if (s.meta && Number.isFinite(s.meta.latDeg)) st.fields = fieldsOf(s, s.meta);
-  return st;
 }
 
 function networkStage(series: readonly StationSeries[], outcomes: readonly StationOutcome[], opts: AnalyseOptions, plan: { network: boolean; minConfidence: number }): Analysis {
@@ -179,7 +168,13 @@ function networkStage(series: readonly StationSeries[], outcomes: readonly Stati
  * Tracking, network coherence, frontogenesis and track speeds over the stations that were detected
  * (`events`: their passages at the detection floor, in station order). Failed stations take no part.
  */
-function finishAnalysis(stations: readonly ShardStation[], events: PassageEvent[], opts: AnalyseOptions, plan: { network: boolean; minConfidence: number }): Analysis {
+function finishAnalysis(
+  stations: readonly ShardStation[],
+  events: PassageEvent[],
+  opts: AnalyseOptions,
+  plan: { network: boolean; minConfidence: number },
+  fields: readonly (StationFields | StationFieldsRef)[] = stations.filter((s) => s.failure === undefined && s.fields !== undefined).map((s) => s.fields!),
+): Analysis {
   const failures: StationFailure[] = stations.filter((s) => s.failure !== undefined).map((s) => ({ station: s.station, reason: s.failure! }));
   const ok = stations.filter((s) => s.failure === undefined);
   let all = events;
@@ -194,7 +189,7 @@ function finishAnalysis(stations: readonly ShardStation[], events: PassageEvent[
     // Tracks are refitted on the passages that remain.
     allTracks = trackFronts(all, metas, { spans });
   } else if (plan.network) all = all.filter((e) => e.confidence >= plan.minConfidence);
-  allTracks = opts.network === false ? [] : withFrontogenesisFields(allTracks, ok.map((s) => s.fields).filter((f): f is StationFields => f !== undefined));
+  allTracks = opts.network === false ? [] : withFrontogenesisFields(allTracks, fields);
   // The fitted speed is the speed normal to the front; an explicit --front-speed wins.
   if (opts.frontSpeedKmh === undefined) all = withTrackSpeeds(all, allTracks);
   const kinds = opts.kinds;
@@ -218,22 +213,22 @@ export async function analyseShard(series: readonly StationSeries[], shard: Shar
   const jobs = jobsOpt ?? defaultJobs();
   const outcomes: StationOutcome[] =
     jobs > 1 && mine.length > 1
-      ? await detectInPool(mine, dopts, jobs, (done, s) => onStation?.(done, mine.length, s))
+      ? await detectInPool(mine, dopts, jobs, (done, s) => onStation?.(done, mine.length, s.length))
       : mine.map((s, i) => {
-          let o: StationOutcome;
-          try {
-            o = { events: detectWithOperatorFields(s, { ...rest, ...dopts }) };
-          } catch (e) {
-            o = { error: (e as Error).message };
-          }
-          onStation?.(i + 1, mine.length, s);
+          const o = detectOutcome(s, { ...rest, ...dopts });
+          onStation?.(i + 1, mine.length, s.length);
           return o;
         });
   const stations = mine.map((s, i) => networkStation(s, outcomes[i]!));
   const events = outcomes.flatMap((o) => ('error' in o ? [] : o.events));
-  const header: ShardHeader = { shard, network: plan.network, floor: plan.floor, minConfidence: plan.minConfidence, archiveStations: series.length };
-  if (rest.frontSpeedKmh !== undefined) header.frontSpeedKmh = rest.frontSpeedKmh;
-  return { text: shardToNdjson(header, stations, events), stations: mine.length, failures: stations.filter((s) => s.failure).map((s) => ({ station: s.station, reason: s.failure! })) };
+  return shardOutput(shard, plan, series.length, rest, stations, events);
+}
+
+/** The NDJSON of a shard and its failures. */
+function shardOutput(shard: ShardSpec, plan: { network: boolean; floor: number; minConfidence: number }, archiveStations: number, opts: AnalyseOptions, stations: readonly ShardStation[], events: readonly PassageEvent[]): { text: string; stations: number; failures: StationFailure[] } {
+  const header: ShardHeader = { shard, network: plan.network, floor: plan.floor, minConfidence: plan.minConfidence, archiveStations };
+  if (opts.frontSpeedKmh !== undefined) header.frontSpeedKmh = opts.frontSpeedKmh;
+  return { text: shardToNdjson(header, stations, events), stations: stations.length, failures: stations.filter((s) => s.failure).map((s) => ({ station: s.station, reason: s.failure! })) };
 }
 
 /**
@@ -278,4 +273,203 @@ export function mergeShards(contents: readonly { source: string; content: ShardC
   const fopts: AnalyseOptions = { kinds: opts.kinds ?? null, network: first.network ? undefined : false };
   if (first.frontSpeedKmh !== undefined) fopts.frontSpeedKmh = first.frontSpeedKmh;
   return { ...finishAnalysis(stations, events, fopts, plan), stations: ids };
+}
+
+export interface StreamOptions extends ParallelAnalyseOptions {
+  /** Detect only this shard's stations and give its NDJSON records (as analyseShard). */
+  shard?: ShardSpec;
+  /** Keep every station's inspect details for the load summary (default true; in a shard the other stations are read again for them). */
+  details?: boolean;
+  /** Called once every file is read, with the number of stations to detect, their rows and the file reports (for progress). */
+  onPlan?: (stations: number, rows: number, files: number) => void;
+}
+
+/** What a streamed run read: the file reports, the stations, and per station the details of its series. */
+export interface StreamedLoad {
+  /** One report per input file, in reading order (as LoadResult.reports). */
+  reports: FileReport[];
+  /** Stations read from stations files. */
+  stations: StationMeta[];
+  /** Station ids with data, sorted (as LoadResult.series' ids). */
+  ids: string[];
+  /** Metadata of the stations that have it, in id order (as LoadResult.series' metas). */
+  metas: StationMeta[];
+  /** Inspect details per station, in id order (absent for a station whose work failed, or with `details: false`). */
+  details: InspectStation[];
+}
+
+/**
+ * `loadPaths` and `analyseSeriesParallel` (or `analyseShard`) in one streamed pass with bounded memory: every data
+ * file is read once to learn its stations (its report and notes kept), then each station is done on its own:
+ * its rows (from the files that hold only it, read again, and the rows kept of files that hold several) → series
+ * → station pressure → QC → detection → the compact record the network stage needs; the series is dropped.
+ * Files and stations go to `jobs` worker threads (each reads its own files). Results, reports and notes are
+ * those of loadPaths followed by analyseSeriesParallel (or analyseShard), for every `jobs` value and input order.
+ * A station whose work fails is reported (failures) and skipped.
+ */
+export async function detectPaths(paths: readonly string[], loadOpts: LoadOptions, opts: StreamOptions = {}): Promise<{ load: StreamedLoad; analysis?: Analysis; shard?: { text: string; stations: number; failures: StationFailure[] } }> {
+  const { jobs: jobsOpt, onStation, onPlan, shard, details: wantDetails, ...rest } = opts;
+  const jobs = jobsOpt ?? defaultJobs();
+  if (!(Number.isInteger(jobs) && jobs >= 1)) throw new RangeError(`jobs must be a whole number of at least 1 (got ${jobs})`);
+  checkDetectOptions(rest);
+  const scanned = scanPaths(paths, loadOpts);
+  const files = scanned.dataFiles;
+  const { onNote: _n, stdinText: _t, stdinFd: _f, ...read } = loadOpts;
+  const ctx: RunContext = { stations: scanned.stations, read, files };
+  const prep = prepareContext(ctx);
+  // workers get the files they may read by path (the others are read here)
+  const byPath = files.map(readableByPath);
+  const workerCtx: RunContext = { ...ctx, files: files.map(fileForWorker) };
+  let pool = jobs > 1 && files.length > 0 ? new WorkerPool(jobs, workerCtx) : null;
+  let spill: FieldSpill | null = null;
+  try {
+    // 1. Every file once: its stations, report, notes, positions (and the rows of files read only once).
+    const census: FileCensus[] = new Array(files.length);
+    const inWorkers = files.map((_, i) => i).filter((i) => pool && byPath[i]);
+    const census1 = pool ? pool.run<FileCensus>(inWorkers.map((i) => ({ kind: 'census', at: i, file: fileForWorker(files[i]!) })), {}) : null;
+    files.forEach((f, i) => {
+      if (!(pool && byPath[i])) census[i] = censusFile(prep, i, f);
+    });
+    if (census1) (await census1).forEach((r, k) => (census[inWorkers[k]!] = 'error' in r ? failedCensus(files[inWorkers[k]!]!, r.error) : r.value));
+    const note = loadOpts.onNote ?? (() => {});
+    const reports = [...scanned.reports];
+    const positions: StationPositions = new Map();
+    const parts = new Map<string, StationPart[]>();
+    const rowsOf = new Map<string, number>();
+    census.forEach((c, i) => {
+      for (const m of c.notes) note(m);
+      reports.push(...c.reports);
+      for (const [id, pos] of c.positions) positions.set(id, pos);
+      c.stations.forEach((id, k) => {
+        let list = parts.get(id);
+        if (!list) parts.set(id, (list = []));
+        list.push(c.held ? { file: i, rows: c.held[k]! } : { file: i });
+        rowsOf.set(id, (rowsOf.get(id) ?? 0) + c.rows[k]!);
+      });
+      // the rows now belong to their stations' tasks only
+      delete c.held;
+    });
+    const ids = [...parts.keys()].sort();
+    const metaOf = new Map<string, StationMeta>();
+    for (const id of ids) {
+      let meta = resolveStation(prep.index, id).meta;
+      if (!meta) {
+        const pos = positions.get(id);
+        if (pos && !Number.isNaN(pos.latDeg)) meta = { id, aliases: [], ...pos };
+      }
+      if (meta) metaOf.set(id, meta);
+    }
+    const load: StreamedLoad = { reports, stations: scanned.stations, ids, metas: ids.filter((id) => metaOf.has(id)).map((id) => metaOf.get(id)!), details: [] };
+    if (ids.length === 0) return { load };
+    // 2. Station by station: the plan is the one loadPaths + analyseSeries would make of the whole archive.
+    const plan = planFor(metaOf.size, rest);
+    const dopts = stationOptions(rest, plan.floor);
+    const detectHere = (id: string) => !shard || inShard(id, shard);
+    const todo = ids.filter((id) => detectHere(id) || wantDetails !== false);
+    const tasks: StationTask[] = todo.map((id) => {
+      const t: StationTask = { station: id, parts: parts.get(id)! };
+      const meta = metaOf.get(id);
+      if (meta) t.meta = meta;
+      if (detectHere(id)) t.detect = dopts;
+      return t;
+    });
+    parts.clear();
+    const detected = tasks.filter((t) => t.detect).length;
+    const rowsToDetect = tasks.reduce((a, t) => a + (t.detect ? rowsOf.get(t.station)! : 0), 0);
+    onPlan?.(detected, rowsToDetect, reports.length);
+    let done = 0;
+    // The frontogenesis fields of a whole run go to a temporary file as each station is done (not in a shard: its output holds them).
+    spill = shard ? null : new FieldSpill();
+    const progress = (i: number, t: StationTask, r: PoolResult<StationResult>) => {
+      const st = 'value' in r ? r.value.network : undefined;
+      if (spill && st?.fields) {
+        fieldsKept[i] = spill.keep(st.fields);
+        delete st.fields;
+      }
+      if (t.detect) onStation?.(++done, detected, rowsOf.get(t.station)!);
+    };
+    const fieldsKept: (StationFields | StationFieldsRef | undefined)[] = new Array(tasks.length);
+    /** One station in this thread; its rows are dropped once done. */
+    const inline = (i: number, t: StationTask): PoolResult<StationResult> => {
+      let r: PoolResult<StationResult>;
+      try {
+        r = { value: stationWork(prep, t) };
+      } catch (e) {
+        r = { error: e instanceof Error ? e.message : String(e) };
+      }
+      tasks[i] = { ...t, parts: [] };
+      progress(i, t, r);
+      return r;
+    };
+    let results: PoolResult<StationResult>[];
+    if (pool) {
+      // longest first (see detectInPool), stations only read for their details last
+      const order = tasks.map((_, i) => i).sort((a, b) => Number(!tasks[a]!.detect) - Number(!tasks[b]!.detect) || rowsOf.get(tasks[b]!.station)! - rowsOf.get(tasks[a]!.station)! || a - b);
+      // Memory bounded by the largest station: stations run side by side only while their rows stay within the
+      // largest station's plus a median station's per other worker (two of the largest of a mixed archive never run
+      // at once, the smaller ones fill the other workers; stations of one size all run side by side).
+      const weights = tasks.map((t) => rowsOf.get(t.station)!);
+      const sorted = [...weights].sort((a, b) => a - b);
+      const largest = sorted[sorted.length - 1]!;
+      const budget = largest + (jobs - 1) * sorted[sorted.length >> 1]!;
+      // The station workers' heaps are bounded too (V8 otherwise lets garbage grow far beyond what a station keeps
+      // alive): 128 MB, or 1.5 kB per row of the largest station; a station that needs more is done again here.
+      await pool.close();
+      pool = new WorkerPool(jobs, workerCtx, { maxOldGenerationSizeMb: Math.max(128, Math.ceil((largest * 1536) / 2 ** 20)) });
+      const poolTasks = tasks.map((task): PoolTask => ({ kind: 'station', task }));
+      results = await pool.run<StationResult>(poolTasks, {
+        order,
+        weights,
+        budget,
+        onDone: (_d, i, r) => {
+          if ('error' in r && r.error.includes(MEMORY_LIMIT)) return;
+          progress(i, tasks[i]!, r);
+          // its rows are not needed any more
+          tasks[i] = { ...tasks[i]!, parts: [] };
+          poolTasks[i] = { kind: 'station', task: tasks[i]! };
+        },
+      });
+      await pool.close();
+      results.forEach((r, i) => {
+        if (!('error' in r && r.error.includes(MEMORY_LIMIT))) return;
+        results[i] = inline(i, tasks[i]!);
+      });
+    } else {
+      results = tasks.map((t, i) => inline(i, t));
+    }
+    // the workers' memory is given back before tracking
+    await pool?.close();
+    const stations: ShardStation[] = [];
+    const events: PassageEvent[] = [];
+    const fields: (StationFields | StationFieldsRef)[] = [];
+    results.forEach((r, i) => {
+      const t = tasks[i]!;
+      if ('value' in r) load.details.push(r.value.details);
+      if (!detectHere(t.station)) return;
+      if ('error' in r) {
+        // as a worker that stopped during detection of a series (detectInPool)
+        const st: ShardStation = { station: t.station, failure: `detection failed: ${r.error}` };
+        const meta = metaOf.get(t.station);
+        if (meta) st.meta = meta;
+        stations.push(st);
+        return;
+      }
+      stations.push(r.value.network!);
+      const f = fieldsKept[i] ?? r.value.network!.fields;
+      if (f && r.value.network!.failure === undefined) fields.push(f);
+      const o = r.value.outcome!;
+      if (!('error' in o)) for (const e of o.events) events.push(e);
+    });
+    if (shard) return { load, shard: shardOutput(shard, plan, ids.length, rest, stations, events) };
+    return { load, analysis: finishAnalysis(stations, events, rest, plan, fields) };
+  } finally {
+    await pool?.close();
+    spill?.close();
+  }
+}
+
+/** The census of a file whose reading failed in a worker: an unreadable file, its reason in its report. */
+function failedCensus(f: DataFile, error: string): FileCensus {
+  const r: FileReport = { ...newFileReport(f.path, 'unreadable'), notes: [`cannot read the file (${error})`] };
+  return { reports: [r], positions: [], notes: [`${f.path}: cannot read the file (${error})`], stations: [], rows: [] };
 }

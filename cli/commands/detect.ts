@@ -1,7 +1,7 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, CAUTION, parsePoint, parsePointsFile, toGeoJson, type PointOfInterest, type StationMeta, analyseSeries, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjson, eventsToTable, loadPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage, analyseShard, parseShard } from '../../src/index.js';
+import { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, CAUTION, parsePoint, parsePointsFile, toGeoJson, type PointOfInterest, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjsonPieces, eventsToTable, detectPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage, parseShard } from '../../src/index.js';
 import { inputArgs, inputFiles, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
-import { analysisStatus, parseJobs, runAnalysis } from '../analysis.js';
+import { analysisStatus, parseJobs, progressBar, reportFailures } from '../analysis.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
 export function parseKinds(spec: unknown): Set<BoundaryKind> | null {
@@ -97,42 +97,60 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   }
   if (shard && kinds) throw new UsageError('--kinds with --shard: give --kinds to fropa merge (tracking needs every kind)');
   const opts = await resolveLoadOptions(args, io);
-  const result = loadPaths(args.paths, opts);
-  if (result.series.length === 0) {
+  const quiet = Boolean(args.quiet);
+  // Streamed: each station's series is held only while it is detected (detectPaths).
+  const bar = await progressBar(io, quiet);
+  let run: Awaited<ReturnType<typeof detectPaths>>;
+  try {
+    run = await detectPaths(args.paths, opts, {
+      ...dopts, network: raw.network !== false, kinds, jobs, runways, details: !quiet,
+      ...(shard ? { shard } : {}),
+      ...(bar ? { onPlan: bar.start, onStation: bar.onStation } : {}),
+    });
+  } finally {
+    bar?.stop();
+  }
+  const result = run.load;
+  if (result.ids.length === 0) {
     io.stderr(noDataMessage(args.paths, result.reports));
     return 1;
   }
-  printLoadSummary(result, Boolean(args.quiet), io);
-  if (shard) {
-    const r = await analyseShard(result.series, shard, { ...dopts, network: raw.network !== false, jobs });
-    for (const f of r.failures) io.stderr(`fropa: station ${f.station} skipped: ${f.reason}\n`);
+  printLoadSummary(result, quiet, io);
+  if (run.shard) {
+    const r = run.shard;
+    reportFailures(r.failures, io);
     await writeOutput(r.text, args.out, io);
-    if (!args.quiet) io.stderr(`fropa: shard ${shard.index}/${shard.count}: ${r.stations} of ${result.series.length} stations\n`);
+    if (!args.quiet) io.stderr(`fropa: shard ${shard!.index}/${shard!.count}: ${r.stations} of ${result.ids.length} stations\n`);
     return r.failures.length === 0 ? 0 : r.failures.length >= r.stations ? 1 : 3;
   }
-  const analysis = await runAnalysis(result.series, { ...dopts, network: raw.network !== false, kinds, jobs, runways }, io, { files: result.reports.length, quiet: Boolean(args.quiet) });
-  if (analysis.failures.length >= result.series.length) return analysisStatus(analysis, result.series.length, io);
+  const analysis = run.analysis!;
+  reportFailures(analysis.failures, io);
+  if (analysis.failures.length >= result.ids.length) return analysisStatus(analysis, result.ids.length, io);
   const { events, tracks } = analysis;
-  const stations = result.series.map((s) => s.station);
+  const stations = result.ids;
   const safe = { force: args.force, inputs: inputFiles(result.reports, [...args.paths, args.mapping, args.stations]) };
   const outDir = raw.outDir as string | undefined;
   if (outDir !== undefined) {
-    const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+    const metas = result.metas;
     const { summary, files } = outputFolderFiles(events, tracks, stations, metas);
     const written = writeOutputFolder(outDir, files, safe);
     io.stdout(summary + written.map((p) => `wrote ${p}`).join('\n') + '\n');
-    return analysisStatus(analysis, result.series.length, io);
+    return analysisStatus(analysis, result.ids.length, io);
   }
   const tableOpts = { zone: local ? opts.zone : undefined, stations, windUnit };
   const arrivals = arrivalsAt(points, tracks);
   let text: string;
   if (what === 'arrivals' && format !== 'table' && format !== 'geojson') text = format === 'csv' ? arrivalsToCsv(arrivals) : arrivalsToJson(arrivals, format === 'ndjson');
   else if (format === 'geojson') {
-    const metas = result.series.map((s) => s.meta).filter((m): m is StationMeta => m !== undefined);
+    const metas = result.metas;
     text = toGeoJson({ events: what === 'fronts' || what === 'arrivals' ? [] : events, tracks: what === 'events' || what === 'arrivals' ? [] : tracks, stations: metas, arrivals });
   } else if (format === 'csv') text = what === 'fronts' ? tracksToCsv(tracks) : eventsToCsv(events, { windUnit });
   else if (format === 'json') text = what === 'fronts' ? tracksToJson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks) : eventsToJson(events);
-  else if (format === 'ndjson') text = what === 'fronts' ? tracksToNdjson(tracks) : what === 'all' ? eventsAndTracksToJson(events, tracks, true) : eventsToNdjson(events);
+  else if (format === 'ndjson' && what === 'events') {
+    // written piece by piece: a whole archive's passages are never held as one text
+    await writeOutput(eventsToNdjsonPieces(events), args.out, io, safe);
+    return analysisStatus(analysis, result.ids.length, io);
+  } else if (format === 'ndjson') text = what === 'fronts' ? tracksToNdjson(tracks) : eventsAndTracksToJson(events, tracks, true);
   else {
     text = what === 'fronts' ? tracksToTable(tracks) || 'no fronts tracked\n' : what === 'events' ? eventsToTable(events, tableOpts) : what === 'arrivals' ? '' : passagesToTable(events, tracks, tableOpts);
     if (points.length && (what === 'all' || what === 'arrivals')) {
@@ -142,6 +160,6 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
     }
   }
   await writeOutput(text, args.out, io, safe);
-  return analysisStatus(analysis, result.series.length, io);
+  return analysisStatus(analysis, result.ids.length, io);
 }
 

@@ -326,7 +326,7 @@ export function scanPaths(paths: readonly string[], opts: ReadOptions = {}): Sca
     note(`${name}: ${message}`);
   };
   /** A gzip stream that stopped expanding (a bomb or damaged data), refused as above. */
-  const refuseGzip = (name: string, e: unknown): void => refuseGzip(name, e);
+  const refuseGzip = (name: string, e: unknown): void => refuse(name, e instanceof GzipStreamError ? e.reason : 'bad-gzip', (e as Error).message);
   /** A file that could not be read: its report says why. */
   const unreadable = (path: string, e: unknown): void => {
     const why = readFailure(e);

@@ -126,32 +126,69 @@ export function withFrontogenesis(tracks: readonly FrontTrack[], series: readonl
   return withFrontogenesisFields(tracks, fields, neighbours);
 }
 
-/** {@link withFrontogenesis} from the stations' fields (as kept by shard outputs) instead of their series. */
-export function withFrontogenesisFields(tracks: readonly FrontTrack[], fields: readonly StationFields[], neighbours = 4): FrontTrack[] {
-  const byId = new Map<string, StationFields>();
+/** A station's fields kept out of memory (a file of a streamed run), loaded when frontogenesis needs them. */
+export interface StationFieldsRef {
+  meta: StationMeta;
+  load: () => StationFields;
+}
+
+/**
+ * {@link withFrontogenesis} from the stations' fields (as kept by shard outputs) instead of their series. Fields
+ * given as references are loaded one station at a time: every value needed of a station is read while it is loaded.
+ */
+export function withFrontogenesisFields(tracks: readonly FrontTrack[], fields: readonly (StationFields | StationFieldsRef)[], neighbours = 4): FrontTrack[] {
+  type Any = StationFields | StationFieldsRef;
+  const byId = new Map<string, Any>();
   for (const f of fields) byId.set(f.meta.id, f);
   // The neighbourhood of a station (and its projection) is the same for all its passages: computed once.
-  const nearOf = new Map<StationFields, { near: StationFields[]; proj: { xKm: Float64Array; yKm: Float64Array } }>();
-  const neighbourhood = (here: StationFields) => {
+  const nearOf = new Map<Any, { near: Any[]; proj: { xKm: Float64Array; yKm: Float64Array } }>();
+  const neighbourhood = (here: Any) => {
     let got = nearOf.get(here);
     if (!got) {
       const others = [...byId.values()].filter((f) => f !== here);
-      const dist = (f: StationFields) => Math.hypot(f.meta.latDeg - here.meta.latDeg, (f.meta.lonDeg - here.meta.lonDeg) * Math.cos((here.meta.latDeg * Math.PI) / 180));
+      const dist = (f: Any) => Math.hypot(f.meta.latDeg - here.meta.latDeg, (f.meta.lonDeg - here.meta.lonDeg) * Math.cos((here.meta.latDeg * Math.PI) / 180));
       const near = [here, ...others.sort((a, b) => dist(a) - dist(b) || a.meta.id.localeCompare(b.meta.id)).slice(0, neighbours)];
       got = { near, proj: projectLocalKm(near.map((f) => f.meta), here.meta) };
       nearOf.set(here, got);
     }
     return got;
   };
-  return tracks.map((t) => {
-    const members = t.members.map((m) => {
+  // 1. What is needed: θ, u, v of each neighbour at the time of each member (slot q of `values`, three each).
+  const asked = new Map<Any, number[]>();
+  let slots = 0;
+  const plan = tracks.map((t) =>
+    t.members.map((m) => {
       const here = byId.get(m.station);
-      if (!here) return { ...m, frontogenesisKPer100kmPer3h: NaN };
+      if (!here) return null;
       const { near, proj } = neighbourhood(here);
-      const at = (col: 'thetaK' | 'uMs' | 'vMs') => near.map((f) => valueAt(f.timeMs, f[col], m.event.timeMs));
-      const th = planeGradient(proj.xKm, proj.yKm, at('thetaK'));
-      const u = planeGradient(proj.xKm, proj.yKm, at('uMs'));
-      const v = planeGradient(proj.xKm, proj.yKm, at('vMs'));
+      const first = slots;
+      for (const f of near) {
+        let list = asked.get(f);
+        if (!list) asked.set(f, (list = []));
+        list.push(slots++, m.event.timeMs);
+      }
+      return { first, n: near.length, proj };
+    }),
+  );
+  // 2. The values, station by station.
+  const values = new Float64Array(slots * 3);
+  for (const [f, list] of asked) {
+    const x = 'load' in f ? f.load() : f;
+    for (let k = 0; k < list.length; k += 2) {
+      const q = list[k]!, t = list[k + 1]!;
+      values[q * 3] = valueAt(x.timeMs, x.thetaK, t);
+      values[q * 3 + 1] = valueAt(x.timeMs, x.uMs, t);
+      values[q * 3 + 2] = valueAt(x.timeMs, x.vMs, t);
+    }
+  }
+  return tracks.map((t, ti) => {
+    const members = t.members.map((m, mi) => {
+      const p = plan[ti]![mi];
+      if (!p) return { ...m, frontogenesisKPer100kmPer3h: NaN };
+      const at = (c: number) => Array.from({ length: p.n }, (_, k) => values[(p.first + k) * 3 + c]!);
+      const th = planeGradient(p.proj.xKm, p.proj.yKm, at(0));
+      const u = planeGradient(p.proj.xKm, p.proj.yKm, at(1));
+      const v = planeGradient(p.proj.xKm, p.proj.yKm, at(2));
       // per km → per m
       const f = petterssenFrontogenesis({ thetaX: th.dfdxPerKm / 1000, thetaY: th.dfdyPerKm / 1000, ux: u.dfdxPerKm / 1000, uy: u.dfdyPerKm / 1000, vx: v.dfdxPerKm / 1000, vy: v.dfdyPerKm / 1000 });
       return { ...m, frontogenesisKPer100kmPer3h: f.fKPer100kmPer3h };

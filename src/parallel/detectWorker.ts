@@ -1,22 +1,32 @@
 /**
- * Worker thread of the detection pool (detectPool.ts): receives one station series at a time, runs the
- * single-station detector on it and posts back its passages, or the reason it failed. Holds no state
- * between stations.
+ * Worker thread of the pool (detectPool.ts): receives one task at a time (detect one series; read one file;
+ * the whole work of one station, stationWork.ts) and posts back its value, or the reason it failed. Holds no
+ * state between tasks but the run's context (its workerData: stations, reading options, data files).
  */
-import { parentPort } from 'node:worker_threads';
-import { detectWithOperatorFields } from '../report/operatorFields.js';
-import type { DetectOptions } from '../detect/types.js';
+import { parentPort, workerData } from 'node:worker_threads';
+import { censusFile, detectOutcome, prepareContext, stationWork, type PreparedContext, type RunContext } from './stationWork.js';
+import { transferables, type PoolReply, type PoolTask } from './detectPool.js';
 import type { StationSeries } from '../model/index.js';
-import type { PoolReply, PoolTask } from './detectPool.js';
 
 const port = parentPort;
+let prepared: PreparedContext | null = null;
+const context = (): PreparedContext => (prepared ??= prepareContext(workerData as RunContext));
+
 if (port) {
-  port.on('message', (task: PoolTask) => {
+  port.on('message', ({ index, task }: { index: number; task: PoolTask }) => {
     let reply: PoolReply;
     try {
-      reply = { index: task.index, events: detectWithOperatorFields(task.series as StationSeries, task.opts as DetectOptions) };
+      const value =
+        task.kind === 'detect'
+          ? detectOutcome(task.series as StationSeries, task.opts)
+          : task.kind === 'census'
+            ? censusFile(context(), task.at, task.file)
+            : stationWork(context(), task.task);
+      // the detect outcome of a series is small; the rows of a census and a station's fields are handed over
+      port.postMessage({ index, value } satisfies PoolReply, task.kind === 'detect' ? [] : transferables(value));
+      return;
     } catch (e) {
-      reply = { index: task.index, error: e instanceof Error ? e.message : String(e) };
+      reply = { index, error: e instanceof Error ? e.message : String(e) };
     }
     port.postMessage(reply);
   });

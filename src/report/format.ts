@@ -265,7 +265,16 @@ export function eventsToCsv(events: readonly PassageEvent[], opts: RecordOptions
 
 /** Events as newline-delimited JSON: one record object per line (winds in m/s, the unit in each key). */
 export function eventsToNdjson(events: readonly PassageEvent[]): string {
-  return events.map((e) => JSON.stringify(eventToRecord(e)) + '\n').join('');
+  return [...eventsToNdjsonPieces(events)].join('');
+}
+
+/** {@link eventsToNdjson} in pieces of `perPiece` lines (for writing a large output without holding it whole). */
+export function* eventsToNdjsonPieces(events: readonly PassageEvent[], perPiece = 1000): Generator<string> {
+  for (let i = 0; i < events.length; i += perPiece) {
+    let piece = '';
+    for (const e of events.slice(i, i + perPiece)) piece += JSON.stringify(eventToRecord(e)) + '\n';
+    yield piece;
+  }
 }
 
 /** Events as one JSON array of records (one record per line, for readable diffs; winds in m/s, the unit in each key). */

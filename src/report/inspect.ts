@@ -97,7 +97,11 @@ export function inspectStation(s: StationSeries, qc?: QcSummary): InspectStation
 
 /** Combine file reports and series into one record per file, stations attached to the files they came from. */
 export function buildInspect(reports: readonly FileReport[], series: readonly StationSeries[], qc: ReadonlyMap<string, QcSummary>): InspectFile[] {
-  const details = series.map((s) => inspectStation(s, qc.get(s.station)));
+  return inspectFiles(reports, series.map((s) => inspectStation(s, qc.get(s.station))));
+}
+
+/** {@link buildInspect} from the stations' details (as a streamed run keeps them instead of the series). */
+export function inspectFiles(reports: readonly FileReport[], details: readonly InspectStation[]): InspectFile[] {
   return reports.map((r) => {
     const here = details.filter((d) => d.files.includes(r.file));
     return {

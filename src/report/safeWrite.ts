@@ -3,7 +3,7 @@
  * unless forced, and atomically (each file written to a temporary name in its own folder, then renamed), so a
  * failure never leaves a mixed set of old and new files.
  */
-import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, statSync, writeFileSync } from 'node:fs';
+import { existsSync, mkdirSync, realpathSync, renameSync, rmSync, statSync, writeFileSync, openSync, writeSync, closeSync } from 'node:fs';
 import { basename, dirname, join, resolve } from 'node:path';
 import { UsageError } from '../model/index.js';
 
@@ -19,7 +19,8 @@ export interface SafeWriteOptions {
 /** One file to write: where, and its text. */
 export interface PlannedFile {
   path: string;
-  text: string;
+  /** The whole text, or its pieces in order (written one at a time, so the whole text is never held). */
+  text: string | Iterable<string>;
 }
 
 /** Canonical path: the real path when it exists, else the real path of the nearest existing folder joined with the rest. */
@@ -81,7 +82,17 @@ export function writeFilesSafely(files: readonly PlannedFile[], opts: SafeWriteO
       }
       const tmp = join(dir, `.${basename(f.path)}.fropa-tmp-${process.pid}-${++counter}`);
       try {
-        writeFileSync(tmp, f.text, { flag: 'wx' });
+        if (typeof f.text === 'string') writeFileSync(tmp, f.text, { flag: 'wx' });
+        else {
+          const fd = openSync(tmp, 'wx');
+          temps.push(tmp);
+          try {
+            for (const piece of f.text) writeSync(fd, piece);
+          } finally {
+            closeSync(fd);
+          }
+          temps.pop();
+        }
       } catch (e) {
         throw new Error(`${f.path}: cannot write the output file (${(e as NodeJS.ErrnoException).code ?? (e as Error).message})`);
       }

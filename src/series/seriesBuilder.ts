@@ -50,6 +50,17 @@ export interface Columns extends FieldColumns {
   remarkLists: readonly ObserverRemark[][];
 }
 
+/**
+ * One station's rows as records (STRIDE doubles each, exact length) with its observer remarks: what a reader thread
+ * hands over so that another thread appends them (`SeriesBuilder.addRows`); structured-clonable, its buffer transferable.
+ */
+export interface StationRows {
+  length: number;
+  records: Float64Array;
+  remarkRows: number[];
+  remarkLists: ObserverRemark[][];
+}
+
 /** One station's rows as they arrived (input order), one record of STRIDE doubles per row, in chunks (no copying on growth). */
 export class StationColumns {
   readonly station: string;
@@ -109,6 +120,33 @@ export class StationColumns {
       this.remarkLists.push(rm);
     }
     this.length = i + 1;
+  }
+
+  /** The rows as one record array (a copy; see StationRows). */
+  exportRows(): StationRows {
+    const records = new Float64Array(this.length * STRIDE);
+    let at = 0;
+    for (const r of this.chunks) {
+      const k = Math.min(r.length, records.length - at);
+      records.set(k === r.length ? r : r.subarray(0, k), at);
+      at += k;
+    }
+    return { length: this.length, records, remarkRows: [...this.remarkRows], remarkLists: [...this.remarkLists] };
+  }
+
+  /** Append rows handed over by `exportRows()` (their file indices are kept as they are). */
+  appendRows(rows: StationRows): void {
+    for (let k = 0; k < rows.length; k++) {
+      if (this.used === this.rows) this.grow();
+      this.cur.set(rows.records.subarray(k * STRIDE, (k + 1) * STRIDE), this.used * STRIDE);
+      this.used++;
+    }
+    const base = this.length;
+    for (let k = 0; k < rows.remarkRows.length; k++) {
+      this.remarkRows.push(base + rows.remarkRows[k]!);
+      this.remarkLists.push(rows.remarkLists[k]!);
+    }
+    this.length = base + rows.length;
   }
 
   /** The rows as exact-length columns (fresh arrays). */
@@ -192,9 +230,17 @@ export class SeriesBuilder {
   private lastColumns: StationColumns | null = null;
   private readonly resolve: ((id: string) => string) | undefined;
 
-  /** `resolve` maps a raw station id to the id the series is kept under (alias resolution); called once per distinct raw id. */
-  constructor(resolve?: (id: string) => string) {
+  /**
+   * `resolve` maps a raw station id to the id the series is kept under (alias resolution); called once per distinct raw id.
+   * `files` fixes the file table in advance (file names in reading order), so that builders of different threads or
+   * stations give every file the same index; without it files are numbered in order of first appearance.
+   */
+  constructor(resolve?: (id: string) => string, files?: readonly string[]) {
     this.resolve = resolve;
+    if (files) for (const f of files) if (!this.fileIdx.has(f)) {
+      this.fileIdx.set(f, this.files.length);
+      this.files.push(f);
+    }
   }
 
   /** Number of rows added so far. */
@@ -237,6 +283,30 @@ export class SeriesBuilder {
   /** Copy one observation in (the object may be reused by the caller afterwards). */
   add(o: Observation): void {
     this.columnsOf(o.station).push(o, this.fileIndexOf(o.file));
+  }
+
+  /** Append rows of a station (resolved id) handed over by another builder with the same file table. */
+  addRows(station: string, rows: StationRows): void {
+    let c = this.byStation.get(station);
+    if (c === undefined) {
+      c = new StationColumns(station);
+      this.byStation.set(station, c);
+    }
+    c.appendRows(rows);
+  }
+
+  /** A station's rows handed over (exportRows), then forgotten here so that their memory can be given back. */
+  take(station: string): StationRows {
+    const c = this.byStation.get(station);
+    if (c === undefined) return { length: 0, records: new Float64Array(0), remarkRows: [], remarkLists: [] };
+    const rows = c.exportRows();
+    this.byStation.delete(station);
+    for (const [raw, col] of this.byRawId) if (col === c) this.byRawId.delete(raw);
+    if (this.lastColumns === c) {
+      this.lastRawId = null;
+      this.lastColumns = null;
+    }
+    return rows;
   }
 
   /** Resolved station ids, in order of first appearance. */

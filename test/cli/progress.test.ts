@@ -20,17 +20,18 @@ test('progressBar(): draws stations, rows, rate and time left on a terminal; nul
     const series = [allocSeries('XA', 100), allocSeries('XB', 50)];
     const term = fakeTerminal();
     const io = { stdout: () => {}, stderr: () => {}, readStdin: async () => '', progress: term.stream };
-    const bar = await progressBar(series, 2, io, false);
+    const bar = await progressBar(io, false);
     assert.ok(bar);
-    bar!.onStation(1, 2, series[0]!);
-    bar!.onStation(2, 2, series[1]!);
+    bar!.start(series.length, series[0]!.length + series[1]!.length, 2);
+    bar!.onStation(1, 2, series[0]!.length);
+    bar!.onStation(2, 2, series[1]!.length);
     bar!.stop();
     assert.match(term.text(), /stations/);
     assert.match(term.text(), /150 rows of 2 files/);
-    assert.is(await progressBar(series, 2, io, true), null, '--quiet');
-    assert.is(await progressBar(series, 2, { ...io, progress: undefined }, false), null, 'no terminal');
+    assert.is(await progressBar(io, true), null, '--quiet');
+    assert.is(await progressBar({ ...io, progress: undefined }, false), null, 'no terminal');
     process.env.CI = 'true';
-    assert.is(await progressBar(series, 2, io, false), null, 'CI');
+    assert.is(await progressBar(io, false), null, 'CI');
   } finally {
     if (ci === undefined) delete process.env.CI;
     else process.env.CI = ci;

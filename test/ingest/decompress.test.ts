@@ -1,7 +1,7 @@
 /** gzip inputs (src/ingest/decompress.ts and the loader). */
 import { test } from 'uvu';
 import * as assert from 'uvu/assert';
-import { mkdtempSync, writeFileSync } from 'node:fs';
+import { mkdtempSync, rmSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { gzipSync } from 'node:zlib';
@@ -62,6 +62,17 @@ test('GunzipPieces expands piece by piece (several members, RFC 1952 §2.2) and 
   }, (e: unknown) => e instanceof GzipStreamError && e.reason === 'decompression-bomb');
   const cut = gzipSync(CSV).subarray(0, 20);
   assert.throws(() => new GunzipPieces().push(cut, true), (e: unknown) => e instanceof GzipStreamError && e.reason === 'bad-gzip');
+});
+
+test('loadPaths(): a damaged gzip file of 1 MiB or more (read as a stream) is refused as bad-gzip, its reason in the report', () => {
+  // RFC 1952: magic 1f 8b, method 8 (deflate), no flags, then a deflate stream, here bytes that are not one
+  let x = 12345;
+  const junk = Buffer.alloc(2 << 20, 0).map(() => ((x = (Math.imul(x, 1103515245) + 12345) >>> 0), x >>> 24));
+  writeFileSync(join(dir, 'damaged.txt.gz'), Buffer.concat([Buffer.from([0x1f, 0x8b, 8, 0, 0, 0, 0, 0, 0, 3]), junk]));
+  const r = loadPaths([join(dir, 'damaged.txt.gz')]).reports[0]!;
+  assert.is(r.format, 'skipped');
+  assert.equal(r.rejectedByReason, { 'bad-gzip': 1 });
+  rmSync(join(dir, 'damaged.txt.gz'));
 });
 
 test.run();
