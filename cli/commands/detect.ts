@@ -1,6 +1,6 @@
 /** `fropa detect <paths...>`: load, detect passages at every station, write them out. */
-import { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, CAUTION, parsePoint, parsePointsFile, toGeoJson, type PointOfInterest, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjsonPieces, eventsToTable, detectPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage, parseShard } from '../../src/index.js';
-import { inputArgs, inputFiles, printLoadSummary, resolveLoadOptions, writeOutput, type CliIo } from '../options.js';
+import { arrivalsAt, arrivalsToCsv, arrivalsToJson, arrivalsToTable, CAUTION, parsePoint, parsePointsFile, toGeoJson, type PointOfInterest, BOUNDARY_KINDS, eventsAndTracksToJson, eventsToCsv, eventsToJson, eventsToNdjsonPieces, eventsToTable, detectPaths, outputFolderFiles, parseRunways, passagesToTable, tracksToCsv, tracksToJson, tracksToNdjson, tracksToTable, writeOutputFolder, type BoundaryKind, type DetectOptions, type RunwayHeading, type WindUnit, UsageError, noDataMessage, parseShard, checkOutputs } from '../../src/index.js';
+import { inputArgs, inputFiles, printLoadSummary, resolveLoadOptions, STDIN_TOKEN, writeOutput, type CliIo } from '../options.js';
 import { analysisStatus, parseJobs, progressBar, reportFailures } from '../analysis.js';
 
 /** Parse `--kinds a,b` against the known kinds (UsageError on an unknown one). */
@@ -98,6 +98,8 @@ export async function run(raw: Record<string, unknown>, io: CliIo): Promise<numb
   if (shard && kinds) throw new UsageError('--kinds with --shard: give --kinds to fropa merge (tracking needs every kind)');
   const opts = await resolveLoadOptions(args, io);
   const quiet = Boolean(args.quiet);
+  // An --out that would be refused is refused before the work, not after an archive's detection (checked again on writing).
+  if (args.out !== undefined && args.out !== '-' && args.out !== STDIN_TOKEN) checkOutputs([args.out], { force: args.force, inputs: [...args.paths, args.mapping, args.stations].filter((x): x is string => x !== undefined) });
   // Streamed: each station's series is held only while it is detected (detectPaths).
   const bar = await progressBar(io, quiet);
   let run: Awaited<ReturnType<typeof detectPaths>>;

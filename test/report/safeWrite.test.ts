@@ -63,6 +63,10 @@ test('CLI: --out over the input exits 2 and leaves the input intact; an existing
   assert.match(again.stderr, 'already exists; add --force');
   assert.is((await cli(['detect', input, '--format', 'csv', '--out', out, '--force'])).code, 0);
   assert.ok(existsSync(out));
+  // refused before any reading or detection (the input named here does not even exist)
+  const early = await cli(['detect', join(dir, 'not-there.csv'), '--format', 'csv', '--out', out]);
+  assert.is(early.code, 2);
+  assert.match(early.stderr, 'already exists; add --force');
 });
 
 test.run();
