@@ -42,9 +42,10 @@ test('detectPaths(): the bytes, reports and load summary of loadPaths + analyseS
   assert.ok(load.series.some((s) => s.duplicates.some((x) => x.action === 'conflict-resolved')), 'a conflict across files');
   const ref = bytes(await analyseSeriesParallel(load.series, { jobs: 1 }));
   const refSummary = summaryLine(buildInspect(load.reports, load.series, load.qc));
-  for (const [paths, jobs] of [[[dir], 1], [[dir], 2], [[...files].reverse(), 2]] as const) {
+  // [paths, jobs, inlineMaxRows]: one job in this thread, one job in one worker (as a large archive runs), two workers
+  for (const [paths, jobs, inlineMaxRows] of [[[dir], 1, undefined], [[dir], 1, 0], [[dir], 2, undefined], [[...files].reverse(), 2, undefined]] as const) {
     const notes: string[] = [];
-    const r = await detectPaths(paths, { onNote: (m) => notes.push(m) }, { jobs });
+    const r = await detectPaths(paths, { onNote: (m) => notes.push(m) }, { jobs, ...(inlineMaxRows === undefined ? {} : { inlineMaxRows }) });
     assert.is(bytes(r.analysis!), paths.length > 1 ? bytes(await analyseSeriesParallel(loadPaths(paths).series, { jobs: 1 })) : ref, `jobs ${jobs}, ${paths.length} paths`);
     if (paths.length === 1) {
       assert.equal(r.load.reports, load.reports);
