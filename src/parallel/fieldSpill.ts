@@ -2,7 +2,8 @@
  * The frontogenesis fields (θ, u, v per report) of a streamed run, kept in a temporary file instead of memory:
  * each station's four columns are written as they arrive and read back, one station at a time, when the fronts
  * are known (withFrontogenesisFields). The values are the same bytes, so results do not change. When no
- * temporary file can be written, the fields stay in memory.
+ * temporary file can be written, the fields stay in memory. The file has no name once open (removed at once,
+ * read and written through its descriptor), so nothing is left behind when a run is killed.
  */
 import { closeSync, mkdtempSync, openSync, readSync, rmSync, writeSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -20,6 +21,15 @@ export class FieldSpill {
       this.fd = openSync(join(this.dir, 'fields.f64'), 'w+');
     } catch {
       this.close();
+      return;
+    }
+    // The file is removed from its folder at once and used through the open descriptor (POSIX), so a run that is
+    // killed leaves nothing behind; where an open file cannot be removed (Windows), close() removes it.
+    try {
+      rmSync(this.dir, { recursive: true, force: true });
+      this.dir = null;
+    } catch {
+      // kept until close()
     }
   }
 
