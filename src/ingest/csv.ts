@@ -59,6 +59,9 @@ import { lineEndsToLf, normalizeLineEnds, prepareText } from './text.js';
 import { LineSplitter, type TextBlock } from './lines.js';
 import { DEFAULT_TIME_WINDOW, outOfWindowMessage, type TimeWindow } from './plausible.js';
 
+/** What rows of naive local time without a known zone need (the notes' remedy). */
+const ZONE_REMEDY = '--utc-offset MINUTES or --tz ZONE';
+
 /** What a raw-report decoder returns: any Observation fields, plus whether T/Td came from the T remark group. */
 export type RawReportDecoded = Partial<Observation> & { tempFromRemarks?: boolean };
 export type RawReportDecoder = (text: string, timeMs: number, file: string, line: number) => RawReportDecoded | null;
@@ -973,7 +976,7 @@ export class CsvCore {
         this.report.notes.push(`Climate ID ${id}: ${p!.name}, LST read as ${utcOffsetLabel(off)}`);
       } else if (id !== '' && !this.coordZone) {
         this.report.notes.push(
-          `Climate ID ${id}: ${p ? `${p.name} keeps more than one standard time` : 'names no known province'}; its rows need --utc-offset MINUTES or --tz ZONE`,
+          `Climate ID ${id}: ${p ? `${p.name} keeps more than one standard time` : 'names no known province'}; its rows need ${ZONE_REMEDY}`,
         );
       }
     }
@@ -1012,7 +1015,7 @@ export class CsvCore {
         from = "the station's coordinates in the stations file";
       } else {
         // the row has no coordinates: a later row of the station may (none will when the file has no such columns)
-        const why = `station ${id}: no coordinates for the zone (${latCol === NO_COL || lonCol === NO_COL ? 'none in the file' : 'empty or unreadable cells'}, none in a stations file); its rows without them need --utc-offset MINUTES or --tz ZONE`;
+        const why = `station ${id}: no coordinates for the zone (${latCol === NO_COL || lonCol === NO_COL ? 'none in the file' : 'empty or unreadable cells'}, none in a stations file); its rows without them need ${ZONE_REMEDY}`;
         if (latCol === NO_COL || lonCol === NO_COL) this.keepCoordReader(id, null, why);
         else if (!this.coordMissing.has(id) && this.coordMissing.size < 100) {
           this.coordMissing.add(id);
@@ -1028,7 +1031,7 @@ export class CsvCore {
     const at = `${latDeg}, ${lonDeg}`;
     const z = zoneAtCoordinates(latDeg, lonDeg, year);
     if ('error' in z) {
-      this.keepCoordReader(id, null, `station ${id}: no zone from its coordinates (${at}): ${z.error}; its rows need --utc-offset MINUTES or --tz ZONE`);
+      this.keepCoordReader(id, null, `station ${id}: no zone from its coordinates (${at}): ${z.error}; its rows need ${ZONE_REMEDY}`);
       return null;
     }
     const zoneText = `zone ${utcOffsetLabel(z.standardOffsetMinutes)} (standard time of ${z.zone}, from ${from})`;
@@ -1037,7 +1040,7 @@ export class CsvCore {
       this.keepCoordReader(
         id,
         null,
-        `station ${id}: ${zoneText} refused: ${province.name} keeps ${province.standardOffsetsMinutes.map(utcOffsetLabel).join(' and ')} (check the sign of the longitude, ${at}); its rows need --utc-offset MINUTES or --tz ZONE`,
+        `station ${id}: ${zoneText} refused: ${province.name} keeps ${province.standardOffsetsMinutes.map(utcOffsetLabel).join(' and ')} (check the sign of the longitude, ${at}); its rows need ${ZONE_REMEDY}`,
       );
       return null;
     }

@@ -39,22 +39,27 @@ export interface EcccProvince {
  * "ON (west)"), Quebec Eastern and Atlantic (Toronto; Blanc-Sablon "QC (Lower North Shore)"), Newfoundland and
  * Labrador Newfoundland and Atlantic time (St_Johns; Goose_Bay).
  */
+/** A province and its standard times; the one standard offset is derived (null when it keeps more than one). */
+function province(code: string, name: string, offsets: readonly number[]): EcccProvince {
+  return { code, name, standardOffsetMinutes: offsets.length === 1 ? offsets[0]! : null, standardOffsetsMinutes: offsets };
+}
+
 const PROVINCES: readonly [prefix: string, p: EcccProvince][] = [
-  ['1', { code: 'BC', name: 'British Columbia', standardOffsetMinutes: null, standardOffsetsMinutes: [-480, -420] }],
-  ['21', { code: 'YT', name: 'Yukon', standardOffsetMinutes: null, standardOffsetsMinutes: [-480, -420] }],
-  ['22', { code: 'NT', name: 'Northwest Territories', standardOffsetMinutes: -420, standardOffsetsMinutes: [-420] }],
-  ['23', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -360, -420] }],
-  ['24', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -360, -420] }],
-  ['25', { code: 'NU', name: 'Nunavut', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -360, -420] }],
-  ['3', { code: 'AB', name: 'Alberta', standardOffsetMinutes: -420, standardOffsetsMinutes: [-420] }],
-  ['4', { code: 'SK', name: 'Saskatchewan', standardOffsetMinutes: null, standardOffsetsMinutes: [-360, -420] }],
-  ['5', { code: 'MB', name: 'Manitoba', standardOffsetMinutes: -360, standardOffsetsMinutes: [-360] }],
-  ['6', { code: 'ON', name: 'Ontario', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -360] }],
-  ['7', { code: 'QC', name: 'Quebec', standardOffsetMinutes: null, standardOffsetsMinutes: [-300, -240] }],
-  ['81', { code: 'NB', name: 'New Brunswick', standardOffsetMinutes: -240, standardOffsetsMinutes: [-240] }],
-  ['82', { code: 'NS', name: 'Nova Scotia', standardOffsetMinutes: -240, standardOffsetsMinutes: [-240] }],
-  ['83', { code: 'PE', name: 'Prince Edward Island', standardOffsetMinutes: -240, standardOffsetsMinutes: [-240] }],
-  ['84', { code: 'NL', name: 'Newfoundland and Labrador', standardOffsetMinutes: null, standardOffsetsMinutes: [-210, -240] }],
+  ['1', province('BC', 'British Columbia', [-480, -420])],
+  ['21', province('YT', 'Yukon', [-480, -420])],
+  ['22', province('NT', 'Northwest Territories', [-420])],
+  ['23', province('NU', 'Nunavut', [-300, -360, -420])],
+  ['24', province('NU', 'Nunavut', [-300, -360, -420])],
+  ['25', province('NU', 'Nunavut', [-300, -360, -420])],
+  ['3', province('AB', 'Alberta', [-420])],
+  ['4', province('SK', 'Saskatchewan', [-360, -420])],
+  ['5', province('MB', 'Manitoba', [-360])],
+  ['6', province('ON', 'Ontario', [-300, -360])],
+  ['7', province('QC', 'Quebec', [-300, -240])],
+  ['81', province('NB', 'New Brunswick', [-240])],
+  ['82', province('NS', 'Nova Scotia', [-240])],
+  ['83', province('PE', 'Prince Edward Island', [-240])],
+  ['84', province('NL', 'Newfoundland and Labrador', [-210, -240])],
 ];
 
 /**
